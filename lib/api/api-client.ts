@@ -1,0 +1,48 @@
+import type { z } from 'zod';
+import { apiErrorBodySchema, type ApiErrorCode } from '@/lib/schemas/errors';
+
+/** An error answered by the API, classified by its code (never by message text). */
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: ApiErrorCode | 'NETWORK',
+    message: string,
+    readonly fields: Record<string, string> = {},
+  ) {
+    super(message);
+    this.name = 'ApiError';
+  }
+}
+
+/** Same-origin API base: the server serves both the app and /api. */
+const API_BASE = '/api';
+
+export async function apiRequest<T>(
+  path: string,
+  schema: z.ZodType<T>,
+  init: { method?: string; body?: unknown; signal?: AbortSignal } = {},
+): Promise<T> {
+  let response: Response;
+  try {
+    response = await fetch(`${API_BASE}${path}`, {
+      method: init.method ?? 'GET',
+      headers: init.body === undefined ? undefined : { 'Content-Type': 'application/json' },
+      body: init.body === undefined ? undefined : JSON.stringify(init.body),
+      credentials: 'same-origin',
+      signal: init.signal,
+    });
+  } catch (cause) {
+    if (cause instanceof Error && cause.name === 'AbortError') throw cause;
+    throw new ApiError(0, 'NETWORK', 'The server could not be reached. Check your connection.');
+  }
+  const payload: unknown = await response.json().catch(() => null);
+  if (!response.ok) {
+    const parsed = apiErrorBodySchema.safeParse(payload);
+    if (parsed.success) {
+      const { code, message, fields } = parsed.data.error;
+      throw new ApiError(response.status, code, message, fields ?? {});
+    }
+    throw new ApiError(response.status, 'INTERNAL', `The server answered ${response.status}.`);
+  }
+  return schema.parse(payload);
+}

@@ -1,0 +1,161 @@
+/**
+ * Shared types of the chemistry engines (lability, route, Marcus).
+ * Pure data shapes: no I/O, no React, no server code may be imported here.
+ */
+
+/** Where a parse failed: a message a chemist can act on and the 0-based character index. */
+export class FormulaError extends Error {
+  readonly position: number;
+  readonly formula: string;
+  constructor(message: string, formula: string, position: number) {
+    super(message);
+    this.name = 'FormulaError';
+    this.formula = formula;
+    this.position = position;
+  }
+}
+
+export type Geometry =
+  | 'linear'
+  | 'trigonal-planar'
+  | 'tetrahedral'
+  | 'square-planar'
+  | 'trigonal-bipyramidal'
+  | 'square-pyramidal'
+  | 'octahedral'
+  | 'pentagonal-bipyramidal'
+  | 'square-antiprismatic'
+  | 'tricapped-trigonal-prismatic'
+  | 'other';
+
+export type Verdict = 'labile' | 'intermediate' | 'inert';
+export type SpinState = 'high' | 'low';
+export type Confidence = 'high' | 'medium' | 'low';
+
+/** One entry of the ligand catalogue in data/ligands.json. */
+export interface LigandDefinition {
+  /** Catalogue key, e.g. "NH3", "Cl", "en", "NCS" (N-bound), "SCN" (S-bound). */
+  id: string;
+  name: string;
+  /** Other spellings accepted by the parser, e.g. ["OH2"] for H2O. */
+  aliases: string[];
+  /** Elemental composition of the free ligand as coordinated (e.g. {C:2,H:8,N:2} for en). */
+  composition: Record<string, number>;
+  charge: number;
+  denticity: number;
+  /** Atoms bound to the metal, one per tooth (e.g. ["N","N"] for en). */
+  donorAtoms: string[];
+  /** σ-donor / π-donor / π-acceptor class (common practice). */
+  bondingClass: 'sigma' | 'pi-donor' | 'pi-acceptor';
+  /** Jørgensen f factor where published, else null. */
+  jorgensenF: number | null;
+  /** Atom that keeps a free lone pair after coordination and can bridge to a second metal, or null. */
+  bridgingAtom: string | null;
+  /** 'adjacent' (bridge through the donor atom) or 'remote' (through a far atom, e.g. pyrazine N4). */
+  bridgeMode: 'adjacent' | 'remote' | null;
+  softness: 'hard' | 'borderline' | 'soft';
+  hazards: string[];
+  source: string;
+  /** Position in the spectrochemical series (Shriver & Atkins; 0 = I⁻, weakest), null if not listed. */
+  spectrochemicalRank?: number | null;
+  /** Rough f where Jørgensen published none (interpolated from the series; flagged in reasons), else null. */
+  fEstimate?: number | null;
+  fEstimateSource?: string | null;
+  /** η number for π-bound ligands (5 for Cp); denticity then counts coordination sites. */
+  hapticity?: number;
+  /** Metal–carbon bonded ligand (CO, Cp, Me): the 18-electron rule applies. */
+  organometallic?: boolean;
+}
+
+/** A ligand as it occurs in a parsed complex. */
+export interface LigandInstance {
+  ligand: LigandDefinition;
+  /** How the user wrote it, e.g. "OH2". */
+  written: string;
+  count: number;
+  /** 0-based character index of the ligand in the input. */
+  position: number;
+}
+
+export interface IonPart {
+  /** Formula of the ion as written, e.g. "NO3", "K". */
+  formula: string;
+  charge: number;
+  count: number;
+  composition: Record<string, number>;
+}
+
+export interface ParsedFormula {
+  input: string;
+  /** Element symbol of the (single) metal centre. */
+  metal: string;
+  ligands: LigandInstance[];
+  /** Net charge of the coordination entity (the bracketed part). */
+  complexCharge: number;
+  /** Number of coordination entities in the formula unit (e.g. 2 in [Co(NH3)6]2(SO4)3). */
+  complexCount: number;
+  counterIons: IonPart[];
+  /** Waters (or other solvents) of crystallisation per formula unit. */
+  hydrateWaters: number;
+  /** Composition of the whole formula unit, counter-ions and hydrate included. */
+  composition: Record<string, number>;
+}
+
+export interface ClassifyOptions {
+  /** Temperature for the rate estimate (°C, default 25). */
+  temperatureC?: number;
+  /** Overrides the predicted geometry. */
+  geometry?: Geometry;
+}
+
+/** A measured value that decides or sits beside a prediction. */
+export interface MeasuredRate {
+  kind: 'water-exchange' | 'ligand-exchange' | 'substitution';
+  kPerSecond: number;
+  temperatureK: number;
+  deltaHActivationKJPerMol: number | null;
+  deltaSActivationJPerMolK: number | null;
+  source: string;
+}
+
+/** The lability engine's answer for one formula (stable fields first: see PRODUCT.md). */
+export interface Classification {
+  formula: string;
+  metal: string;
+  oxidationState: number;
+  /** d-electron count of the ion (0 for lanthanides/actinides, whose count is in fElectrons; 10 for d10 main-group ions such as Ga³⁺). */
+  dElectrons: number;
+  electronShell: 'd' | 'f' | 'sp';
+  spinState: SpinState | null;
+  geometry: Geometry;
+  geometrySource: 'predicted' | 'given';
+  verdict: Verdict;
+  reasons: string[];
+  cautions: string[];
+  coordinationNumber: number;
+  complexCharge: number;
+  molarMassGPerMol: number;
+  ligands: { id: string; name: string; count: number; donorAtoms: string[]; charge: number }[];
+  nearSpinCrossover: boolean;
+  deltaOcm: number | null;
+  lfseDq: number | null;
+  lfseKJPerMol: number | null;
+  activationEnergyDq: { dissociative: number; associative: number } | null;
+  activationEnergyKJPerMol: { dissociative: number; associative: number } | null;
+  jahnTeller: 'strong' | 'weak' | null;
+  /** Estimated log10 of the first-order exchange rate constant at temperatureC (s⁻¹). */
+  logKPerSecond: number;
+  halfLifeSeconds: number;
+  temperatureC: number;
+  confidence: Confidence;
+  decidedBy: 'measured' | 'prediction';
+  measured: MeasuredRate | null;
+  hints: string[];
+  /** f-electron count for lanthanides/actinides (0 otherwise). */
+  fElectrons?: number;
+  /** The model's own log10 k (s⁻¹) at temperatureC, kept even when a measured value decides. */
+  predictedLogKPerSecond?: number;
+  unpairedElectrons?: number | null;
+  /** Metal d electrons + 2 per coordination site (ionic counting), for the 18-electron rule. */
+  valenceElectronCount?: number;
+}
