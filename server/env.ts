@@ -20,7 +20,7 @@ export type Env = z.infer<typeof envSchema> & { dataDirAbsolute: string; webDirA
 
 export class EnvError extends Error {}
 
-export function readEnv(source: NodeJS.ProcessEnv = process.env): Env {
+export function readEnv(source: Record<string, string | undefined> = process.env): Env {
   const parsed = envSchema.safeParse(source);
   if (!parsed.success) {
     const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`);

@@ -28,8 +28,7 @@ interface ClusterConfig {
 
 export class ClusterError extends Error {}
 
-export function findPostgresBinaries(): string {
-  const root = '/usr/lib/postgresql';
+export function findPostgresBinaries(root = '/usr/lib/postgresql'): string {
   const versions = fs.existsSync(root)
     ? fs.readdirSync(root).filter((v) => fs.existsSync(path.join(root, v, 'bin', 'pg_ctl')))
     : [];
@@ -37,7 +36,7 @@ export function findPostgresBinaries(): string {
   const newest = versions[0];
   if (!newest) {
     throw new ClusterError(
-      'PostgreSQL server binaries were not found under /usr/lib/postgresql/*/bin. ' +
+      `PostgreSQL server binaries were not found under ${root}/*/bin. ` +
         'Install the Debian package "postgresql" (sudo apt-get install -y postgresql), ' +
         'or set DATABASE_URL to use an existing server.',
     );

@@ -15,7 +15,7 @@ export async function migrate(orm: Orm): Promise<string[]> {
 
 /** Health probe: a trivial query with a short deadline. */
 export async function databaseIsUp(orm: Orm, timeoutMs = 2000): Promise<boolean> {
-  let timer: NodeJS.Timeout | undefined;
+  let timer: ReturnType<typeof setTimeout> | undefined;
   const deadline = new Promise<boolean>((resolve) => {
     timer = setTimeout(() => resolve(false), timeoutMs);
   });

@@ -1,0 +1,57 @@
+import assert from 'node:assert/strict';
+import { after, before, describe, it } from 'node:test';
+import type { Browser } from 'playwright-core';
+import {
+  baseUrl,
+  collectPageErrors,
+  horizontalOverflowPx,
+  launchBrowser,
+  screenshot,
+  viewports,
+  type ViewportName,
+} from './browser';
+
+let browser: Browser;
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
+
+for (const size of Object.keys(viewports) as ViewportName[]) {
+  describe(`the app shell at ${size} size`, () => {
+    it('shows the landing view, the five tabs and our shipped font, without horizontal scrolling', async () => {
+      const page = await browser.newPage({ viewport: viewports[size] });
+      const errors = collectPageErrors(page);
+      await page.goto(`${baseUrl()}/`);
+      await page.getByTestId('landing').waitFor();
+      assert.ok(await page.getByRole('heading', { name: 'Sphereline' }).isVisible());
+      for (const tab of ['check', 'route', 'library', 'review', 'account']) {
+        assert.ok(await page.getByTestId(`nav-${tab}`).isVisible(), `tab ${tab} visible`);
+      }
+      const navId = size === 'wide' ? 'nav-rail' : 'nav-bar';
+      assert.ok(await page.getByTestId(navId).isVisible(), `${navId} is the navigation at ${size} size`);
+      await page.evaluate(() => document.fonts.ready);
+      assert.equal(await page.evaluate(() => document.fonts.check('16px PlexSans')), true, 'PlexSans loaded');
+      const fontOfHeading = await page
+        .getByRole('heading', { name: 'Sphereline' })
+        .evaluate((el) => getComputedStyle(el).fontFamily);
+      assert.match(fontOfHeading, /PlexSans/);
+      assert.ok((await horizontalOverflowPx(page)) <= 0, 'no horizontal scrolling');
+      await screenshot(page, `shell-landing-${size}`);
+      assert.deepEqual(errors, []);
+      await page.close();
+    });
+
+    it('navigates to a tab and says plainly what is not built yet', async () => {
+      const page = await browser.newPage({ viewport: viewports[size] });
+      await page.goto(`${baseUrl()}/`);
+      await page.getByTestId('nav-review').click();
+      await page.getByTestId('review-not-built').waitFor();
+      assert.match(page.url(), /\/review$/);
+      await screenshot(page, `shell-review-${size}`);
+      await page.close();
+    });
+  });
+}

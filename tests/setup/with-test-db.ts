@@ -1,0 +1,44 @@
+import { spawn } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { startPrivateCluster } from '@/server/db/cluster';
+
+/**
+ * `npm test`: a throwaway PostgreSQL cluster (unless DATABASE_URL is given), then jest with the
+ * given arguments; the cluster is removed afterwards, also when tests fail or the run is interrupted.
+ */
+async function main() {
+  const jestArgs = process.argv.slice(2);
+  let cleanup = async () => {};
+  const env = { ...process.env };
+  if (!env.DATABASE_URL) {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'sphereline-test-pg-'));
+    fs.chmodSync(dir, 0o755);
+    const cluster = await startPrivateCluster(dir, { database: 'sphereline_test', throwaway: true });
+    env.DATABASE_URL = cluster.url;
+    cleanup = async () => {
+      await cluster.stop().catch(() => {});
+      fs.rmSync(dir, { recursive: true, force: true });
+    };
+  }
+  let interrupted = false;
+  const child = spawn(process.execPath, [require.resolve('jest/bin/jest'), ...jestArgs], {
+    stdio: 'inherit',
+    env: { ...env, NODE_ENV: 'test' },
+  });
+  const forward = (signal: NodeJS.Signals) => {
+    interrupted = true;
+    child.kill(signal);
+  };
+  process.on('SIGINT', forward);
+  process.on('SIGTERM', forward);
+  const code: number = await new Promise((resolve) => child.on('exit', (c) => resolve(c ?? 1)));
+  await cleanup();
+  process.exit(interrupted && code === 0 ? 1 : code);
+}
+
+main().catch((error: Error) => {
+  console.error(error.message);
+  process.exit(1);
+});
