@@ -5,6 +5,7 @@ import helmet from 'helmet';
 import type { Orm } from './db/orm';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { requestLog } from './http/request-log';
+import { chemRoutes } from './modules/chem/chem.routes';
 import { healthRoutes } from './modules/health/health.routes';
 
 export interface AppOptions {
@@ -40,6 +41,7 @@ export function createApp({ orm, webDir, logRequests = false }: AppOptions): Exp
   if (logRequests) api.use(requestLog());
   api.use(express.json({ limit: '1mb', strict: true }));
   api.use(healthRoutes(orm));
+  api.use(chemRoutes());
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -1,0 +1,309 @@
+/**
+ * The lability engine's entry point: formula in, Classification out.
+ */
+import measuredRateData from '@/data/measured-rates.json';
+import { cautionsFor } from './cautions';
+import { molarMassGPerMol } from './elements';
+import { coordinationNumber, predictGeometry, valenceElectronCount } from './electron-count';
+import { parseFormula, formatCharge } from './formula-parser';
+import {
+  KJ_PER_MOL_PER_CM,
+  activationEnergyDq,
+  averageLigandFactor,
+  decideSpin,
+  estimateDeltaO,
+  jahnTellerKind,
+  octahedralLfseDq,
+  octahedralOccupancy,
+  tetrahedralLfseDq,
+} from './ligand-field';
+import {
+  ONE_MINUTE_LOG_K,
+  confidenceFrom,
+  measuredLogKAt,
+  predictLogK,
+  scaleLogKWithoutEyring,
+  verdictFromLogK,
+} from './lability';
+import { electronConfiguration, ionLabel, ionicRadiusPm, metalElement, metalIon } from './metal-ions';
+import { FormulaError, type Classification, type ClassifyOptions, type LigandInstance, type MeasuredRate } from './types';
+
+interface MeasuredRecord {
+  species: string;
+  metal: string;
+  oxidationState: number;
+  ligands: Record<string, number>;
+  kind: string;
+  kPerSecond: number;
+  temperatureK: number;
+  deltaHActivationKJPerMol: number | null;
+  deltaSActivationJPerMolK: number | null;
+  source: string;
+}
+
+function ligandSetKey(entries: Array<[string, number]>): string {
+  return entries
+    .sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0))
+    .map(([id, count]) => `${id}:${count}`)
+    .join(',');
+}
+
+const measuredByKey: ReadonlyMap<string, { rate: MeasuredRate; species: string }> = new Map(
+  (measuredRateData.rates as MeasuredRecord[]).map((record) => [
+    `${record.metal}/${record.oxidationState}/${ligandSetKey(Object.entries(record.ligands))}`,
+    {
+      species: record.species,
+      rate: {
+        kind: 'water-exchange',
+        kPerSecond: record.kPerSecond,
+        temperatureK: record.temperatureK,
+        deltaHActivationKJPerMol: record.deltaHActivationKJPerMol,
+        deltaSActivationJPerMolK: record.deltaSActivationJPerMolK,
+        source: record.source,
+      },
+    },
+  ]),
+);
+
+const measuredIons: ReadonlySet<string> = new Set(
+  (measuredRateData.rates as MeasuredRecord[]).map((record) => `${record.metal}/${record.oxidationState}`),
+);
+
+function findMeasured(metal: string, oxidationState: number, ligands: readonly LigandInstance[]): { rate: MeasuredRate; species: string } | undefined {
+  if (!measuredIons.has(`${metal}/${oxidationState}`)) return undefined;
+  const entries: Array<[string, number]> = ligands.map((instance) => [instance.ligand.id, instance.count]);
+  return measuredByKey.get(`${metal}/${oxidationState}/${ligandSetKey(entries)}`);
+}
+
+// Rough metal factor (10³ cm⁻¹) for ions without a published g: Δo rises ~50 % from 3d to 4d and
+// ~25 % more to 5d (common practice); 3d values typical of M²⁺/M³⁺ aqua ions (jorgensen.json).
+const ROUGH_G_3D: Record<number, number> = { 0: 8, 1: 8, 2: 9.5, 3: 17, 4: 22, 5: 24, 6: 26, 7: 26, 8: 26 };
+const ROW_FACTOR: Record<string, number> = { '3d': 1, '4d': 1.45, '5d': 1.8 };
+
+const DISCLAIMER = 'The verdict is a rule-of-thumb prediction, not a measurement: check it experimentally where it matters.';
+const KINETIC_SCALE_NOTE = 'Rates are first-order exchange constants per bound ligand (s⁻¹); labile means t½ under about a minute at 25 °C (Taube 1952).';
+
+export function classifyFormula(formula: string, options: ClassifyOptions = {}): Classification {
+  const parsed = parseFormula(formula);
+  const temperatureC = options.temperatureC ?? 25;
+  if (!Number.isFinite(temperatureC) || temperatureC < -100 || temperatureC > 400) {
+    throw new FormulaError(`Temperature ${temperatureC} °C is outside the range this tool handles (−100 to 400 °C)`, formula, 0);
+  }
+  const temperatureK = temperatureC + 273.15;
+  const { metal, ligands, oxidationState } = parsed;
+  const element = metalElement(metal);
+  const configuration = element ? electronConfiguration(element, oxidationState) : null;
+  if (!element || !configuration) {
+    throw new FormulaError(`Cannot count electrons for ${metal} in oxidation state ${oxidationState}`, formula, 0);
+  }
+  const { dElectrons, fElectrons, electronShell } = configuration;
+  const reasons: string[] = [];
+  const label = ionLabel(metal, oxidationState);
+
+  const cn = coordinationNumber(ligands);
+  const predictedGeometry = predictGeometry({ coordinationNumber: cn, dElectrons, electronShell, series: element.series, metal, oxidationState, ligands });
+  const geometry = options.geometry ?? predictedGeometry;
+  const geometrySource = options.geometry ? 'given' : 'predicted';
+
+  const ion = metalIon(metal, oxidationState);
+  const isDBlock = electronShell === 'd';
+  const hasLigandField = isDBlock && dElectrons > 0 && dElectrons < 10;
+  const deltaO = hasLigandField ? estimateDeltaO(ligands, ion) : null;
+
+  const spin = decideSpin({ dElectrons, electronShell, element, ion, oxidationState, geometry, ligands, deltaO });
+  const spinForCounting = spin.spinState ?? 'high';
+  const occupancy = isDBlock ? octahedralOccupancy(dElectrons, spinForCounting) : null;
+
+  // Reported numbers use the plain Jørgensen f·g; the barrier uses the π-weighted estimate.
+  let kineticDeltaOcm: number | null = deltaO?.effectiveDeltaOcm ?? null;
+  let deltaORough = deltaO === null || deltaO.fEstimated || deltaO.gKind === 'aqua';
+  if (hasLigandField && deltaO === null) {
+    const average = averageLigandFactor(ligands);
+    const roughG = (ROUGH_G_3D[Math.max(0, Math.min(oxidationState, 8))] ?? 17) * (ROW_FACTOR[element.series] ?? 1);
+    kineticDeltaOcm = (average?.fEffective ?? 1) * roughG * 1000;
+    deltaORough = true;
+  }
+
+  let lfseDq: number | null = null;
+  if (isDBlock && geometry === 'octahedral') lfseDq = octahedralLfseDq(dElectrons, spinForCounting);
+  else if (isDBlock && geometry === 'tetrahedral') lfseDq = Math.round(tetrahedralLfseDq(dElectrons) * 100) / 100;
+  const deltaOcm = deltaO?.deltaOcm ?? null;
+  const dqKJ = deltaOcm === null ? null : (deltaOcm / 10) * KJ_PER_MOL_PER_CM;
+  const lfseKJPerMol = lfseDq !== null && dqKJ !== null ? lfseDq * dqKJ : null;
+  const cfae = isDBlock && geometry === 'octahedral' ? activationEnergyDq(dElectrons, spinForCounting) : null;
+  const cfaeKJ = cfae !== null && dqKJ !== null ? { dissociative: cfae.dissociative * dqKJ, associative: cfae.associative * dqKJ } : null;
+  const jahnTeller = isDBlock ? jahnTellerKind(dElectrons, spin.spinState, geometry) : null;
+  const electronCount = isDBlock ? valenceElectronCount(dElectrons, cn) : null;
+  const organometallic = ligands.some((instance) => instance.ligand.organometallic === true);
+  const { radiusPm, estimated: radiusEstimated } = ionicRadiusPm(element, oxidationState, spin.spinState);
+
+  // --- electron counting reasons
+  const shellText = electronShell === 'f' ? `f${fElectrons}` : electronShell === 'sp' ? (dElectrons === 10 ? 'd10 (main group)' : 'noble-gas core (main group)') : `d${dElectrons}`;
+  reasons.push(`${label}, ${shellText}; charge ${formatCharge(parsed.complexCharge)}${parsed.counterIons.length > 0 ? ' (from the counter-ions)' : ''}; coordination number ${cn}, ${geometry}${geometrySource === 'given' ? ' (given)' : ''}`);
+  if (ligands.some((instance) => instance.ligand.id === 'NO')) reasons.push('nitrosyl counted as NO⁺ (linear, 2-electron donor) by convention');
+  if (ligands.some((instance) => instance.ligand.hapticity !== undefined)) reasons.push('η5-cyclopentadienyl counted as three coordination sites (6-electron donor) by convention');
+  if (deltaO !== null) {
+    const source = deltaO.gKind === 'aqua' ? 'g taken as the aqua ion’s Δo' : 'Jørgensen g';
+    reasons.push(`Δo ≈ f·g = ${deltaO.fAverage.toFixed(2)} × ${deltaO.g} × 10³ = ${deltaO.deltaOcm} cm⁻¹ (${source}${deltaO.fEstimated ? '; some f values are rough estimates' : ''})`);
+    if (geometry === 'tetrahedral') reasons.push(`tetrahedral: Δt ≈ 4/9 Δo ≈ ${Math.round((deltaO.deltaOcm * 4) / 9)} cm⁻¹`);
+  } else if (hasLigandField) {
+    reasons.push(`Δo not estimable: no published g for ${label}${ligands.some((i) => i.ligand.jorgensenF === null && (i.ligand.fEstimate ?? null) === null) ? ' or no f for a ligand' : ''}; a rough value is used for the rate`);
+  }
+  if (spin.spinState !== null) {
+    reasons.push(`${spin.spinState} spin: ${spin.basis}`);
+    if (spin.nearSpinCrossover) reasons.push('near spin crossover: Δo and the pairing energy are close — check the spin state experimentally');
+  }
+
+  // --- rate
+  const prediction = predictLogK({
+    metal,
+    oxidationState,
+    series: element.series,
+    electronShell,
+    dElectrons,
+    spinState: spin.spinState,
+    geometry,
+    coordinationNumber: cn,
+    ligands,
+    radiusPm,
+    radiusEstimated,
+    deltaOcm: kineticDeltaOcm,
+    deltaORough,
+    activationEnergyDq: cfae,
+    egElectrons: occupancy?.eg ?? 0,
+    vacantT2g: occupancy && occupancy.t2g < 3 ? 3 - occupancy.t2g : 0,
+    jahnTeller,
+    valenceElectronCount: electronCount,
+    organometallic,
+  });
+  for (const reason of prediction.reasons) reasons.push(reason);
+  const predictedLogK = scaleLogKWithoutEyring(prediction.logKPerSecond, temperatureK);
+
+  const measuredMatch = findMeasured(metal, oxidationState, ligands);
+  let logK = predictedLogK;
+  let decidedBy: Classification['decidedBy'] = 'prediction';
+  if (measuredMatch) {
+    const { logK: measuredLogK, usedEyring } = measuredLogKAt(measuredMatch.rate, temperatureK);
+    logK = measuredLogK;
+    decidedBy = 'measured';
+    reasons.push(`measured k_ex = ${measuredMatch.rate.kPerSecond.toExponential(1)} s⁻¹ at 25 °C for ${measuredMatch.species} (${measuredMatch.rate.source}) decides; the model alone gives ~10^${predictedLogK.toFixed(1)} s⁻¹`);
+    if (Math.abs(temperatureK - 298.15) > 1e-9) {
+      reasons.push(usedEyring ? `moved to ${temperatureC} °C with the measured Eyring ΔH‡ = ${measuredMatch.rate.deltaHActivationKJPerMol} kJ/mol` : `moved to ${temperatureC} °C assuming ΔS‡ = 0 (no activation parameters published here)`);
+    }
+  } else if (Math.abs(temperatureK - 298.15) > 1e-9) {
+    reasons.push(`moved to ${temperatureC} °C assuming the whole barrier is enthalpic (ΔS‡ = 0): a rough correction`);
+  }
+  const verdict = verdictFromLogK(logK);
+  const halfLifeSeconds = Math.LN2 / 10 ** logK;
+  const confidence = confidenceFrom(logK, prediction.roughness, decidedBy === 'measured');
+  reasons.push(`${verdict}: k ≈ 10^${logK.toFixed(1)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${verdict === 'intermediate' ? 'close to' : logK > ONE_MINUTE_LOG_K ? 'faster than' : 'slower than'} the one-minute line)`);
+  reasons.push(KINETIC_SCALE_NOTE);
+
+  const hints = hintsFor(metal, oxidationState, verdict, ligands, dElectrons, geometry);
+  reasons.push(decidedBy === 'measured' ? 'The verdict rests on the published measurement above; the model estimate is shown for comparison.' : DISCLAIMER);
+
+  return {
+    formula,
+    metal,
+    oxidationState,
+    dElectrons,
+    electronShell,
+    spinState: spin.spinState,
+    geometry,
+    geometrySource,
+    verdict,
+    reasons,
+    cautions: cautionsFor(parsed, oxidationState),
+    coordinationNumber: cn,
+    complexCharge: parsed.complexCharge,
+    molarMassGPerMol: Math.round(molarMassGPerMol(parsed.composition) * 1000) / 1000,
+    ligands: ligands.map((instance) => ({
+      id: instance.ligand.id,
+      name: instance.ligand.name,
+      count: instance.count,
+      donorAtoms: instance.ligand.donorAtoms,
+      charge: instance.ligand.charge,
+    })),
+    nearSpinCrossover: spin.nearSpinCrossover,
+    deltaOcm,
+    lfseDq,
+    lfseKJPerMol: lfseKJPerMol === null ? null : Math.round(lfseKJPerMol * 10) / 10,
+    activationEnergyDq: cfae,
+    activationEnergyKJPerMol: cfaeKJ === null ? null : { dissociative: Math.round(cfaeKJ.dissociative * 10) / 10, associative: Math.round(cfaeKJ.associative * 10) / 10 },
+    jahnTeller,
+    logKPerSecond: Math.round(logK * 100) / 100,
+    halfLifeSeconds,
+    temperatureC,
+    confidence,
+    decidedBy,
+    measured: measuredMatch?.rate ?? null,
+    hints,
+    fElectrons,
+    predictedLogKPerSecond: Math.round(predictedLogK * 100) / 100,
+    unpairedElectrons: occupancy && hasLigandField && (geometry === 'octahedral') ? occupancy.unpaired : null,
+    valenceElectronCount: electronCount ?? undefined,
+  };
+}
+
+export type ClassifyManyResult = Classification | { formula: string; error: string; position: number };
+
+export function classifyMany(formulas: readonly string[], options?: ClassifyOptions): ClassifyManyResult[] {
+  const results: ClassifyManyResult[] = new Array(formulas.length);
+  for (let index = 0; index < formulas.length; index++) {
+    const formula = formulas[index] ?? '';
+    try {
+      results[index] = classifyFormula(formula, options);
+    } catch (error) {
+      if (error instanceof FormulaError) results[index] = { formula, error: error.message, position: error.position };
+      else throw error;
+    }
+  }
+  return results;
+}
+
+function formatDuration(seconds: number): string {
+  if (!Number.isFinite(seconds)) return 'forever';
+  if (seconds < 1e-3) return `${(seconds * 1e6).toPrecision(2)} µs`;
+  if (seconds < 1) return `${(seconds * 1e3).toPrecision(2)} ms`;
+  if (seconds < 120) return `${seconds.toPrecision(2)} s`;
+  if (seconds < 7200) return `${(seconds / 60).toPrecision(2)} min`;
+  if (seconds < 172800) return `${(seconds / 3600).toPrecision(2)} h`;
+  if (seconds < 3.15e7 * 2) return `${(seconds / 86400).toPrecision(2)} days`;
+  return `${(seconds / 3.15e7).toPrecision(2)} years`;
+}
+
+const HINT_HEAT = 'Inert at room temperature: plan on heat, a long reflux or a catalyst rather than waiting.';
+const HINT_INTERMEDIATE = 'Substitution takes minutes: allow time or warm gently.';
+const HINT_STABLE_NOT_INERT = 'Thermodynamic stability is not kinetic inertness: a large formation constant does not stop fast ligand exchange ([Ni(CN)4]²⁻ is very stable yet swaps cyanide quickly).';
+const HINT_INERT_NOT_STABLE = 'Kinetic inertness is not thermodynamic stability: an inert complex may survive conditions that would decompose it at equilibrium ([Co(NH3)6]³⁺ lasts for days in acid).';
+const REDOX_HINTS: Record<string, string[]> = {
+  'Co/3': [
+    'Substitute on labile Co(II) first, then oxidise to Co(III) (air or H2O2, often with charcoal).',
+    'Traces of Co(II) catalyse substitution on Co(III) through electron exchange (redox catalysis).',
+  ],
+  'Cr/3': [
+    'Substitute on labile Cr(II) under an inert atmosphere, then oxidise to Cr(III).',
+    'Traces of Cr(II) catalyse substitution on Cr(III) through electron exchange (redox catalysis).',
+  ],
+  'Ru/3': ['Ru(II) exchanges water ~10⁴ times faster than Ru(III) (Rapaport et al. 1988): substitute on Ru(II), then oxidise if Ru(III) is wanted.'],
+  'Ru/2': ['Reflux for hours; photolysis can labilise Ru(II) polypyridyls.'],
+  'Pt/4': ['Traces of Pt(II) catalyse substitution on Pt(IV) (halide-bridged redox); alternatively substitute on Pt(II) and oxidise.'],
+  'Pt/2': ['Use the trans effect to choose which ligand leaves, and allow hours at 40–80 °C.'],
+  'Rh/3': ['Reducing agents (e.g. ethanol, traces of Rh(I)) catalyse substitution on Rh(III).'],
+  'Fe/3': ['If Fe(III) is inert here, substitute on Fe(II) and oxidise.'],
+};
+
+function hintsFor(metal: string, oxidationState: number, verdict: string, ligands: readonly LigandInstance[], dElectrons: number, geometry: string): string[] {
+  const hints: string[] = [];
+  if (verdict === 'inert') {
+    const redox = REDOX_HINTS[`${metal}/${oxidationState}`];
+    if (redox) for (const hint of redox) hints.push(hint);
+    hints.push(HINT_HEAT);
+    if (metal === 'Co' && oxidationState === 3 && ligands.some((i) => i.ligand.id === 'NH3' || i.ligand.id === 'en')) hints.push(HINT_INERT_NOT_STABLE);
+  } else if (verdict === 'intermediate') {
+    hints.push(HINT_INTERMEDIATE);
+  } else if (ligands.some((i) => i.ligand.id === 'CN' || i.ligand.denticity >= 4) || (geometry === 'square-planar' && dElectrons === 8)) {
+    hints.push(HINT_STABLE_NOT_INERT);
+  }
+  return hints;
+}

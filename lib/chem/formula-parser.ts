@@ -1,0 +1,596 @@
+/**
+ * Coordination-formula parser: "[Co(en)2(NO2)Cl]NO3", "K3[Cr(ox)3]·3H2O", "[Cr(H2O)6]³⁺" …
+ * Every failure is a FormulaError with a 0-based character position and a message that says
+ * what is wrong there. The oxidation state follows from the charge balance
+ * (counter-ions + complex charge + ligand charges).
+ */
+import { addComposition, isElementSymbol } from './elements';
+import { findLigand, ligandTable, ligandTokens, suggestLigandSpelling } from './ligands';
+import { electronConfiguration, isMetalSymbol, metalElement } from './metal-ions';
+import { FormulaError, type IonPart, type LigandDefinition, type LigandInstance, type ParsedFormula } from './types';
+
+/** Parsed formula plus what classify() needs beyond the shared ParsedFormula shape. */
+export interface ParsedComplex extends ParsedFormula {
+  oxidationState: number;
+  /** Charge written by the user (null if it came from the counter-ions or defaulted to 0). */
+  writtenCharge: number | null;
+}
+
+interface CounterIonDefinition {
+  formula: string;
+  charge: number;
+  composition: Record<string, number>;
+}
+
+// Common counter-ions with their charges (common practice). Longest spelling wins when scanning.
+const CATIONS: readonly CounterIonDefinition[] = [
+  { formula: 'H', charge: 1, composition: { H: 1 } },
+  { formula: 'Li', charge: 1, composition: { Li: 1 } },
+  { formula: 'Na', charge: 1, composition: { Na: 1 } },
+  { formula: 'K', charge: 1, composition: { K: 1 } },
+  { formula: 'Rb', charge: 1, composition: { Rb: 1 } },
+  { formula: 'Cs', charge: 1, composition: { Cs: 1 } },
+  { formula: 'Ag', charge: 1, composition: { Ag: 1 } },
+  { formula: 'Tl', charge: 1, composition: { Tl: 1 } },
+  { formula: 'NH4', charge: 1, composition: { N: 1, H: 4 } },
+  { formula: 'NMe4', charge: 1, composition: { N: 1, C: 4, H: 12 } },
+  { formula: 'NEt4', charge: 1, composition: { N: 1, C: 8, H: 20 } },
+  { formula: 'NBu4', charge: 1, composition: { N: 1, C: 16, H: 36 } },
+  { formula: 'PPh4', charge: 1, composition: { P: 1, C: 24, H: 20 } },
+  { formula: 'Mg', charge: 2, composition: { Mg: 1 } },
+  { formula: 'Ca', charge: 2, composition: { Ca: 1 } },
+  { formula: 'Sr', charge: 2, composition: { Sr: 1 } },
+  { formula: 'Ba', charge: 2, composition: { Ba: 1 } },
+];
+
+const ANIONS: readonly CounterIonDefinition[] = [
+  { formula: 'F', charge: -1, composition: { F: 1 } },
+  { formula: 'Cl', charge: -1, composition: { Cl: 1 } },
+  { formula: 'Br', charge: -1, composition: { Br: 1 } },
+  { formula: 'I', charge: -1, composition: { I: 1 } },
+  { formula: 'I3', charge: -1, composition: { I: 3 } },
+  { formula: 'OH', charge: -1, composition: { O: 1, H: 1 } },
+  { formula: 'CN', charge: -1, composition: { C: 1, N: 1 } },
+  { formula: 'SCN', charge: -1, composition: { S: 1, C: 1, N: 1 } },
+  { formula: 'N3', charge: -1, composition: { N: 3 } },
+  { formula: 'NO3', charge: -1, composition: { N: 1, O: 3 } },
+  { formula: 'NO2', charge: -1, composition: { N: 1, O: 2 } },
+  { formula: 'ClO4', charge: -1, composition: { Cl: 1, O: 4 } },
+  { formula: 'BF4', charge: -1, composition: { B: 1, F: 4 } },
+  { formula: 'PF6', charge: -1, composition: { P: 1, F: 6 } },
+  { formula: 'SbF6', charge: -1, composition: { Sb: 1, F: 6 } },
+  { formula: 'AsF6', charge: -1, composition: { As: 1, F: 6 } },
+  { formula: 'OTf', charge: -1, composition: { C: 1, F: 3, S: 1, O: 3 } },
+  { formula: 'CF3SO3', charge: -1, composition: { C: 1, F: 3, S: 1, O: 3 } },
+  { formula: 'OTs', charge: -1, composition: { C: 7, H: 7, S: 1, O: 3 } },
+  { formula: 'BPh4', charge: -1, composition: { B: 1, C: 24, H: 20 } },
+  { formula: 'OAc', charge: -1, composition: { C: 2, H: 3, O: 2 } },
+  { formula: 'CH3COO', charge: -1, composition: { C: 2, H: 3, O: 2 } },
+  { formula: 'HSO4', charge: -1, composition: { H: 1, S: 1, O: 4 } },
+  { formula: 'SO4', charge: -2, composition: { S: 1, O: 4 } },
+  { formula: 'CO3', charge: -2, composition: { C: 1, O: 3 } },
+  { formula: 'C2O4', charge: -2, composition: { C: 2, O: 4 } },
+  { formula: 'PO4', charge: -3, composition: { P: 1, O: 4 } },
+];
+
+const cationByFormula: ReadonlyMap<string, CounterIonDefinition> = new Map(CATIONS.map((c) => [c.formula, c]));
+const anionByFormula: ReadonlyMap<string, CounterIonDefinition> = new Map(ANIONS.map((a) => [a.formula, a]));
+function lengthsByFirstChar(tokens: Iterable<string>): ReadonlyMap<string, readonly number[]> {
+  const lengths = new Map<string, number[]>();
+  for (const token of tokens) {
+    const first = token[0] ?? '';
+    const list = lengths.get(first) ?? [];
+    if (!list.includes(token.length)) list.push(token.length);
+    lengths.set(first, list);
+  }
+  for (const list of lengths.values()) list.sort((a, b) => b - a);
+  return lengths;
+}
+
+const cationLengths = lengthsByFirstChar(cationByFormula.keys());
+const anionLengths = lengthsByFirstChar(anionByFormula.keys());
+const ligandLengths = lengthsByFirstChar(ligandTokens());
+
+const MAX_FORMULA_LENGTH = 300;
+const MAX_COUNT = 99;
+const HYDRATE_SEPARATORS = new Set(['·', '.', '*', '•', '⋅', '∙']);
+const SUPERSCRIPT_DIGITS: ReadonlyMap<string, number> = new Map(
+  [...'⁰¹²³⁴⁵⁶⁷⁸⁹'].map((ch, index) => [ch, index]),
+);
+const SUBSCRIPT_DIGIT_BASE = 0x2080; // ₀
+
+function digitValue(ch: string | undefined): number {
+  if (ch === undefined) return -1;
+  const code = ch.charCodeAt(0);
+  if (code >= 48 && code <= 57) return code - 48;
+  if (code >= SUBSCRIPT_DIGIT_BASE && code <= SUBSCRIPT_DIGIT_BASE + 9) return code - SUBSCRIPT_DIGIT_BASE;
+  return -1;
+}
+
+function isUpper(ch: string | undefined): boolean {
+  return ch !== undefined && ch >= 'A' && ch <= 'Z';
+}
+function isLower(ch: string | undefined): boolean {
+  return ch !== undefined && ch >= 'a' && ch <= 'z';
+}
+function isSpace(ch: string | undefined): boolean {
+  return ch === ' ' || ch === '\t' || ch === '\n' || ch === '\r' || ch === '\u00a0';
+}
+function isPlus(ch: string | undefined): boolean {
+  return ch === '+' || ch === '⁺';
+}
+function isMinus(ch: string | undefined): boolean {
+  return ch === '-' || ch === '−' || ch === '⁻' || ch === '–';
+}
+
+/** Formats a charge the way chemists write it: "3+", "2−" is avoided in favour of ASCII "2-". */
+export function formatCharge(charge: number): string {
+  if (charge === 0) return '0';
+  const magnitude = Math.abs(charge);
+  return `${magnitude === 1 ? '' : magnitude}${charge > 0 ? '+' : '-'}`;
+}
+
+class FormulaScanner {
+  readonly input: string;
+  readonly end: number;
+  pos: number;
+
+  constructor(input: string) {
+    this.input = input;
+    let end = input.length;
+    while (end > 0 && isSpace(input[end - 1])) end--;
+    this.end = end;
+    let start = 0;
+    while (start < end && isSpace(input[start])) start++;
+    this.pos = start;
+  }
+
+  fail(message: string, position: number): never {
+    throw new FormulaError(message, this.input, Math.max(0, Math.min(position, this.input.length)));
+  }
+
+  peek(offset = 0): string | undefined {
+    const index = this.pos + offset;
+    return index < this.end ? this.input[index] : undefined;
+  }
+
+  atEnd(): boolean {
+    return this.pos >= this.end;
+  }
+
+  skipSpaces(): void {
+    while (this.pos < this.end && isSpace(this.input[this.pos])) this.pos++;
+  }
+
+  /** Reads an optional count (ASCII or subscript digits); returns 1 when none is written. */
+  readCount(what: string): number {
+    const start = this.pos;
+    let value = 0;
+    let digits = 0;
+    while (digitValue(this.peek()) >= 0) {
+      value = value * 10 + digitValue(this.peek());
+      digits++;
+      this.pos++;
+      if (digits > 3) this.fail(`Count at character ${start} is too long`, start);
+    }
+    if (digits === 0) return 1;
+    if (value === 0) this.fail(`Count 0 for ${what} at character ${start} makes no sense`, start);
+    if (value > MAX_COUNT) this.fail(`Count ${value} for ${what} at character ${start} is too large`, start);
+    return value;
+  }
+
+  /**
+   * Longest catalogue token starting at the cursor, without consuming it. `lengthsByFirstChar`
+   * lists, longest first, the token lengths that exist for each first character.
+   */
+  matchLongest<T>(table: ReadonlyMap<string, T>, lengthsByFirstChar: ReadonlyMap<string, readonly number[]>): { token: string; value: T } | null {
+    const lengths = lengthsByFirstChar.get(this.input[this.pos] ?? '');
+    if (lengths === undefined) return null;
+    const available = this.end - this.pos;
+    for (const length of lengths) {
+      if (length > available) continue;
+      const token = this.input.substr(this.pos, length);
+      const value = table.get(token);
+      if (value !== undefined) return { token, value };
+    }
+    return null;
+  }
+
+  /** Index of the ')' closing the '(' at `open`, or -1. */
+  closingParenthesis(open: number): number {
+    let depth = 0;
+    for (let index = open; index < this.end; index++) {
+      const ch = this.input[index];
+      if (ch === '(') depth++;
+      else if (ch === ')') {
+        depth--;
+        if (depth === 0) return index;
+      } else if (ch === '[' || ch === ']') return -1;
+    }
+    return -1;
+  }
+
+  /**
+   * Reads a written charge at the cursor: "3+", "+3", "^3+", "³⁺", "+", "2-", "−". Returns null
+   * (cursor unchanged) when there is none.
+   */
+  readCharge(): { charge: number; position: number } | null {
+    const save = this.pos;
+    this.skipSpaces();
+    const position = this.pos;
+    if (this.peek() === '^') this.pos++;
+    let magnitude = 0;
+    let digits = 0;
+    let sign = 0;
+    const readDigits = (): void => {
+      for (;;) {
+        const ch = this.peek();
+        const ascii = digitValue(ch);
+        const superscript = ch === undefined ? undefined : SUPERSCRIPT_DIGITS.get(ch);
+        const value = ascii >= 0 ? ascii : superscript ?? -1;
+        if (value < 0) return;
+        magnitude = magnitude * 10 + value;
+        digits++;
+        this.pos++;
+        if (digits > 2) this.fail(`Charge at character ${position} is too large`, position);
+      }
+    };
+    if (isPlus(this.peek()) || isMinus(this.peek())) {
+      sign = isPlus(this.peek()) ? 1 : -1;
+      this.pos++;
+      readDigits();
+    } else {
+      readDigits();
+      if (digits > 0 && (isPlus(this.peek()) || isMinus(this.peek()))) {
+        sign = isPlus(this.peek()) ? 1 : -1;
+        this.pos++;
+      }
+    }
+    if (sign === 0) {
+      this.pos = save;
+      return null;
+    }
+    if (digits === 0) magnitude = 1;
+    if (magnitude === 0) this.fail(`Charge at character ${position}: write a neutral complex without a charge`, position);
+    return { charge: sign * magnitude, position };
+  }
+}
+
+interface InnerSphere {
+  metal: string;
+  metalPosition: number;
+  ligands: LigandInstance[];
+}
+
+function readMetal(scanner: FormulaScanner): { metal: string; position: number } {
+  const position = scanner.pos;
+  const first = scanner.peek() ?? '';
+  if (!isUpper(first)) {
+    if (first === '' || first === ']') scanner.fail(`Expected a metal symbol at character ${position}`, position);
+    scanner.fail(
+      `Expected the metal symbol at character ${position}, found '${first}': write the metal first, e.g. [Co(NH3)6]`,
+      position,
+    );
+  }
+  const second = scanner.peek(1);
+  const two = isLower(second) ? `${first}${second}` : null;
+  let symbol: string | null = null;
+  if (two !== null && isElementSymbol(two)) symbol = two;
+  else if (isElementSymbol(first)) symbol = first;
+  if (symbol === null) {
+    scanner.fail(`Unknown element '${two ?? first}' at character ${position} (symbols are case-sensitive)`, position);
+  }
+  if (!isMetalSymbol(symbol)) {
+    scanner.fail(
+      `'${symbol}' at character ${position} is not a metal this tool knows: write the metal first inside [ ], e.g. [Co(NH3)6]3+`,
+      position,
+    );
+  }
+  scanner.pos += symbol.length;
+  const countPosition = scanner.pos;
+  if (digitValue(scanner.peek()) >= 0) {
+    const count = scanner.readCount('the metal');
+    if (count > 1) {
+      scanner.fail(
+        `Polynuclear species (${count} ${symbol} atoms, character ${countPosition}) are not supported: classify one metal centre at a time`,
+        countPosition,
+      );
+    }
+  }
+  return { metal: symbol, position };
+}
+
+function unknownLigandMessage(token: string, position: number): string {
+  const suggestion = suggestLigandSpelling(token);
+  const hint = suggestion !== undefined && suggestion !== token ? ` (names are case-sensitive: did you mean '${suggestion}'?)` : '';
+  return `Unknown ligand '${token}' at character ${position}${hint}`;
+}
+
+function addLigand(ligands: LigandInstance[], ligand: LigandDefinition, written: string, count: number, position: number): void {
+  for (const existing of ligands) {
+    if (existing.ligand === ligand) {
+      existing.count += count;
+      return;
+    }
+  }
+  ligands.push({ ligand, written, count, position });
+}
+
+/** Reads metal and ligands up to `stop` (']' inside brackets; charge/end for a bare entity). */
+function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPosition: number): InnerSphere {
+  scanner.skipSpaces();
+  const { metal, position: metalPosition } = readMetal(scanner);
+  const ligands: LigandInstance[] = [];
+  for (;;) {
+    scanner.skipSpaces();
+    const ch = scanner.peek();
+    const position = scanner.pos;
+    if (ch === undefined) {
+      if (bracketed) scanner.fail(`Unclosed '[' opened at character ${openPosition}`, openPosition);
+      break;
+    }
+    if (bracketed && ch === ']') break;
+    if (ch === '[') scanner.fail(`Nested '[' at character ${position} is not supported`, position);
+    if (ch === ')') scanner.fail(`Unmatched ')' at character ${position}`, position);
+    if (ch === '(') {
+      const close = scanner.closingParenthesis(position);
+      if (close < 0) scanner.fail(`Unclosed '(' opened at character ${position}`, position);
+      const token = scanner.input.slice(position + 1, close).trim();
+      if (token.length === 0) scanner.fail(`Empty parentheses at character ${position}`, position);
+      const ligand = findLigand(token);
+      if (!ligand) scanner.fail(unknownLigandMessage(token, position + 1), position + 1);
+      scanner.pos = close + 1;
+      const count = scanner.readCount(`'${token}'`);
+      addLigand(ligands, ligand, token, count, position + 1);
+      continue;
+    }
+    if (!bracketed && (isPlus(ch) || isMinus(ch) || ch === '^' || HYDRATE_SEPARATORS.has(ch) || SUPERSCRIPT_DIGITS.has(ch))) break;
+    const match = scanner.matchLongest(ligandTable, ligandLengths);
+    if (match === null) {
+      let end = position + 1;
+      while (end < scanner.end && (isLower(scanner.input[end]) || digitValue(scanner.input[end]) >= 0)) end++;
+      const token = scanner.input.slice(position, end);
+      if (digitValue(ch) >= 0 && !bracketed) break;
+      if (digitValue(ch) >= 0) {
+        scanner.fail(`Unexpected number '${token}' at character ${position}: a count must follow a ligand`, position);
+      }
+      scanner.fail(unknownLigandMessage(token, position), position);
+    }
+    scanner.pos += match.token.length;
+    const count = scanner.readCount(`'${match.token}'`);
+    addLigand(ligands, match.value, match.token, count, position);
+  }
+  if (ligands.length === 0) {
+    scanner.fail(
+      `No ligands on ${metal} (character ${metalPosition}): free metal ions are not classified; write the aqua ion, e.g. [${metal}(H2O)6]`,
+      metalPosition,
+    );
+  }
+  return { metal, metalPosition, ligands };
+}
+
+/** Reads a run of counter-ions (cations before '[' or anions after ']'). */
+function readIons(
+  scanner: FormulaScanner,
+  table: ReadonlyMap<string, CounterIonDefinition>,
+  kind: 'cation' | 'anion',
+  stopAt: (ch: string) => boolean,
+): IonPart[] {
+  const ions: IonPart[] = [];
+  for (;;) {
+    scanner.skipSpaces();
+    const ch = scanner.peek();
+    if (ch === undefined || stopAt(ch)) return ions;
+    const position = scanner.pos;
+    let definition: CounterIonDefinition | undefined;
+    let token: string;
+    if (ch === '(') {
+      const close = scanner.closingParenthesis(position);
+      if (close < 0) scanner.fail(`Unclosed '(' opened at character ${position}`, position);
+      token = scanner.input.slice(position + 1, close).trim();
+      definition = table.get(token);
+      if (!definition) scanner.fail(`Unknown ${kind} '${token}' at character ${position + 1}`, position + 1);
+      scanner.pos = close + 1;
+    } else {
+      const match = scanner.matchLongest(table, table === cationByFormula ? cationLengths : anionLengths);
+      if (match === null) {
+        let end = position + 1;
+        while (end < scanner.end && (isLower(scanner.input[end]) || digitValue(scanner.input[end]) >= 0)) end++;
+        token = scanner.input.slice(position, end);
+        if (kind === 'anion' && ch === '[') {
+          scanner.fail(
+            `A second complex ion at character ${position} is not supported: classify each complex ion on its own`,
+            position,
+          );
+        }
+        scanner.fail(`Unknown ${kind} '${token}' at character ${position}`, position);
+      }
+      token = match.token;
+      definition = match.value;
+      scanner.pos += token.length;
+    }
+    const count = scanner.readCount(`'${token}'`);
+    ions.push({ formula: definition.formula, charge: definition.charge, count, composition: definition.composition });
+  }
+}
+
+function readHydrate(scanner: FormulaScanner): number {
+  scanner.skipSpaces();
+  const separator = scanner.peek();
+  if (separator === undefined || !HYDRATE_SEPARATORS.has(separator)) return 0;
+  const separatorPosition = scanner.pos;
+  scanner.pos++;
+  scanner.skipSpaces();
+  const countPosition = scanner.pos;
+  if (scanner.peek() === 'x' || scanner.peek() === 'n') {
+    scanner.fail(`Give the number of waters of crystallisation at character ${countPosition} (e.g. ·6H2O), not '${scanner.peek()}'`, countPosition);
+  }
+  const count = scanner.readCount('water of crystallisation');
+  scanner.skipSpaces();
+  const waterPosition = scanner.pos;
+  if (scanner.input.startsWith('H2O', waterPosition) || scanner.input.startsWith('OH2', waterPosition)) {
+    scanner.pos += 3;
+    return count;
+  }
+  if (scanner.input.startsWith('H₂O', waterPosition)) {
+    scanner.pos += 3;
+    return count;
+  }
+  scanner.fail(
+    `Only water of crystallisation is understood after '${separator}' (character ${separatorPosition}), e.g. ·6H2O`,
+    waterPosition,
+  );
+}
+
+function sumIonCharge(ions: readonly IonPart[]): number {
+  let total = 0;
+  for (const ion of ions) total += ion.charge * ion.count;
+  return total;
+}
+
+/**
+ * Parses one coordination formula. Throws FormulaError (never anything else for string input).
+ */
+export function parseFormula(input: string): ParsedComplex {
+  if (typeof input !== 'string') throw new FormulaError('The formula must be text', String(input), 0);
+  if (input.length > MAX_FORMULA_LENGTH) {
+    throw new FormulaError(`Formula is too long (more than ${MAX_FORMULA_LENGTH} characters)`, input, MAX_FORMULA_LENGTH);
+  }
+  const scanner: FormulaScanner = new FormulaScanner(input);
+  if (scanner.atEnd()) scanner.fail('The formula is empty', 0);
+
+  const bracketIndex = input.indexOf('[');
+  let cations: IonPart[] = [];
+  let inner: InnerSphere;
+  let complexCount = 1;
+  let anions: IonPart[] = [];
+  let written: { charge: number; position: number } | null = null;
+  let anionPosition = -1;
+
+  if (bracketIndex < 0) {
+    // No brackets: accept a bare entity such as "Cr(H2O)6 3+"; reject a bare ion such as "Fe3+".
+    const start = scanner.pos;
+    if (input.indexOf(']') >= 0) scanner.fail(`Unmatched ']' at character ${input.indexOf(']')}`, input.indexOf(']'));
+    const first = scanner.peek();
+    const two = isLower(scanner.peek(1)) ? `${first}${scanner.peek(1)}` : '';
+    const symbol = two !== '' && isMetalSymbol(two) ? two : first !== undefined && isMetalSymbol(first) ? first : null;
+    if (symbol === null) {
+      scanner.fail(
+        "No coordination entity found: put the metal and its ligands in square brackets, e.g. [Co(NH3)6]Cl3",
+        start,
+      );
+    }
+    const after = start + symbol.length;
+    const next = input[after];
+    const bareIon = next === undefined || isSpace(next) || isPlus(next) || isMinus(next) || digitValue(next) >= 0 || next === '^' || SUPERSCRIPT_DIGITS.has(next);
+    if (bareIon && next !== undefined && digitValue(next) >= 0) {
+      // "Fe3+" (charge) versus "Fe2Cl6"-type; both are outside what we classify.
+      scanner.fail(
+        `A bare metal ion '${input.slice(start).trim()}' has no ligands: write the complex in brackets, e.g. [${symbol}(H2O)6]${input.slice(after).trim()}`,
+        start,
+      );
+    }
+    if (bareIon) {
+      scanner.fail(
+        `A bare metal '${symbol}' has no ligands: write the complex in brackets, e.g. [${symbol}(H2O)6]`,
+        start,
+      );
+    }
+    inner = readInnerSphere(scanner, false, start);
+    written = scanner.readCharge();
+  } else {
+    cations = readIons(scanner, cationByFormula, 'cation', (ch) => ch === '[');
+    const openPosition = scanner.pos;
+    scanner.pos++; // '['
+    inner = readInnerSphere(scanner, true, openPosition);
+    scanner.pos++; // ']'
+    // A count straight after ']' is a number of complex ions unless a sign follows (then a charge).
+    const afterBracket = scanner.pos;
+    written = scanner.readCharge();
+    if (written === null && digitValue(scanner.peek()) >= 0) {
+      complexCount = scanner.readCount('the complex ion');
+    }
+    if (written === null) {
+      scanner.skipSpaces();
+      anionPosition = scanner.pos;
+      anions = readIons(
+        scanner,
+        anionByFormula,
+        'anion',
+        (ch) => HYDRATE_SEPARATORS.has(ch) || isPlus(ch) || isMinus(ch) || ch === '^' || digitValue(ch) >= 0 || SUPERSCRIPT_DIGITS.has(ch),
+      );
+      if (anions.length === 0) anionPosition = -1;
+      // A charge written after the counter-ions is checked against them below.
+      written = scanner.readCharge();
+    }
+    if (complexCount > 1 && anions.length === 0 && cations.length === 0) {
+      scanner.fail(`A count after ']' (character ${afterBracket}) needs counter-ions to balance it`, afterBracket);
+    }
+  }
+
+  const hydrateWaters = readHydrate(scanner);
+  scanner.skipSpaces();
+  if (!scanner.atEnd()) {
+    const position = scanner.pos;
+    const ch = scanner.peek();
+    if (ch === '[') {
+      scanner.fail(`A second complex ion at character ${position} is not supported: classify each complex ion on its own`, position);
+    }
+    scanner.fail(`Unexpected '${ch}' at character ${position}`, position);
+  }
+
+  const counterIons = [...cations, ...anions];
+  const counterCharge = sumIonCharge(counterIons);
+  let complexCharge: number;
+  if (counterIons.length > 0) {
+    if (counterCharge % complexCount !== 0 || (counterCharge === 0 && cations.length > 0 && anions.length > 0)) {
+      const position = anionPosition >= 0 ? anionPosition : 0;
+      scanner.fail(`Counter-ions (total charge ${formatCharge(counterCharge)}) cannot balance ${complexCount} complex ions`, position);
+    }
+    complexCharge = -counterCharge / complexCount;
+    if (written !== null && written.charge !== complexCharge) {
+      scanner.fail(
+        `Charge ${formatCharge(written.charge)} does not balance the counter-ions: they need the complex to be ${formatCharge(complexCharge)}`,
+        written.position,
+      );
+    }
+    if (cations.length > 0 && complexCharge >= 0) {
+      scanner.fail(`The cations before '[' need an anionic complex, but the charges give ${formatCharge(complexCharge)}`, 0);
+    }
+  } else {
+    complexCharge = written?.charge ?? 0;
+  }
+
+  let ligandCharge = 0;
+  for (const instance of inner.ligands) ligandCharge += instance.ligand.charge * instance.count;
+  const oxidationState = complexCharge - ligandCharge;
+  const element = metalElement(inner.metal);
+  const configuration = element ? electronConfiguration(element, oxidationState) : null;
+  if (!configuration) {
+    const position = written?.position ?? inner.metalPosition;
+    scanner.fail(
+      `Oxidation state ${oxidationState > 0 ? '+' : ''}${oxidationState} for ${inner.metal} is impossible (complex charge ${formatCharge(complexCharge)}, ligand charges ${ligandCharge}): check the charge and the ligands`,
+      position,
+    );
+  }
+
+  const composition: Record<string, number> = {};
+  const complexComposition: Record<string, number> = { [inner.metal]: 1 };
+  for (const instance of inner.ligands) addComposition(complexComposition, instance.ligand.composition, instance.count);
+  addComposition(composition, complexComposition, complexCount);
+  for (const ion of counterIons) addComposition(composition, ion.composition, ion.count);
+  if (hydrateWaters > 0) addComposition(composition, { H: 2, O: 1 }, hydrateWaters);
+
+  return {
+    input,
+    metal: inner.metal,
+    ligands: inner.ligands,
+    complexCharge,
+    complexCount,
+    counterIons,
+    hydrateWaters,
+    composition,
+    oxidationState,
+    writtenCharge: written?.charge ?? null,
+  };
+}

@@ -1,0 +1,152 @@
+import { z } from 'zod';
+
+/**
+ * Contracts of the public engine endpoints (POST /api/classify, /api/route, /api/marcus), shared by
+ * the server (request parsing), the app's forms and the API client (response parsing).
+ */
+export const MAX_FORMULA_LENGTH = 300;
+export const MAX_BATCH_FORMULAS = 1000;
+export const MAX_BATCH_PAIRS = 200;
+
+export const geometrySchema = z.enum([
+  'linear',
+  'trigonal-planar',
+  'tetrahedral',
+  'square-planar',
+  'trigonal-bipyramidal',
+  'square-pyramidal',
+  'octahedral',
+  'pentagonal-bipyramidal',
+  'square-antiprismatic',
+  'tricapped-trigonal-prismatic',
+  'other',
+]);
+
+const formulaSchema = z
+  .string({ error: 'must be a formula written as text, e.g. "[Co(NH3)6]3+"' })
+  .trim()
+  .min(1, 'is empty: write a formula such as [Co(NH3)6]3+')
+  .max(MAX_FORMULA_LENGTH, `is longer than ${MAX_FORMULA_LENGTH} characters`);
+
+/** °C; the engine's Eyring scaling is meaningful for liquid solutions only. */
+const temperatureCSchema = z
+  .number({ error: 'must be a number of degrees Celsius' })
+  .min(-80, 'must be at least −80 °C')
+  .max(250, 'must be at most 250 °C');
+
+export const classifyRequestSchema = z
+  .object({
+    formula: formulaSchema.optional(),
+    formulas: z
+      .array(formulaSchema)
+      .min(1, 'must hold at least one formula')
+      .max(MAX_BATCH_FORMULAS, `may hold at most ${MAX_BATCH_FORMULAS} formulas`)
+      .optional(),
+    temperatureC: temperatureCSchema.optional(),
+    geometry: geometrySchema.optional(),
+  })
+  .strict()
+  .refine((body) => (body.formula === undefined) !== (body.formulas === undefined), {
+    message: 'give either "formula" or "formulas" (not both)',
+    path: ['formula'],
+  });
+export type ClassifyRequest = z.infer<typeof classifyRequestSchema>;
+
+/** The stable fields of a classification (PRODUCT.md); the rest passes through unchanged. */
+export const classificationSchema = z
+  .object({
+    formula: z.string(),
+    metal: z.string(),
+    oxidationState: z.number(),
+    dElectrons: z.number(),
+    spinState: z.enum(['high', 'low']).nullable(),
+    geometry: geometrySchema,
+    verdict: z.enum(['labile', 'intermediate', 'inert']),
+    reasons: z.array(z.string()),
+    cautions: z.array(z.string()),
+  })
+  .passthrough();
+
+export const formulaErrorItemSchema = z.object({
+  formula: z.string(),
+  error: z.string(),
+  position: z.number().nullable(),
+});
+
+export const routeRequestSchema = z
+  .object({
+    oxidant: formulaSchema.optional(),
+    reductant: formulaSchema.optional(),
+    pairs: z
+      .array(z.object({ oxidant: formulaSchema, reductant: formulaSchema }).strict())
+      .min(1, 'must hold at least one pair')
+      .max(MAX_BATCH_PAIRS, `may hold at most ${MAX_BATCH_PAIRS} pairs`)
+      .optional(),
+    temperatureC: temperatureCSchema.optional(),
+    keepGivenRoles: z.boolean().optional(),
+  })
+  .strict()
+  .superRefine((body, ctx) => {
+    if (body.pairs !== undefined) {
+      if (body.oxidant !== undefined || body.reductant !== undefined) {
+        ctx.addIssue({ code: 'custom', message: 'give either "pairs" or "oxidant" and "reductant"', path: ['pairs'] });
+      }
+      return;
+    }
+    if (body.oxidant === undefined) ctx.addIssue({ code: 'custom', message: 'is required', path: ['oxidant'] });
+    if (body.reductant === undefined) ctx.addIssue({ code: 'custom', message: 'is required', path: ['reductant'] });
+  });
+export type RouteRequest = z.infer<typeof routeRequestSchema>;
+
+export const routeResultSchema = z
+  .object({
+    route: z.enum(['inner-sphere', 'outer-sphere', 'either']),
+    reasons: z.array(z.string()),
+    bridgingCandidates: z.array(
+      z.object({ ligand: z.string(), donorAtom: z.string(), score: z.number() }).passthrough(),
+    ),
+    oxidant: classificationSchema,
+    reductant: classificationSchema,
+    expectedProducts: z.array(z.string()),
+    cautions: z.array(z.string()),
+  })
+  .passthrough();
+
+const rateConstantSchema = z
+  .number({ error: 'must be a number in M⁻¹ s⁻¹' })
+  .positive('must be greater than zero (M⁻¹ s⁻¹)')
+  .max(1e13, 'is above any bimolecular rate constant in solution (max 1e13 M⁻¹ s⁻¹)');
+
+export const marcusRequestSchema = z
+  .object({
+    k11: rateConstantSchema,
+    k22: rateConstantSchema,
+    dE: z.number({ error: 'must be a potential difference in volts' }).min(-5).max(5).optional(),
+    K12: z.number({ error: 'must be a number' }).positive('must be greater than zero').optional(),
+    T: temperatureCSchema.optional(),
+    observed: rateConstantSchema.optional(),
+    ionicStrength: z.number().min(0).max(5).optional(),
+    charges: z
+      .object({
+        oxidant: z.number().int(),
+        reductant: z.number().int(),
+        oxidantReduced: z.number().int(),
+        reductantOxidised: z.number().int(),
+      })
+      .strict()
+      .optional(),
+  })
+  .strict()
+  .refine((body) => (body.dE === undefined) !== (body.K12 === undefined), {
+    message: 'give either dE (volts) or K12 (not both)',
+    path: ['dE'],
+  })
+  .refine((body) => (body.ionicStrength === undefined) === (body.charges === undefined), {
+    message: 'work terms need both ionicStrength and charges',
+    path: ['ionicStrength'],
+  });
+export type MarcusRequest = z.infer<typeof marcusRequestSchema>;
+
+export const marcusResultSchema = z
+  .object({ k12: z.number(), f12: z.number(), K12: z.number() })
+  .passthrough();

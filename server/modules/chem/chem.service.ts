@@ -1,0 +1,79 @@
+import {
+  classifyFormula,
+  classifyMany,
+} from '@/lib/chem/classify';
+import { marcusCrossRate, MarcusInputError, type MarcusInput } from '@/lib/chem/marcus';
+import { predictRoute, predictRoutes, RouteInputError } from '@/lib/chem/route';
+import { FormulaError } from '@/lib/chem/types';
+import type { ClassifyRequest, MarcusRequest, RouteRequest } from '@/lib/schemas/chem';
+import { AppError } from '@/server/http/errors';
+
+/** Thin adapters from the engine's typed errors to the API's error shape. */
+export function classify(request: ClassifyRequest) {
+  const options = { temperatureC: request.temperatureC, geometry: request.geometry };
+  if (request.formulas) return classifyMany(request.formulas, options);
+  const formula = request.formula ?? '';
+  try {
+    return classifyFormula(formula, options);
+  } catch (error) {
+    if (error instanceof FormulaError) {
+      throw new AppError(
+        'VALIDATION_FAILED',
+        `The formula cannot be read: ${error.message}`,
+        { formula: `${error.message} (character ${error.position + 1})` },
+        { position: error.position },
+      );
+    }
+    throw error;
+  }
+}
+
+export function route(request: RouteRequest) {
+  const options = { temperatureC: request.temperatureC, keepGivenRoles: request.keepGivenRoles };
+  if (request.pairs) {
+    return predictRoutes(request.pairs.map((pair) => [pair.oxidant, pair.reductant] as const), options);
+  }
+  try {
+    return predictRoute(request.oxidant ?? '', request.reductant ?? '', options);
+  } catch (error) {
+    if (error instanceof RouteInputError) {
+      throw new AppError(
+        'VALIDATION_FAILED',
+        `The ${error.field} cannot be read: ${error.message}`,
+        { [error.field]: error.message },
+        { position: error.position },
+      );
+    }
+    throw error;
+  }
+}
+
+/** Maps the CLI/API field names (dE, T, observed) onto the engine's. */
+export function toMarcusInput(request: MarcusRequest): MarcusInput {
+  return {
+    k11: request.k11,
+    k22: request.k22,
+    deltaEV: request.dE,
+    K12: request.K12,
+    temperatureC: request.T,
+    observedK12: request.observed,
+    workTerms:
+      request.ionicStrength !== undefined && request.charges
+        ? { ionicStrengthM: request.ionicStrength, charges: request.charges }
+        : undefined,
+  };
+}
+
+const marcusFieldNames: Record<string, string> = { deltaEV: 'dE', temperatureC: 'T', observedK12: 'observed' };
+
+export function marcus(request: MarcusRequest) {
+  try {
+    return marcusCrossRate(toMarcusInput(request));
+  } catch (error) {
+    if (error instanceof MarcusInputError) {
+      const field = marcusFieldNames[error.field] ?? error.field;
+      throw new AppError('VALIDATION_FAILED', `The Marcus input is not valid: ${error.message}`, { [field]: error.message });
+    }
+    throw error;
+  }
+}
