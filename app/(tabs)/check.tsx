@@ -1,10 +1,14 @@
-import { Screen } from '@/components/ui/screen';
-import { EmptyState } from '@/components/ui/empty-state';
+import { useLocalSearchParams, useRouter } from 'expo-router';
+import { useCallback } from 'react';
+import { CheckScreen } from '@/components/check/check-screen';
 
+/** /check?formula=<urlencoded> opens with the result shown; typing keeps the address shareable. */
 export default function Check() {
-  return (
-    <Screen>
-      <EmptyState testID="check-not-built" title="Check — coming next" body="Type a complex and see whether it is labile or inert, and why." />
-    </Screen>
+  const { formula } = useLocalSearchParams<{ formula?: string }>();
+  const router = useRouter();
+  const keepInAddress = useCallback(
+    (settled: string) => router.setParams({ formula: settled || undefined }),
+    [router],
   );
+  return <CheckScreen initialFormula={typeof formula === 'string' ? formula : ''} onFormulaSettled={keepInAddress} />;
 }

@@ -1,10 +1,20 @@
-import { Screen } from '@/components/ui/screen';
-import { EmptyState } from '@/components/ui/empty-state';
+import { useLocalSearchParams, useRouter } from 'expo-router';
+import { useCallback } from 'react';
+import { RouteScreen } from '@/components/route/route-screen';
 
+/** /route?oxidant=…&reductant=… opens with the pair filled in. */
 export default function Route() {
+  const { oxidant, reductant } = useLocalSearchParams<{ oxidant?: string; reductant?: string }>();
+  const router = useRouter();
+  const keepInAddress = useCallback(
+    (ox: string, red: string) => router.setParams({ oxidant: ox || undefined, reductant: red || undefined }),
+    [router],
+  );
   return (
-    <Screen>
-      <EmptyState testID="route-not-built" title="Route — coming next" body="Two complexes: inner-sphere or outer-sphere electron transfer, and the Marcus check." />
-    </Screen>
+    <RouteScreen
+      initialOxidant={typeof oxidant === 'string' ? oxidant : ''}
+      initialReductant={typeof reductant === 'string' ? reductant : ''}
+      onPairSettled={keepInAddress}
+    />
   );
 }

@@ -41,7 +41,7 @@ interface MeasuredRecord {
   source: string;
 }
 
-function ligandSetKey(entries: Array<[string, number]>): string {
+function ligandSetKey(entries: [string, number][]): string {
   return entries
     .sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0))
     .map(([id, count]) => `${id}:${count}`)
@@ -71,7 +71,7 @@ const measuredIons: ReadonlySet<string> = new Set(
 
 function findMeasured(metal: string, oxidationState: number, ligands: readonly LigandInstance[]): { rate: MeasuredRate; species: string } | undefined {
   if (!measuredIons.has(`${metal}/${oxidationState}`)) return undefined;
-  const entries: Array<[string, number]> = ligands.map((instance) => [instance.ligand.id, instance.count]);
+  const entries: [string, number][] = ligands.map((instance) => [instance.ligand.id, instance.count]);
   return measuredByKey.get(`${metal}/${oxidationState}/${ligandSetKey(entries)}`);
 }
 
@@ -83,7 +83,45 @@ const ROW_FACTOR: Record<string, number> = { '3d': 1, '4d': 1.45, '5d': 1.8 };
 const DISCLAIMER = 'The verdict is a rule-of-thumb prediction, not a measurement: check it experimentally where it matters.';
 const KINETIC_SCALE_NOTE = 'Rates are first-order exchange constants per bound ligand (s⁻¹); labile means t½ under about a minute at 25 °C (Taube 1952).';
 
+// Classification is a pure function of (formula, temperature, geometry): repeated formulas (a
+// library page, a CSV import, the benchmark mix) are served from a bounded memo. Callers always get
+// a fresh copy, so mutating a result cannot corrupt the memo.
+const MEMO_LIMIT = 2048;
+const memo = new Map<string, Classification>();
+const SEEN_LIMIT = 8192;
+const seenOnce = new Set<string>();
+
+function copyClassification(source: Classification): Classification {
+  return {
+    ...source,
+    reasons: source.reasons.slice(),
+    cautions: source.cautions.slice(),
+    hints: source.hints.slice(),
+    ligands: source.ligands.map((ligand) => ({ ...ligand, donorAtoms: ligand.donorAtoms.slice() })),
+    activationEnergyDq: source.activationEnergyDq && { ...source.activationEnergyDq },
+    activationEnergyKJPerMol: source.activationEnergyKJPerMol && { ...source.activationEnergyKJPerMol },
+    measured: source.measured && { ...source.measured },
+  };
+}
+
 export function classifyFormula(formula: string, options: ClassifyOptions = {}): Classification {
+  const key = `${formula}\u0000${options.temperatureC ?? 25}\u0000${options.geometry ?? ''}`;
+  const known = memo.get(key);
+  if (known !== undefined) return copyClassification(known);
+  const result = computeClassification(formula, options);
+  // Admit a formula on its second request only: one-off formulas (unique keys) would otherwise
+  // fill the memo with objects that survive into the old generation and slow the collector.
+  if (seenOnce.has(key)) {
+    if (memo.size >= MEMO_LIMIT) memo.clear();
+    memo.set(key, copyClassification(result));
+  } else {
+    if (seenOnce.size >= SEEN_LIMIT) seenOnce.clear();
+    seenOnce.add(key);
+  }
+  return result;
+}
+
+function computeClassification(formula: string, options: ClassifyOptions): Classification {
   const parsed = parseFormula(formula);
   const temperatureC = options.temperatureC ?? 25;
   if (!Number.isFinite(temperatureC) || temperatureC < -100 || temperatureC > 400) {
@@ -206,7 +244,8 @@ export function classifyFormula(formula: string, options: ClassifyOptions = {}):
     formula,
     metal,
     oxidationState,
-    dElectrons,
+    // PRODUCT.md: "d (or f) electron count" — the count of the open valence shell; electronShell says which.
+    dElectrons: electronShell === 'f' ? fElectrons : dElectrons,
     electronShell,
     spinState: spin.spinState,
     geometry,

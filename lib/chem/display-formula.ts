@@ -52,7 +52,7 @@ function splitCharge(formula: string): SplitCharge {
   return { body: formula, charge: '' };
 }
 
-/** Counts after an element, a lowercase abbreviation, ")" or "]" become subscripts; leading coefficients stay. */
+/** Counts after an element, a lowercase abbreviation, ")" or "]" become subscripts; leading coefficients stay as typed. */
 function subscriptCounts(body: string): string {
   let out = '';
   let previous = '';
@@ -63,8 +63,10 @@ function subscriptCounts(body: string): string {
       let end = index;
       while (end < body.length && /\d/.test(body[end] ?? '')) end++;
       const digits = body.slice(index, end);
+      // Hapticity/denticity/bridging numbers after η, κ, μ are superscripts (η⁵-Cp), IUPAC usage.
+      const isBondingNumber = /[ηκμ]/.test(previous);
       const isCount = /[A-Za-z)\]]/.test(previous);
-      out += isCount ? mapDigits(digits, SUBSCRIPT_DIGITS) : digits;
+      out += isBondingNumber ? mapDigits(digits, SUPERSCRIPT_DIGITS) : isCount ? mapDigits(digits, SUBSCRIPT_DIGITS) : digits;
       previous = digits.slice(-1);
       index = end;
       continue;

@@ -100,7 +100,7 @@ function computeActivationEnergyDq(dElectrons: number, spin: SpinState): Activat
 }
 
 // Built once: d0–d10 × high/low spin (the values never change).
-const ACTIVATION_TABLE: ReadonlyArray<Readonly<Record<SpinState, ActivationEnergyDq>>> = Array.from({ length: 11 }, (_, d) => ({
+const ACTIVATION_TABLE: readonly Readonly<Record<SpinState, ActivationEnergyDq>>[] = Array.from({ length: 11 }, (_, d) => ({
   high: Object.freeze(computeActivationEnergyDq(d, 'high')),
   low: Object.freeze(computeActivationEnergyDq(d, 'low')),
 }));

@@ -123,7 +123,7 @@ export interface Classification {
   formula: string;
   metal: string;
   oxidationState: number;
-  /** d-electron count of the ion (0 for lanthanides/actinides, whose count is in fElectrons; 10 for d10 main-group ions such as Ga³⁺). */
+  /** d-electron count of the ion; for lanthanides/actinides the f count (electronShell 'f', also in fElectrons); 10 for d10 main-group ions such as Ga³⁺. */
   dElectrons: number;
   electronShell: 'd' | 'f' | 'sp';
   spinState: SpinState | null;

@@ -150,3 +150,22 @@ export type MarcusRequest = z.infer<typeof marcusRequestSchema>;
 export const marcusResultSchema = z
   .object({ k12: z.number(), f12: z.number(), K12: z.number() })
   .passthrough();
+
+/** Text field → number, with a message a chemist understands; '' stays "not given". */
+const numberText = (what: string) =>
+  z
+    .string()
+    .trim()
+    .refine((text) => text === '' || Number.isFinite(Number(text)), `${what} must be a number (e.g. 4.2e3)`);
+
+/** The Marcus panel's form: strings as typed, checked field by field, then read as numbers. */
+export const marcusFormSchema = z
+  .object({
+    k11: numberText('k11').refine((t) => t !== '' && Number(t) > 0 && Number(t) < 1e11, 'k11 must be > 0 and below 1e11 M⁻¹ s⁻¹'),
+    k22: numberText('k22').refine((t) => t !== '' && Number(t) > 0 && Number(t) < 1e11, 'k22 must be > 0 and below 1e11 M⁻¹ s⁻¹'),
+    dE: numberText('ΔE°').refine((t) => t !== '' && Math.abs(Number(t)) <= 5, 'ΔE° must be between −5 and 5 V'),
+    T: numberText('T').refine((t) => t === '' || (Number(t) >= -50 && Number(t) <= 150), 'T must be between −50 and 150 °C'),
+    observed: numberText('observed k12').refine((t) => t === '' || Number(t) > 0, 'observed k12 must be > 0'),
+  })
+  .strict();
+export type MarcusForm = z.infer<typeof marcusFormSchema>;

@@ -7,7 +7,7 @@ import { classifyFormula } from '@/lib/chem/classify';
  * ±1.1 log units of every numeric value below (a least-squares calibration on these ions; most are
  * within ±0.7). Measured values decide the verdict.
  */
-const aquaIons: Array<[string, number, string]> = [
+const aquaIons: [string, number, string][] = [
   ['[Ti(H2O)6]3+', 1.8e5, 'Hugi, Helm & Merbach, Inorg. Chem. 1987'],
   ['[V(H2O)6]2+', 87, 'Ducommun, Newman & Merbach 1980'],
   ['[V(H2O)6]3+', 500, 'Hugi, Helm & Merbach 1985'],

@@ -4,7 +4,7 @@ import { activationEnergyDq, octahedralLfseDq } from '@/lib/chem/ligand-field';
 const CFSE = 'cfse_cfae.json octahedral_CFSE (Dq, pairing energy not included)';
 describe('octahedral LFSE, exact', () => {
   // [d, high-spin Dq, low-spin Dq] — source: CFSE
-  const table: Array<[number, number, number]> = [
+  const table: [number, number, number][] = [
     [0, 0, 0], [1, -4, -4], [2, -8, -8], [3, -12, -12], [4, -6, -16], [5, 0, -20],
     [6, -4, -24], [7, -8, -18], [8, -12, -12], [9, -6, -6], [10, 0, 0],
   ];
@@ -17,7 +17,7 @@ describe('octahedral LFSE, exact', () => {
 const BP = 'F. Basolo & R. G. Pearson, Mechanisms of Inorganic Reactions, 2nd ed., 1967 (as in cfse_cfae.json, from memory)';
 describe('crystal-field activation energies within ±0.02 Dq', () => {
   // [d, spin, square pyramid, pentagonal bipyramid] — source: BP
-  const table: Array<[number, 'high' | 'low', number, number]> = [
+  const table: [number, 'high' | 'low', number, number][] = [
     [0, 'low', 0, 0], [1, 'low', -0.57, -1.28], [2, 'low', -1.14, -2.56], [3, 'low', 2.0, 4.26],
     [4, 'low', 1.43, 2.98], [5, 'low', 0.86, 1.7], [6, 'low', 4.0, 8.52], [7, 'low', -1.14, 5.34],
     [8, 'low', 2.0, 4.26], [9, 'low', -3.14, 1.07], [10, 'low', 0, 0],

@@ -1,0 +1,149 @@
+import { StyleSheet, View } from 'react-native';
+import { nearestReferenceRates } from '@/lib/chem/reference-rates';
+import type { Classification } from '@/lib/chem/types';
+import { BulletList } from '@/components/ui/bullet-list';
+import { Card } from '@/components/ui/card';
+import { CautionBox } from '@/components/ui/caution-box';
+import { duration, powerOfTen, roman, scientific } from '@/components/ui/format';
+import { FormulaText } from '@/components/ui/formula-text';
+import { KeyValueGrid } from '@/components/ui/key-value';
+import { AppText } from '@/components/ui/text';
+import { colors, spacing } from '@/components/ui/theme';
+import { VerdictBadge } from '@/components/ui/verdict-badge';
+import { LabilityScale } from './lability-scale';
+import { OrbitalDiagram } from './orbital-diagram';
+
+const CONFIDENCE_WORDS = { high: 'high confidence', medium: 'medium confidence', low: 'low confidence' } as const;
+
+export function VerdictCard({ result }: { result: Classification }) {
+  const measured = result.decidedBy === 'measured';
+  return (
+    <Card title="Verdict" testID="verdict-card">
+      <View style={styles.verdictHead}>
+        <VerdictBadge verdict={result.verdict} size="md" />
+        <AppText tone="soft" testID="verdict-confidence">
+          {measured ? 'decided by a published measurement' : `predicted · ${CONFIDENCE_WORDS[result.confidence]}`}
+        </AppText>
+      </View>
+      <AppText variant="lead" testID="verdict-rate">
+        k ≈ {powerOfTen(result.logKPerSecond)} s⁻¹ · t½ ≈ {duration(result.halfLifeSeconds)} at {result.temperatureC} °C
+      </AppText>
+      {result.measured ? (
+        <View style={styles.measured} testID="measured-value">
+          <AppText variant="label" tone="accent">Measured</AppText>
+          <AppText>
+            k = {scientific(result.measured.kPerSecond)} s⁻¹ at {(result.measured.temperatureK - 273.15).toFixed(0)} °C
+            ({result.measured.kind.replace('-', ' ')})
+          </AppText>
+          <AppText variant="caption" tone="muted">{result.measured.source}</AppText>
+        </View>
+      ) : null}
+      <BulletList items={result.reasons} testID="verdict-reasons" />
+    </Card>
+  );
+}
+
+export function IdentityCard({ result }: { result: Classification }) {
+  const shell = result.electronShell === 'f' ? 'f' : 'd';
+  return (
+    <Card title="Identity" testID="identity-card">
+      <FormulaText formula={result.formula} variant="title" />
+      <KeyValueGrid
+        items={[
+          { label: 'Metal', value: `${result.metal}(${roman(result.oxidationState)})` },
+          { label: `${shell} electrons`, value: `${shell}${result.dElectrons}` },
+          { label: 'Spin', value: result.spinState ? `${result.spinState}${result.nearSpinCrossover ? ' (near crossover)' : ''}` : '—' },
+          { label: 'Coordination no.', value: String(result.coordinationNumber) },
+          { label: 'Geometry', value: `${result.geometry}${result.geometrySource === 'given' ? ' (chosen)' : ''}` },
+          { label: 'Molar mass', value: `${result.molarMassGPerMol.toFixed(2)} g/mol` },
+        ]}
+      />
+      <AppText variant="caption" tone="muted">
+        Ligands: {result.ligands.map((l) => `${l.count} × ${l.name} (${l.donorAtoms.join(', ')})`).join(' · ')}
+      </AppText>
+      {result.nearSpinCrossover ? (
+        <AppText tone="danger" testID="spin-crossover-flag">
+          Near spin crossover — check the spin state experimentally (magnetic moment, Mössbauer, low-temperature spectra).
+        </AppText>
+      ) : null}
+    </Card>
+  );
+}
+
+export function LigandFieldCard({ result }: { result: Classification }) {
+  const items: { label: string; value: string }[] = [];
+  if (result.deltaOcm !== null) items.push({ label: 'Δo (estimate)', value: `${Math.round(result.deltaOcm).toLocaleString('en')} cm⁻¹` });
+  if (result.lfseDq !== null) items.push({ label: 'LFSE', value: `${result.lfseDq} Dq` });
+  if (result.lfseKJPerMol !== null) items.push({ label: 'LFSE', value: `${result.lfseKJPerMol.toFixed(0)} kJ/mol` });
+  if (result.activationEnergyDq) {
+    items.push({ label: 'CFAE dissociative', value: `${result.activationEnergyDq.dissociative.toFixed(2)} Dq` });
+    items.push({ label: 'CFAE associative', value: `${result.activationEnergyDq.associative.toFixed(2)} Dq` });
+  }
+  if (result.activationEnergyKJPerMol) {
+    items.push({ label: 'CFAE dissoc.', value: `${result.activationEnergyKJPerMol.dissociative.toFixed(0)} kJ/mol` });
+  }
+  if (result.jahnTeller) items.push({ label: 'Jahn–Teller', value: result.jahnTeller });
+  return (
+    <Card title="Ligand field" testID="ligand-field-card">
+      {result.electronShell === 'd' ? (
+        <OrbitalDiagram
+          dElectrons={result.dElectrons}
+          geometry={result.geometry}
+          spinState={result.spinState}
+          deltaOcm={result.deltaOcm}
+        />
+      ) : (
+        <AppText tone="soft">
+          {result.electronShell === 'f'
+            ? 'f-block ion: the 4f/5f electrons are shielded, the ligand field is tiny and does not govern exchange.'
+            : 'Main-group ion: no partly filled d shell, so no ligand-field term.'}
+        </AppText>
+      )}
+      {items.length > 0 ? <KeyValueGrid items={items} /> : null}
+      <AppText variant="caption" tone="muted">
+        Δo from Jørgensen’s f·g; crystal-field activation energies (CFAE) for square-pyramidal (dissociative) and
+        pentagonal-bipyramidal (associative) transition states, after Basolo & Pearson.
+      </AppText>
+    </Card>
+  );
+}
+
+export function ScaleCard({ result }: { result: Classification }) {
+  const neighbours = nearestReferenceRates(result.logKPerSecond, 4, result.formula).map((rate) => ({
+    label: rate.species,
+    logK: rate.logKPerSecond,
+    measured: true,
+  }));
+  return (
+    <Card title="Lability scale" testID="scale-card">
+      <LabilityScale logK={result.logKPerSecond} verdict={result.verdict} label={result.formula} neighbours={neighbours} />
+      <AppText variant="caption" tone="muted">
+        First-order exchange constant per bound ligand at {result.temperatureC} °C, among published water-exchange
+        constants (Helm & Merbach, Chem. Rev. 2005). The line marks a one-minute half-life (Taube’s criterion).
+      </AppText>
+    </Card>
+  );
+}
+
+export function HintsCard({ result }: { result: Classification }) {
+  if (result.hints.length === 0) return null;
+  return (
+    <Card title="Getting it to react" testID="hints-card">
+      <BulletList items={result.hints} />
+    </Card>
+  );
+}
+
+export function CautionsCard({ result }: { result: Classification }) {
+  return <CautionBox cautions={result.cautions} testID="cautions" />;
+}
+
+const styles = StyleSheet.create({
+  verdictHead: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, flexWrap: 'wrap' },
+  measured: {
+    borderLeftWidth: 3,
+    borderLeftColor: colors.accent,
+    paddingLeft: spacing.md,
+    gap: 2,
+  },
+});
