@@ -22,6 +22,11 @@ module.exports = defineConfig([
     },
   },
   {
+    // fast-check's documented style is `fc.property(fc.integer(), …)`.
+    files: ['tests/**/*.{ts,tsx}'],
+    rules: { 'import/no-named-as-default-member': 'off' },
+  },
+  {
     files: ['app/**/*.{ts,tsx}', 'components/**/*.{ts,tsx}', 'lib/api/**/*.ts', 'lib/schemas/**/*.ts'],
     rules: { 'no-restricted-imports': ['error', { patterns: [noServer] }] },
   },

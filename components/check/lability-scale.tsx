@@ -31,15 +31,17 @@ const DEFAULT_BAND: [number, number] = [ONE_MINUTE_LOG_K - INTERMEDIATE_HALF_WID
 
 // Vertical layout (px). The width follows the container, so text keeps its size at any width.
 const DEFAULT_WIDTH = 340;
-const HEIGHT = 134;
+const HEIGHT = 136;
 const PAD_X = 26;
 const MARKER_LABEL_Y = 15;
 const ROW_ABOVE_Y = 36;
-const BAND_TOP = 44;
-const AXIS_Y = 70;
-const ROW_BELOW_Y = 85;
-const DECADE_LABEL_Y = 106;
-const MINUTE_LABEL_Y = 126;
+const BAND_TOP = 42;
+const AXIS_Y = 72;
+/** Neighbour dots sit low in the band, clear of the band captions. */
+const NEIGHBOUR_DOT_Y = AXIS_Y - 13;
+const ROW_BELOW_Y = 87;
+const DECADE_LABEL_Y = 108;
+const MINUTE_LABEL_Y = 128;
 const LABEL_FONT = 11;
 const CHAR_W = LABEL_FONT * 0.58;
 const MAX_LABEL_CHARS = 16;
@@ -187,14 +189,15 @@ export function LabilityScale({ logK, verdict, label, neighbours = [], intermedi
         <Rect testID="band-inert" x={leftEnd} y={BAND_TOP} width={Math.max(0, bandLowX - leftEnd)} height={AXIS_Y - BAND_TOP} fill={verdictColors.inert.bg} />
         <Rect testID="band-intermediate" x={bandLowX} y={BAND_TOP} width={Math.max(0, bandHighX - bandLowX)} height={AXIS_Y - BAND_TOP} fill={verdictColors.intermediate.bg} />
         <Rect testID="band-labile" x={bandHighX} y={BAND_TOP} width={Math.max(0, rightEnd - bandHighX)} height={AXIS_Y - BAND_TOP} fill={verdictColors.labile.bg} />
-        <SvgText x={leftEnd + 5} y={BAND_TOP + 11} fontSize={10} fontFamily={fonts.strong} fill={verdictColors.inert.fg}>inert</SvgText>
-        <SvgText x={rightEnd - 5} y={BAND_TOP + 11} fontSize={10} fontFamily={fonts.strong} fill={verdictColors.labile.fg} textAnchor="end">labile</SvgText>
+        <SvgText x={markerX < leftEnd + 40 ? markerX + 8 : leftEnd + 5} y={BAND_TOP + 10} fontSize={10} fontFamily={fonts.strong} fill={verdictColors.inert.fg}>inert</SvgText>
+        <SvgText x={markerX > rightEnd - 44 ? markerX - 8 : rightEnd - 5} y={BAND_TOP + 10} fontSize={10} fontFamily={fonts.strong} fill={verdictColors.labile.fg} textAnchor="end">labile</SvgText>
 
         {/* Axis with a tick per decade, labelled every second decade */}
         <Line x1={leftEnd} y1={AXIS_Y} x2={rightEnd} y2={AXIS_Y} stroke={colors.ink} strokeWidth={1.2} />
         {decades.map((exponent) => {
           const x = xOf(exponent);
-          const labelled = exponent % 2 === 0;
+          // Every second decade; every fourth on very narrow screens so labels never touch.
+          const labelled = exponent % (width < 320 ? 4 : 2) === 0;
           return (
             <G key={exponent}>
               <Line x1={x} y1={AXIS_Y} x2={x} y2={AXIS_Y + (labelled ? 6 : 3)} stroke={colors.ink} strokeWidth={1} />
@@ -206,16 +209,18 @@ export function LabilityScale({ logK, verdict, label, neighbours = [], intermedi
 
         {/* Taube's one-minute line */}
         <G testID="one-minute">
-          <Line testID="one-minute-line" x1={minuteX} y1={BAND_TOP - 4} x2={minuteX} y2={MINUTE_LABEL_Y - 11} stroke={colors.ink} strokeWidth={1.2} strokeDasharray="3 3" />
+          <Line testID="one-minute-line" x1={minuteX} y1={BAND_TOP - 4} x2={minuteX} y2={AXIS_Y + 8} stroke={colors.ink} strokeWidth={1.2} strokeDasharray="3 3" />
+          {/* resumes below the decade labels so it never crosses 10⁻² */}
+          <Line x1={minuteX} y1={DECADE_LABEL_Y + 4} x2={minuteX} y2={MINUTE_LABEL_Y - 11} stroke={colors.ink} strokeWidth={1.2} strokeDasharray="3 3" />
           <SvgText x={minuteLabelX} y={MINUTE_LABEL_Y} fontSize={LABEL_FONT} fontFamily={fonts.body} fill={colors.ink} textAnchor="middle">t½ = 1 min</SvgText>
         </G>
 
         {/* Neighbours: small ticks, filled dot when measured, open when predicted */}
         {placed.map((neighbour, index) => (
           <G key={`${neighbour.label}-${index}`} testID="lability-neighbour">
-            <Line x1={neighbour.x} y1={BAND_TOP + 8} x2={neighbour.x} y2={AXIS_Y} stroke={colors.inkSoft} strokeWidth={1} />
-            <Circle cx={neighbour.x} cy={BAND_TOP + 8} r={2.6} fill={neighbour.measured ? colors.inkSoft : colors.card} stroke={colors.inkSoft} strokeWidth={1} />
-            {neighbour.clamped ? <ClampArrow x={neighbour.x} side={neighbour.clamped} color={colors.inkSoft} y={BAND_TOP + 8} /> : null}
+            <Line x1={neighbour.x} y1={NEIGHBOUR_DOT_Y} x2={neighbour.x} y2={AXIS_Y} stroke={colors.inkSoft} strokeWidth={1} />
+            <Circle cx={neighbour.x} cy={NEIGHBOUR_DOT_Y} r={2.6} fill={neighbour.measured ? colors.inkSoft : colors.card} stroke={colors.inkSoft} strokeWidth={1} />
+            {neighbour.clamped ? <ClampArrow x={neighbour.x} side={neighbour.clamped} color={colors.inkSoft} y={NEIGHBOUR_DOT_Y} /> : null}
             {neighbour.row ? (
               <SvgText testID="lability-neighbour-label" x={neighbour.textX} y={neighbour.row === 'above' ? ROW_ABOVE_Y : ROW_BELOW_Y} fontSize={LABEL_FONT} fontFamily={fonts.body} fill={colors.inkSoft} textAnchor="middle">
                 {neighbour.text}

@@ -1,4 +1,5 @@
 import { StyleSheet, View } from 'react-native';
+import { toDisplayFormula } from '@/lib/chem/display-formula';
 import { nearestReferenceRates } from '@/lib/chem/reference-rates';
 import type { Classification } from '@/lib/chem/types';
 import { BulletList } from '@/components/ui/bullet-list';
@@ -110,13 +111,13 @@ export function LigandFieldCard({ result }: { result: Classification }) {
 
 export function ScaleCard({ result }: { result: Classification }) {
   const neighbours = nearestReferenceRates(result.logKPerSecond, 4, result.formula).map((rate) => ({
-    label: rate.species,
+    label: toDisplayFormula(rate.species),
     logK: rate.logKPerSecond,
     measured: true,
   }));
   return (
     <Card title="Lability scale" testID="scale-card">
-      <LabilityScale logK={result.logKPerSecond} verdict={result.verdict} label={result.formula} neighbours={neighbours} />
+      <LabilityScale logK={result.logKPerSecond} verdict={result.verdict} label={toDisplayFormula(result.formula)} neighbours={neighbours} />
       <AppText variant="caption" tone="muted">
         First-order exchange constant per bound ligand at {result.temperatureC} °C, among published water-exchange
         constants (Helm & Merbach, Chem. Rev. 2005). The line marks a one-minute half-life (Taube’s criterion).

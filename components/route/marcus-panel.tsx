@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useMemo } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useEffect } from 'react';
+import { Controller, useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, TextInput, View } from 'react-native';
 import { marcusCrossRate, MarcusInputError, type MarcusResult } from '@/lib/chem/marcus';
 import { marcusFormSchema, type MarcusForm } from '@/lib/schemas/chem';
@@ -38,7 +38,7 @@ function compute(values: MarcusForm): MarcusResult | string {
  * editable for any couple, with the predicted and observed k12 placed on one axis.
  */
 export function MarcusPanel({ prefill, sourceNotes }: { prefill: MarcusForm; sourceNotes: string[] }) {
-  const { control, reset, watch, formState } = useForm<MarcusForm>({
+  const { control, reset, formState } = useForm<MarcusForm>({
     resolver: zodResolver(marcusFormSchema),
     mode: 'onChange',
     defaultValues: prefill,
@@ -48,9 +48,9 @@ export function MarcusPanel({ prefill, sourceNotes }: { prefill: MarcusForm; sou
     reset(JSON.parse(prefillKey) as MarcusForm);
   }, [prefillKey, reset]);
 
-  const values = watch();
-  const parsed = marcusFormSchema.safeParse(values);
-  const result = useMemo(() => (parsed.success ? compute(parsed.data) : null), [parsed.success, JSON.stringify(values)]); // eslint-disable-line react-hooks/exhaustive-deps
+  // The cross relation is a few arithmetic steps: recompute on every keystroke.
+  const parsed = marcusFormSchema.safeParse(useWatch({ control }));
+  const result = parsed.success ? compute(parsed.data) : null;
 
   return (
     <Card title="Marcus cross relation" testID="marcus-panel">

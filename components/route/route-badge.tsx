@@ -2,7 +2,7 @@ import { StyleSheet, View } from 'react-native';
 import Svg, { Circle, Line, Path } from 'react-native-svg';
 import type { RouteKind } from '@/lib/chem/route-types';
 import { AppText } from '@/components/ui/text';
-import { colors, fonts, radius, spacing } from '@/components/ui/theme';
+import { fonts, radius, spacing } from '@/components/ui/theme';
 
 const LOOK: Record<RouteKind, { fg: string; bg: string; word: string }> = {
   'inner-sphere': { fg: '#1F6B61', bg: '#DCEBE6', word: 'inner-sphere' },

@@ -16,7 +16,7 @@ export function powerOfTen(log10: number, decimals = 1): string {
 export function scientific(value: number, digits = 2): string {
   if (value === 0 || !Number.isFinite(value)) return String(value);
   const exponent = Math.floor(Math.log10(Math.abs(value)));
-  if (exponent >= -2 && exponent <= 4) return value.toPrecision(digits + 1).replace(/\.?0+$/, '');
+  if (exponent >= -2 && exponent <= 4) return String(Number(value.toPrecision(digits + 1)));
   const mantissa = value / 10 ** exponent;
   return `${mantissa.toFixed(digits - 1)} × 10${superscript(String(exponent))}`;
 }

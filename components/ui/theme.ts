@@ -23,7 +23,7 @@ export const colors = {
   railActive: '#2C5A53',
 } as const;
 
-/** Verdicts and review statuses: colour + glyph + word (see components/ui/verdict-glyph.tsx). */
+/** Verdicts and review statuses: colour + glyph + word (see components/ui/verdict-badge.tsx). */
 export const verdictColors = {
   labile: { fg: '#B04A30', bg: '#F8E3DB' },
   intermediate: { fg: '#8A6A0E', bg: '#F5EBC9' },
