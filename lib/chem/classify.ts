@@ -4,7 +4,7 @@
 import measuredRateData from '@/data/measured-rates.json';
 import { cautionsFor } from './cautions';
 import { molarMassGPerMol } from './elements';
-import { coordinationNumber, predictGeometry, valenceElectronCount } from './electron-count';
+import { coordinationNumber, predictGeometry, valenceElectronCount, settleFlexibleDenticity } from './electron-count';
 import { parseFormula, formatCharge } from './formula-parser';
 import {
   KJ_PER_MOL_PER_CM,
@@ -128,7 +128,8 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     throw new FormulaError(`Temperature ${temperatureC} °C is outside the range this tool handles (−100 to 400 °C)`, formula, 0);
   }
   const temperatureK = temperatureC + 273.15;
-  const { metal, ligands, oxidationState } = parsed;
+  const { metal, oxidationState } = parsed;
+  const ligands = settleFlexibleDenticity(parsed.ligands);
   const element = metalElement(metal);
   const configuration = element ? electronConfiguration(element, oxidationState) : null;
   if (!element || !configuration) {

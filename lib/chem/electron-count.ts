@@ -11,6 +11,31 @@ export function coordinationNumber(ligands: readonly LigandInstance[]): number {
   return total;
 }
 
+/**
+ * Carbonate, nitrate, acetate and sulfate bind through one O or chelate through two. Written in a
+ * formula they look the same, so one of them is counted as chelating when that completes an
+ * otherwise 5- or 3-coordinate sphere to 6 or 4 (common practice: [Co(NH3)4(CO3)]⁺ is six-coordinate).
+ */
+export function settleFlexibleDenticity(ligands: readonly LigandInstance[]): readonly LigandInstance[] {
+  const sites = coordinationNumber(ligands);
+  if (sites !== 5 && sites !== 3) return ligands;
+  const index = ligands.findIndex((instance) => (instance.ligand.chelatingDenticity ?? 0) > instance.ligand.denticity);
+  const flexible = ligands[index];
+  if (!flexible) return ligands;
+  const chelating: LigandInstance = {
+    ...flexible,
+    count: 1,
+    ligand: {
+      ...flexible.ligand,
+      denticity: flexible.ligand.chelatingDenticity ?? 2,
+      donorAtoms: [flexible.ligand.donorAtoms[0] ?? 'O', flexible.ligand.donorAtoms[0] ?? 'O'],
+      name: flexible.ligand.name.replace(/\s*\(κO, monodentate\)|\s*\(monodentate\)/, '') + ' (κ²O,O′, chelating)',
+    },
+  };
+  const rest = flexible.count > 1 ? [{ ...flexible, count: flexible.count - 1 }] : [];
+  return [...ligands.slice(0, index), chelating, ...rest, ...ligands.slice(index + 1)];
+}
+
 /** Fraction of coordination sites held by ligands satisfying `test`. */
 export function siteFraction(
   ligands: readonly LigandInstance[],

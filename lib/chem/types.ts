@@ -54,6 +54,8 @@ export interface LigandDefinition {
   /** 'adjacent' (bridge through the donor atom) or 'remote' (through a far atom, e.g. pyrazine N4). */
   bridgeMode: 'adjacent' | 'remote' | null;
   softness: 'hard' | 'borderline' | 'soft';
+  /** For ambidentate O-donor anions (carbonate, nitrate, acetate, sulfate): denticity when chelating. */
+  chelatingDenticity?: number;
   hazards: string[];
   source: string;
   /** Position in the spectrochemical series (Shriver & Atkins; 0 = I⁻, weakest), null if not listed. */

@@ -83,3 +83,15 @@ describe('electron counting (common practice)', () => {
     expect(classifyFormula('Na2[Fe(CN)5NO]').reasons.join(' ')).toMatch(/NO⁺/);
   });
 });
+
+describe('ambidentate carbonate (common practice)', () => {
+  it('counts carbonate as chelating when it completes the octahedron, monodentate otherwise', () => {
+    // [Co(NH3)4(CO3)]+: chelating carbonate, six-coordinate Co(III) (common practice, textbook salt).
+    const chelated = classifyFormula('[Co(NH3)4(CO3)]NO3');
+    expect([chelated.coordinationNumber, chelated.geometry, chelated.verdict]).toEqual([6, 'octahedral', 'inert']);
+    // [Co(NH3)5(OCO2)]+: monodentate carbonate beside five ammines (common practice).
+    const monodentate = classifyFormula('[Co(NH3)5(CO3)]+');
+    expect(monodentate.coordinationNumber).toBe(6);
+    expect(monodentate.ligands.find((l) => l.id === 'CO3')?.donorAtoms).toEqual(['O']);
+  });
+});
