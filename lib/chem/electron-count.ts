@@ -79,10 +79,18 @@ export function predictGeometry(context: GeometryContext): Geometry {
     case 3:
       return 'trigonal-planar';
     case 4: {
+      // One tetradentate ligand (salen, cyclam, porphyrin-type) holds the metal in its plane.
+      if (ligands.length === 1 && ligands[0]?.ligand.denticity === 4 && ligands[0].count === 1) return 'square-planar';
       if (electronShell === 'd' && dElectrons === 8) {
         if (series === '4d' || series === '5d') return 'square-planar';
         if (siteFraction(ligands, (i) => STRONG_FIELD_IDS.has(i.ligand.id)) >= 0.5) return 'square-planar';
-        return 'tetrahedral';
+        // 3d d8 (Ni(II)): weak-field halide, O-donor and bulky phosphine sets go tetrahedral
+        // ([NiCl4]2−, [NiCl2(PPh3)2]); N-donor sets go square planar ([Ni(en)2]2+, [Ni(Hdmg)2]) (common practice).
+        const weakOrBulky = siteFraction(
+          ligands,
+          (i) => HALIDE_IDS.has(i.ligand.id) || i.ligand.id === 'PPh3' || i.ligand.donorAtoms.every((atom) => atom === 'O'),
+        );
+        return weakOrBulky >= 0.5 ? 'tetrahedral' : 'square-planar';
       }
       if (electronShell === 'd' && dElectrons === 9) {
         return siteFraction(ligands, (i) => HALIDE_IDS.has(i.ligand.id)) >= 0.5 ? 'tetrahedral' : 'square-planar';

@@ -4,7 +4,7 @@
  * what is wrong there. The oxidation state follows from the charge balance
  * (counter-ions + complex charge + ligand charges).
  */
-import { addComposition, isElementSymbol } from './elements';
+import { addCompositionToTotals, compositionFromTotals, isElementSymbol } from './elements';
 import { findLigand, ligandTable, ligandTokens, suggestLigandSpelling } from './ligands';
 import { electronConfiguration, isMetalSymbol, metalElement } from './metal-ions';
 import { FormulaError, type IonPart, type LigandDefinition, type LigandInstance, type ParsedFormula } from './types';
@@ -92,6 +92,7 @@ const anionLengths = lengthsByFirstChar(anionByFormula.keys());
 const ligandLengths = lengthsByFirstChar(ligandTokens());
 
 const MAX_FORMULA_LENGTH = 300;
+const WATER_COMPOSITION: Readonly<Record<string, number>> = { H: 2, O: 1 };
 const MAX_COUNT = 99;
 const HYDRATE_SEPARATORS = new Set(['·', '.', '*', '•', '⋅', '∙']);
 const SUPERSCRIPT_DIGITS: ReadonlyMap<string, number> = new Map(
@@ -451,6 +452,67 @@ function sumIonCharge(ions: readonly IonPart[]): number {
 /**
  * Parses one coordination formula. Throws FormulaError (never anything else for string input).
  */
+const ISOMER_DESCRIPTOR = /^(?:cis|trans|fac|mer|rac|[ΔΛδλ])-\s*/i;
+
+/**
+ * Salts written without brackets, e.g. KMnO4 or Na2WO4·2H2O: a counter-cation prefix followed by a
+ * d- or f-block metal. Returns where the coordination entity starts and ends, or null.
+ */
+function unbracketedSalt(input: string, from: number): { start: number; end: number } | null {
+  let pos = from;
+  let sawCation = false;
+  for (;;) {
+    let matched = '';
+    for (const length of cationLengths.get(input[pos] ?? '') ?? []) {
+      const token = input.slice(pos, pos + length);
+      if (cationByFormula.has(token) && token !== 'H') {
+        matched = token;
+        break;
+      }
+    }
+    if (!matched) break;
+    const afterToken = pos + matched.length;
+    let next = afterToken;
+    while (digitValue(input[next]) >= 0) next++;
+    // Stop when what follows the token is the metal itself (e.g. "Ag" in "Ag2O" is not a prefix).
+    const rest = input.slice(next);
+    const symbol = /^[A-Z][a-z]?/.exec(rest)?.[0];
+    if (!symbol) return null;
+    sawCation = true;
+    pos = next;
+    const element = metalElement(symbol);
+    if (element && element.series !== 'main') break;
+  }
+  if (!sawCation || pos >= input.length) return null;
+  const symbol2 = input.slice(pos, pos + 2);
+  const symbol1 = input.slice(pos, pos + 1);
+  const metal = metalElement(symbol2) ? symbol2 : metalElement(symbol1) ? symbol1 : null;
+  if (!metal || metalElement(metal)?.series === 'main') return null;
+  let end = input.length;
+  for (let index = pos; index < input.length; index++) {
+    if (HYDRATE_SEPARATORS.has(input[index] ?? '')) {
+      end = index;
+      break;
+    }
+  }
+  while (end > pos && isSpace(input[end - 1])) end--;
+  return { start: pos, end };
+}
+
+/** Parses "KMnO4" as "K[MnO4]", reporting positions in the formula as the user wrote it. */
+function parseUnbracketedSalt(input: string, salt: { start: number; end: number }): ParsedComplex {
+  const bracketed = `${input.slice(0, salt.start)}[${input.slice(salt.start, salt.end)}]${input.slice(salt.end)}`;
+  try {
+    return { ...parseFormula(bracketed), input };
+  } catch (error) {
+    if (!(error instanceof FormulaError)) throw error;
+    const toWritten = (position: number) =>
+      Math.max(0, Math.min(input.length, position - (position > salt.end + 1 ? 2 : position > salt.start ? 1 : 0)));
+    const message = error.message.replace(/character (\d+)/g, (_, n: string) => `character ${toWritten(Number(n))}`);
+    throw new FormulaError(message, input, toWritten(error.position));
+  }
+}
+
 export function parseFormula(input: string): ParsedComplex {
   if (typeof input !== 'string') throw new FormulaError('The formula must be text', String(input), 0);
   if (input.length > MAX_FORMULA_LENGTH) {
@@ -458,6 +520,14 @@ export function parseFormula(input: string): ParsedComplex {
   }
   const scanner: FormulaScanner = new FormulaScanner(input);
   if (scanner.atEnd()) scanner.fail('The formula is empty', 0);
+  // Isomer descriptors (cis-, trans-, fac-, mer-, Δ-, Λ-) name a stereoisomer; the engine's answer
+  // does not depend on them, so they are read and skipped.
+  const descriptor = ISOMER_DESCRIPTOR.exec(input.slice(scanner.pos));
+  if (descriptor) scanner.pos += descriptor[0].length;
+  if (input.indexOf('[') < 0) {
+    const salt = unbracketedSalt(input, scanner.pos);
+    if (salt) return parseUnbracketedSalt(input, salt);
+  }
 
   const bracketIndex = input.indexOf('[');
   let cations: IonPart[] = [];
@@ -554,7 +624,7 @@ export function parseFormula(input: string): ParsedComplex {
         written.position,
       );
     }
-    if (cations.length > 0 && complexCharge >= 0) {
+    if (cations.length > 0 && anions.length === 0 && complexCharge >= 0) {
       scanner.fail(`The cations before '[' need an anionic complex, but the charges give ${formatCharge(complexCharge)}`, 0);
     }
   } else {
@@ -574,12 +644,12 @@ export function parseFormula(input: string): ParsedComplex {
     );
   }
 
-  const composition: Record<string, number> = {};
-  const complexComposition: Record<string, number> = { [inner.metal]: 1 };
-  for (const instance of inner.ligands) addComposition(complexComposition, instance.ligand.composition, instance.count);
-  addComposition(composition, complexComposition, complexCount);
-  for (const ion of counterIons) addComposition(composition, ion.composition, ion.count);
-  if (hydrateWaters > 0) addComposition(composition, { H: 2, O: 1 }, hydrateWaters);
+  // Complex ion(s) first (metal, then ligands), then counter-ions, then water: the key order of the record.
+  const totals = new Map<string, number>([[inner.metal, complexCount]]);
+  for (const instance of inner.ligands) addCompositionToTotals(totals, instance.ligand.composition, instance.count * complexCount);
+  for (const ion of counterIons) addCompositionToTotals(totals, ion.composition, ion.count);
+  if (hydrateWaters > 0) addCompositionToTotals(totals, WATER_COMPOSITION, hydrateWaters);
+  const composition = compositionFromTotals(totals);
 
   return {
     input,

@@ -133,3 +133,31 @@ describe('parseFormula: property tests', () => {
     );
   });
 });
+
+describe('formulas as chemists also write them (common practice)', () => {
+  it('skips isomer descriptors', () => {
+    expect(parseFormula('cis-[PtCl2(NH3)2]').oxidationState).toBe(2);
+    expect(parseFormula('trans-[Co(en)2Cl2]Cl').oxidationState).toBe(3);
+    expect(parseFormula('fac-[Co(NH3)3(NO2)3]').complexCharge).toBe(0);
+    expect(parseFormula('Δ-[Co(en)3]3+').metal).toBe('Co');
+  });
+
+  it('reads double salts with cations before and anions after the complex (Mohr’s salt)', () => {
+    const mohr = parseFormula('(NH4)2[Fe(H2O)6](SO4)2');
+    expect([mohr.metal, mohr.oxidationState, mohr.complexCharge]).toEqual(['Fe', 2, 2]);
+  });
+
+  it('reads salts written without brackets, with positions in the formula as written', () => {
+    const permanganate = parseFormula('KMnO4');
+    expect([permanganate.metal, permanganate.oxidationState, permanganate.complexCharge]).toEqual(['Mn', 7, -1]);
+    expect(parseFormula('Na2WO4·2H2O')).toMatchObject({ metal: 'W', oxidationState: 6, hydrateWaters: 2 });
+    let caught: unknown;
+    try {
+      parseFormula('KMnO4)');
+    } catch (error) {
+      caught = error;
+    }
+    expect(caught).toBeInstanceOf(FormulaError);
+    expect((caught as FormulaError).position).toBe(5);
+  });
+});
