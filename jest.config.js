@@ -31,6 +31,16 @@ module.exports = {
       globalSetup: '<rootDir>/tests/setup/server-global-setup.ts',
     },
     {
+      // `npm run test:reliability`: fuzzing, hostile input, load and faults (minutes, not seconds).
+      displayName: 'reliability',
+      testEnvironment: 'node',
+      testMatch: ['<rootDir>/tests/reliability/**/*.test.ts'],
+      transform: nodeTransform,
+      [esmAllowed[0]]: esmAllowed[1],
+      moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
+      globalSetup: '<rootDir>/tests/setup/server-global-setup.ts',
+    },
+    {
       displayName: 'components',
       preset: 'jest-expo',
       testMatch: ['<rootDir>/tests/components/**/*.test.tsx'],
