@@ -1,0 +1,50 @@
+import assert from 'node:assert/strict';
+import { after, before, describe, it } from 'node:test';
+import type { Browser } from 'playwright-core';
+import { baseUrl, collectPageErrors, horizontalOverflowPx, launchBrowser, screenshot, viewports, type ViewportName } from './browser';
+
+let browser: Browser;
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
+
+for (const size of Object.keys(viewports) as ViewportName[]) {
+  describe(`the Check screen at ${size} size`, () => {
+    it('opens a deep link with the verdict, reasons, diagram and scale shown', async () => {
+      const page = await browser.newPage({ viewport: viewports[size] });
+      const errors = collectPageErrors(page);
+      await page.goto(`${baseUrl()}/check?formula=${encodeURIComponent('[Co(NH3)5Cl]Cl2')}`);
+      await page.getByTestId('check-result').waitFor();
+      // Pentaamminechloridocobalt(III): d6 low spin, inert (common practice; Taube 1952).
+      assert.match(await page.getByTestId('verdict-card').innerText(), /inert/i);
+      assert.match(await page.getByTestId('identity-card').innerText(), /Co\(III\)[\s\S]*d6/);
+      assert.ok(await page.getByTestId('cautions').isVisible(), 'cobalt caution shown');
+      assert.ok((await page.getByTestId('ligand-field-card').locator('svg').count()) > 0, 'orbital diagram drawn');
+      assert.ok((await horizontalOverflowPx(page)) <= 0, 'no horizontal scrolling');
+      await screenshot(page, `check-deep-link-${size}`);
+      assert.deepEqual(errors, []);
+      await page.close();
+    });
+
+    it('classifies as you type and shows where a formula is wrong', async () => {
+      const page = await browser.newPage({ viewport: viewports[size] });
+      await page.goto(`${baseUrl()}/check`);
+      await page.getByTestId('check-empty').waitFor();
+      const input = page.getByTestId('formula-input');
+      await input.fill('[Cu(H2O)6]2+');
+      await page.getByTestId('check-result').waitFor();
+      // Hexaaquacopper(II): water exchange ~1e9 s⁻¹, labile (Helm & Merbach 2005).
+      assert.match(await page.getByTestId('verdict-card').innerText(), /labile/i);
+      await page.waitForURL(/formula=/);
+
+      await input.fill('[Cu(H2O)6]2+)');
+      await page.getByTestId('formula-input-problem').waitFor();
+      assert.match(await page.getByTestId('formula-input-problem').innerText(), /character \d+/);
+      await screenshot(page, `check-error-${size}`);
+      await page.close();
+    });
+  });
+}
