@@ -42,7 +42,7 @@ const OSMIUM_VIII = withDeferral('Os(VIII) (OsO4-type) is highly toxic and volat
 const MANGANESE_VII = withDeferral('Permanganate is a strong oxidiser; keep away from organic material.');
 
 /** Cautions in a fixed order: anion, ligand hazards, oxidation-state hazards, metal hazards. */
-export function cautionsFor(parsed: ParsedFormula, oxidationState: number): string[] {
+export function cautionsFor(parsed: Pick<ParsedFormula, 'metal' | 'ligands' | 'counterIons'>, oxidationState: number): string[] {
   const cautions: string[] = [];
   let organicLigands = false;
   for (const instance of parsed.ligands) {

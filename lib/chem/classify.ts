@@ -3,9 +3,8 @@
  */
 import measuredRateData from '@/data/measured-rates.json';
 import { cautionsFor } from './cautions';
-import { molarMassGPerMol } from './elements';
 import { coordinationNumber, predictGeometry, valenceElectronCount, settleFlexibleDenticity } from './electron-count';
-import { parseFormula, formatCharge } from './formula-parser';
+import { parseFormulaWithMolarMass, formatCharge } from './formula-parser';
 import {
   KJ_PER_MOL_PER_CM,
   activationEnergyDq,
@@ -65,12 +64,19 @@ const measuredByKey: ReadonlyMap<string, { rate: MeasuredRate; species: string }
   ]),
 );
 
-const measuredIons: ReadonlySet<string> = new Set(
-  (measuredRateData.rates as MeasuredRecord[]).map((record) => `${record.metal}/${record.oxidationState}`),
-);
+// metal → oxidation states with a measured rate: most formulas are ruled out without building a key.
+const measuredStatesByMetal: ReadonlyMap<string, ReadonlySet<number>> = (() => {
+  const byMetal = new Map<string, Set<number>>();
+  for (const record of measuredRateData.rates as MeasuredRecord[]) {
+    const states = byMetal.get(record.metal) ?? new Set<number>();
+    states.add(record.oxidationState);
+    byMetal.set(record.metal, states);
+  }
+  return byMetal;
+})();
 
 function findMeasured(metal: string, oxidationState: number, ligands: readonly LigandInstance[]): { rate: MeasuredRate; species: string } | undefined {
-  if (!measuredIons.has(`${metal}/${oxidationState}`)) return undefined;
+  if (measuredStatesByMetal.get(metal)?.has(oxidationState) !== true) return undefined;
   const entries: [string, number][] = ligands.map((instance) => [instance.ligand.id, instance.count]);
   return measuredByKey.get(`${metal}/${oxidationState}/${ligandSetKey(entries)}`);
 }
@@ -87,9 +93,45 @@ const KINETIC_SCALE_NOTE = 'Rates are first-order exchange constants per bound l
 // library page, a CSV import, the benchmark mix) are served from a bounded memo. Callers always get
 // a fresh copy, so mutating a result cannot corrupt the memo.
 const MEMO_LIMIT = 2048;
-const memo = new Map<string, Classification>();
+/** Default options (25 °C, predicted geometry): keyed by the formula itself, no key string to build. */
+const memoByFormula = new Map<string, Classification>();
+/** Other options: keyed by formula, temperature and geometry. */
+const memoWithOptions = new Map<string, Classification>();
+
+// Admission: a formula enters the memo on its second request only, so one-off formulas (unique
+// keys) do not fill it with objects that survive into the old generation and slow the collector.
+// "Seen once" is a bit set over a hash of the key rather than a set of strings: it keeps no string
+// alive. A hash collision only admits a formula one request early, which changes no result.
+const SEEN_BITS = 1 << 16;
 const SEEN_LIMIT = 8192;
-const seenOnce = new Set<string>();
+const seenOnceBits = new Uint32Array(SEEN_BITS / 32);
+let seenOnceCount = 0;
+
+/** FNV-1a over the UTF-16 code units, folded to SEEN_BITS. */
+function seenSlot(key: string): number {
+  let hash = 0x811c9dc5;
+  for (let index = 0; index < key.length; index++) {
+    hash ^= key.charCodeAt(index);
+    hash = Math.imul(hash, 0x01000193);
+  }
+  return (hash >>> 0) & (SEEN_BITS - 1);
+}
+
+/** True when the key was marked before; marks it otherwise. */
+function markSeen(key: string): boolean {
+  const slot = seenSlot(key);
+  const word = slot >>> 5;
+  const bit = 1 << (slot & 31);
+  const current = seenOnceBits[word] ?? 0;
+  if ((current & bit) !== 0) return true;
+  if (seenOnceCount >= SEEN_LIMIT) {
+    seenOnceBits.fill(0);
+    seenOnceCount = 0;
+  }
+  seenOnceBits[word] = (seenOnceBits[word] ?? 0) | bit;
+  seenOnceCount++;
+  return false;
+}
 
 function copyClassification(source: Classification): Classification {
   return {
@@ -105,24 +147,21 @@ function copyClassification(source: Classification): Classification {
 }
 
 export function classifyFormula(formula: string, options: ClassifyOptions = {}): Classification {
-  const key = `${formula}\u0000${options.temperatureC ?? 25}\u0000${options.geometry ?? ''}`;
+  const defaultOptions = (options.temperatureC === undefined || options.temperatureC === 25) && !options.geometry;
+  const memo = defaultOptions ? memoByFormula : memoWithOptions;
+  const key = defaultOptions ? formula : `${formula}\u0000${options.temperatureC ?? 25}\u0000${options.geometry ?? ''}`;
   const known = memo.get(key);
   if (known !== undefined) return copyClassification(known);
   const result = computeClassification(formula, options);
-  // Admit a formula on its second request only: one-off formulas (unique keys) would otherwise
-  // fill the memo with objects that survive into the old generation and slow the collector.
-  if (seenOnce.has(key)) {
+  if (markSeen(key)) {
     if (memo.size >= MEMO_LIMIT) memo.clear();
     memo.set(key, copyClassification(result));
-  } else {
-    if (seenOnce.size >= SEEN_LIMIT) seenOnce.clear();
-    seenOnce.add(key);
   }
   return result;
 }
 
 function computeClassification(formula: string, options: ClassifyOptions): Classification {
-  const parsed = parseFormula(formula);
+  const parsed = parseFormulaWithMolarMass(formula);
   const temperatureC = options.temperatureC ?? 25;
   if (!Number.isFinite(temperatureC) || temperatureC < -100 || temperatureC > 400) {
     throw new FormulaError(`Temperature ${temperatureC} °C is outside the range this tool handles (−100 to 400 °C)`, formula, 0);
@@ -256,7 +295,7 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     cautions: cautionsFor(parsed, oxidationState),
     coordinationNumber: cn,
     complexCharge: parsed.complexCharge,
-    molarMassGPerMol: Math.round(molarMassGPerMol(parsed.composition) * 1000) / 1000,
+    molarMassGPerMol: Math.round(parsed.molarMassGPerMol * 1000) / 1000,
     ligands: ligands.map((instance) => ({
       id: instance.ligand.id,
       name: instance.ligand.name,

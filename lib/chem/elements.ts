@@ -56,6 +56,20 @@ export function addComposition(
   }
 }
 
+// Each catalogue composition ({C:2, H:8, N:2}) as a list of [symbol, count], made once per object:
+// iterating a short array is much cheaper than for-in over objects of many different shapes.
+const entriesByComposition = new WeakMap<Readonly<Record<string, number>>, readonly (readonly [string, number])[]>();
+
+/** The composition's [symbol, count] pairs in key order (cached per composition object: do not mutate it afterwards). */
+export function compositionEntries(part: Readonly<Record<string, number>>): readonly (readonly [string, number])[] {
+  let entries = entriesByComposition.get(part);
+  if (entries === undefined) {
+    entries = Object.keys(part).map((symbol) => [symbol, part[symbol] ?? 0] as const);
+    entriesByComposition.set(part, entries);
+  }
+  return entries;
+}
+
 /** Hill-order formula string (C first, then H, then alphabetical), e.g. "C10H8CoN2". */
 export function hillFormula(composition: Readonly<Record<string, number>>): string {
   const symbols = Object.keys(composition).filter((symbol) => (composition[symbol] ?? 0) > 0);

@@ -4,7 +4,7 @@
  * what is wrong there. The oxidation state follows from the charge balance
  * (counter-ions + complex charge + ligand charges).
  */
-import { addCompositionToTotals, compositionFromTotals, isElementSymbol } from './elements';
+import { atomicWeight, compositionEntries, isElementSymbol } from './elements';
 import { findLigand, ligandTable, ligandTokens, suggestLigandSpelling } from './ligands';
 import { electronConfiguration, isMetalSymbol, metalElement } from './metal-ions';
 import { FormulaError, type IonPart, type LigandDefinition, type LigandInstance, type ParsedFormula } from './types';
@@ -93,6 +93,45 @@ const ligandLengths = lengthsByFirstChar(ligandTokens());
 
 const MAX_FORMULA_LENGTH = 300;
 const WATER_COMPOSITION: Readonly<Record<string, number>> = { H: 2, O: 1 };
+
+// Scratch space for the composition, reused by every parse (parsing is synchronous): symbols in
+// order of first appearance and their totals. A formula has only a handful of elements, so a
+// linear search beats a Map, and the record is built once at the end.
+const scratchSymbols: string[] = [];
+const scratchCounts: number[] = [];
+let scratchLength = 0;
+
+/** The scratch totals as a composition record (keys in order of first appearance). */
+function compositionFromScratch(): Record<string, number> {
+  const composition: Record<string, number> = {};
+  for (let index = 0; index < scratchLength; index++) composition[scratchSymbols[index] as string] = scratchCounts[index] ?? 0;
+  return composition;
+}
+
+/** Molar mass (g/mol) of the scratch totals: the same sum, in the same order, as molarMassGPerMol(composition). */
+function molarMassFromScratch(): number {
+  let total = 0;
+  for (let index = 0; index < scratchLength; index++) {
+    const count = scratchCounts[index] ?? 0;
+    if (count !== 0) total += atomicWeight(scratchSymbols[index] as string) * count;
+  }
+  return total;
+}
+
+function addToScratch(part: Readonly<Record<string, number>>, times: number): void {
+  const entries = compositionEntries(part);
+  for (let entry = 0; entry < entries.length; entry++) {
+    const [symbol, count] = entries[entry] as readonly [string, number];
+    let index = 0;
+    while (index < scratchLength && scratchSymbols[index] !== symbol) index++;
+    if (index === scratchLength) {
+      scratchSymbols[index] = symbol;
+      scratchCounts[index] = 0;
+      scratchLength++;
+    }
+    scratchCounts[index] = (scratchCounts[index] ?? 0) + count * times;
+  }
+}
 const MAX_COUNT = 99;
 const HYDRATE_SEPARATORS = new Set(['·', '.', '*', '•', '⋅', '∙']);
 const SUPERSCRIPT_DIGITS: ReadonlyMap<string, number> = new Map(
@@ -281,12 +320,16 @@ function readMetal(scanner: FormulaScanner): { metal: string; position: number }
   if (symbol === null) {
     scanner.fail(`Unknown element '${two ?? first}' at character ${position} (symbols are case-sensitive)`, position);
   }
-  if (!isMetalSymbol(symbol)) {
+  const element = metalElement(symbol);
+  if (element === undefined) {
     scanner.fail(
       `'${symbol}' at character ${position} is not a metal this tool knows: write the metal first inside [ ], e.g. [Co(NH3)6]3+`,
       position,
     );
   }
+  // The table's own string for the symbol: a string cut from the input would be hashed afresh
+  // every time it is used as a key (Map look-ups, the composition record) further on.
+  symbol = element.symbol;
   scanner.pos += symbol.length;
   const countPosition = scanner.pos;
   if (digitValue(scanner.peek()) >= 0) {
@@ -453,6 +496,7 @@ function sumIonCharge(ions: readonly IonPart[]): number {
  * Parses one coordination formula. Throws FormulaError (never anything else for string input).
  */
 const ISOMER_DESCRIPTOR = /^(?:cis|trans|fac|mer|rac|[ΔΛδλ])-\s*/i;
+const ISOMER_DESCRIPTOR_FIRST: ReadonlySet<string> = new Set([...'cCtTfFmMrRΔΛδλ']);
 
 /**
  * Salts written without brackets, e.g. KMnO4 or Na2WO4·2H2O: a counter-cation prefix followed by a
@@ -513,7 +557,48 @@ function parseUnbracketedSalt(input: string, salt: { start: number; end: number 
   }
 }
 
+/** A parse without the composition record (its totals are left in the scratch space). */
+type ParsedCore = Omit<ParsedComplex, 'composition'>;
+
+/** Parses one coordination formula. Throws FormulaError (never anything else for string input). */
 export function parseFormula(input: string): ParsedComplex {
+  const core = parseCore(input);
+  return {
+    input: core.input,
+    metal: core.metal,
+    ligands: core.ligands,
+    complexCharge: core.complexCharge,
+    complexCount: core.complexCount,
+    counterIons: core.counterIons,
+    hydrateWaters: core.hydrateWaters,
+    composition: compositionFromScratch(),
+    oxidationState: core.oxidationState,
+    writtenCharge: core.writtenCharge,
+  };
+}
+
+/**
+ * parseFormula for the classifier, which needs only the molar mass of the composition: it is
+ * summed straight from the parser's totals, without building the record (building records with
+ * ever-different element keys is the slowest part of a parse). Same errors as parseFormula.
+ */
+export function parseFormulaWithMolarMass(input: string): ParsedCore & { molarMassGPerMol: number } {
+  const core = parseCore(input);
+  return {
+    input: core.input,
+    metal: core.metal,
+    ligands: core.ligands,
+    complexCharge: core.complexCharge,
+    complexCount: core.complexCount,
+    counterIons: core.counterIons,
+    hydrateWaters: core.hydrateWaters,
+    oxidationState: core.oxidationState,
+    writtenCharge: core.writtenCharge,
+    molarMassGPerMol: molarMassFromScratch(),
+  };
+}
+
+function parseCore(input: string): ParsedCore {
   if (typeof input !== 'string') throw new FormulaError('The formula must be text', String(input), 0);
   if (input.length > MAX_FORMULA_LENGTH) {
     throw new FormulaError(`Formula is too long (more than ${MAX_FORMULA_LENGTH} characters)`, input, MAX_FORMULA_LENGTH);
@@ -522,7 +607,8 @@ export function parseFormula(input: string): ParsedComplex {
   if (scanner.atEnd()) scanner.fail('The formula is empty', 0);
   // Isomer descriptors (cis-, trans-, fac-, mer-, Δ-, Λ-) name a stereoisomer; the engine's answer
   // does not depend on them, so they are read and skipped.
-  const descriptor = ISOMER_DESCRIPTOR.exec(input.slice(scanner.pos));
+  // Only a formula starting with a descriptor's first letter is worth the regular expression.
+  const descriptor = ISOMER_DESCRIPTOR_FIRST.has(input[scanner.pos] ?? '') ? ISOMER_DESCRIPTOR.exec(input.slice(scanner.pos)) : null;
   if (descriptor) scanner.pos += descriptor[0].length;
   if (input.indexOf('[') < 0) {
     const salt = unbracketedSalt(input, scanner.pos);
@@ -609,7 +695,7 @@ export function parseFormula(input: string): ParsedComplex {
     scanner.fail(`Unexpected '${ch}' at character ${position}`, position);
   }
 
-  const counterIons = [...cations, ...anions];
+  const counterIons = anions.length === 0 ? cations : cations.length === 0 ? anions : cations.concat(anions);
   const counterCharge = sumIonCharge(counterIons);
   let complexCharge: number;
   if (counterIons.length > 0) {
@@ -645,11 +731,12 @@ export function parseFormula(input: string): ParsedComplex {
   }
 
   // Complex ion(s) first (metal, then ligands), then counter-ions, then water: the key order of the record.
-  const totals = new Map<string, number>([[inner.metal, complexCount]]);
-  for (const instance of inner.ligands) addCompositionToTotals(totals, instance.ligand.composition, instance.count * complexCount);
-  for (const ion of counterIons) addCompositionToTotals(totals, ion.composition, ion.count);
-  if (hydrateWaters > 0) addCompositionToTotals(totals, WATER_COMPOSITION, hydrateWaters);
-  const composition = compositionFromTotals(totals);
+  scratchSymbols[0] = inner.metal;
+  scratchCounts[0] = complexCount;
+  scratchLength = 1;
+  for (const instance of inner.ligands) addToScratch(instance.ligand.composition, instance.count * complexCount);
+  for (const ion of counterIons) addToScratch(ion.composition, ion.count);
+  if (hydrateWaters > 0) addToScratch(WATER_COMPOSITION, hydrateWaters);
 
   return {
     input,
@@ -659,7 +746,6 @@ export function parseFormula(input: string): ParsedComplex {
     complexCount,
     counterIons,
     hydrateWaters,
-    composition,
     oxidationState,
     writtenCharge: written?.charge ?? null,
   };

@@ -43,9 +43,16 @@ const metalIons: readonly MetalIon[] = metalIonData.ions;
 const elementBySymbol: ReadonlyMap<string, MetalElement> = new Map(
   metalElements.map((element) => [element.symbol, element]),
 );
-const ionByKey: ReadonlyMap<string, MetalIon> = new Map(
-  metalIons.map((ion) => [`${ion.element}/${ion.oxidationState}`, ion]),
-);
+// element → oxidation state → ion: looked up without building a "Co/3" key string per call.
+const ionsByElement: ReadonlyMap<string, ReadonlyMap<number, MetalIon>> = (() => {
+  const byElement = new Map<string, Map<number, MetalIon>>();
+  for (const ion of metalIons) {
+    const states = byElement.get(ion.element) ?? new Map<number, MetalIon>();
+    states.set(ion.oxidationState, ion);
+    byElement.set(ion.element, states);
+  }
+  return byElement;
+})();
 
 export function metalElement(symbol: string): MetalElement | undefined {
   return elementBySymbol.get(symbol);
@@ -56,7 +63,7 @@ export function isMetalSymbol(symbol: string): boolean {
 }
 
 export function metalIon(symbol: string, oxidationState: number): MetalIon | undefined {
-  return ionByKey.get(`${symbol}/${oxidationState}`);
+  return ionsByElement.get(symbol)?.get(oxidationState);
 }
 
 // Highest oxidation states known in compounds (Greenwood & Earnshaw, Chemistry of the Elements,
@@ -128,7 +135,7 @@ export function ionicRadiusPm(
   oxidationState: number,
   spinState: 'high' | 'low' | null,
 ): { radiusPm: number; estimated: boolean } {
-  const ion = ionByKey.get(`${element.symbol}/${oxidationState}`);
+  const ion = ionsByElement.get(element.symbol)?.get(oxidationState);
   if (ion) {
     const bySpin = spinState === 'low' ? ion.ionicRadiusLowSpinPm : ion.ionicRadiusHighSpinPm;
     const radius = bySpin ?? ion.ionicRadiusPm ?? ion.ionicRadiusHighSpinPm ?? ion.ionicRadiusLowSpinPm;

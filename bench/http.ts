@@ -1,0 +1,208 @@
+/**
+ * Section 2: HTTP. The bench server (bench/http-server.ts: the real createApp() plus two bench-only
+ * routes) runs in a child process; autocannon drives it from this process, all on 127.0.0.1.
+ * Endpoints are measured in interleaved rounds (ping, health, classify, batch, then again) so the
+ * machine's noise falls on all of them alike; each ratio is taken within a round, then the median.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import path from 'node:path';
+import autocannon from 'autocannon';
+import { distinctFormulas } from './formula-set';
+import { median } from './stats';
+
+export interface BenchServer {
+  baseUrl: string;
+  child: ChildProcess;
+  stop(): Promise<void>;
+}
+
+export async function startBenchServer(root: string, databaseUrl: string, webDir: string): Promise<BenchServer> {
+  const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'bench/http-server.ts')], {
+    cwd: root,
+    env: { ...process.env, DATABASE_URL: databaseUrl, WEB_DIR: webDir, NODE_ENV: 'production', LOG_REQUESTS: '0' },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let output = '';
+  const port = await new Promise<number>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`bench server did not start in 60 s:\n${output.slice(-2000)}`)), 60_000);
+    child.stdout?.on('data', (chunk: Buffer) => {
+      output += chunk.toString();
+      const match = /LISTENING (\d+)/.exec(output);
+      if (match) {
+        clearTimeout(timer);
+        resolve(Number(match[1]));
+      }
+    });
+    child.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
+    child.on('exit', (code) => {
+      clearTimeout(timer);
+      reject(new Error(`bench server exited (${code}):\n${output.slice(-2000)}`));
+    });
+  });
+  return {
+    baseUrl: `http://127.0.0.1:${port}`,
+    child,
+    async stop() {
+      if (child.exitCode !== null) return;
+      const exited = new Promise((resolve) => child.once('exit', resolve));
+      child.kill('SIGTERM');
+      await Promise.race([exited, new Promise((resolve) => setTimeout(resolve, 5000))]);
+      if (child.exitCode === null) child.kill('SIGKILL');
+    },
+  };
+}
+
+export interface EndpointFigures {
+  requestsPerSecond: number;
+  latencyP50Ms: number;
+  latencyP99Ms: number;
+  non2xx: number;
+  errors: number;
+}
+
+export interface HttpOptions {
+  connections: number[];
+  rounds: number;
+  secondsPerRun: number;
+}
+
+export const defaultHttpOptions: HttpOptions = { connections: [50, 200], rounds: 3, secondsPerRun: 3 };
+
+type EndpointName = 'ping' | 'health' | 'classify' | 'classifyBatch1000';
+
+interface Endpoint {
+  name: EndpointName;
+  spec: { method: 'GET' | 'POST'; path: string; bodies?: string[] };
+}
+
+function endpoints(): Endpoint[] {
+  // Rotate over distinct formulas so the engine's memo answers (almost) nothing.
+  const singles = distinctFormulas(20_000, 99).map((entry) => JSON.stringify({ formula: entry.formula }));
+  const batchFormulas = distinctFormulas(20_000, 123).map((entry) => entry.formula);
+  const batches: string[] = [];
+  for (let start = 0; start < batchFormulas.length; start += 1000) {
+    batches.push(JSON.stringify({ formulas: batchFormulas.slice(start, start + 1000) }));
+  }
+  return [
+    { name: 'ping', spec: { method: 'GET', path: '/bench/ping' } },
+    { name: 'health', spec: { method: 'GET', path: '/api/health' } },
+    { name: 'classify', spec: { method: 'POST', path: '/api/classify', bodies: singles } },
+    { name: 'classifyBatch1000', spec: { method: 'POST', path: '/api/classify', bodies: batches } },
+  ];
+}
+
+async function measure(baseUrl: string, endpoint: Endpoint, connections: number, seconds: number): Promise<EndpointFigures> {
+  const { method, path: urlPath, bodies } = endpoint.spec;
+  let next = 0;
+  const result = await autocannon({
+    url: `${baseUrl}${urlPath}`,
+    connections,
+    duration: seconds,
+    timeout: 30,
+    requests: [
+      {
+        method,
+        path: urlPath,
+        headers: bodies ? { 'content-type': 'application/json' } : {},
+        setupRequest: (request) => {
+          if (!bodies) return request;
+          const body = bodies[next % bodies.length] ?? '';
+          next++;
+          return { ...request, body };
+        },
+      },
+    ],
+  });
+  return {
+    requestsPerSecond: result.requests.total / result.duration,
+    latencyP50Ms: result.latency.p50,
+    latencyP99Ms: result.latency.p99,
+    non2xx: result.non2xx,
+    errors: result.errors,
+  };
+}
+
+/**
+ * Waits until the server has worked off the requests still queued from the last run (autocannon
+ * stops sending at the deadline, but a batch run leaves seconds of work behind): three quick
+ * pings in a row, or 60 s.
+ */
+export async function drain(baseUrl: string, quickMs = 25): Promise<number> {
+  const started = performance.now();
+  let quickInARow = 0;
+  while (quickInARow < 3 && performance.now() - started < 60_000) {
+    const sent = performance.now();
+    try {
+      await fetch(`${baseUrl}/bench/ping`);
+      quickInARow = performance.now() - sent < quickMs ? quickInARow + 1 : 0;
+    } catch {
+      quickInARow = 0;
+      await new Promise((resolve) => setTimeout(resolve, 100));
+    }
+  }
+  return performance.now() - started;
+}
+
+export interface HttpResult {
+  byConnections: Record<
+    string,
+    {
+      endpoints: Record<EndpointName, EndpointFigures & { requestsPerSecondRuns: number[] }>;
+      classifyVsPing: number;
+      classifyVsPingRuns: number[];
+      classifyVsHealth: number;
+      batchFormulasPerSecond: number;
+    }
+  >;
+}
+
+export async function runHttpBench(baseUrl: string, options: HttpOptions = defaultHttpOptions, log: (line: string) => void = () => {}): Promise<HttpResult> {
+  const list = endpoints();
+  // A short warm-up of every endpoint (JIT, connection pools, the database pool).
+  for (const endpoint of list) {
+    await measure(baseUrl, endpoint, 10, 1);
+    await drain(baseUrl);
+  }
+  const result: HttpResult = { byConnections: {} };
+  for (const connections of options.connections) {
+    const runs = new Map<EndpointName, EndpointFigures[]>();
+    for (let round = 0; round < options.rounds; round++) {
+      for (const endpoint of list) {
+        const figures = await measure(baseUrl, endpoint, connections, options.secondsPerRun);
+        await drain(baseUrl);
+        runs.set(endpoint.name, [...(runs.get(endpoint.name) ?? []), figures]);
+        log(`  ${connections} conn, round ${round + 1}: ${endpoint.name} ${Math.round(figures.requestsPerSecond)} req/s, p99 ${figures.latencyP99Ms} ms`);
+      }
+    }
+    const summarise = (name: EndpointName) => {
+      const figures = runs.get(name) ?? [];
+      return {
+        requestsPerSecond: median(figures.map((f) => f.requestsPerSecond)),
+        requestsPerSecondRuns: figures.map((f) => f.requestsPerSecond),
+        latencyP50Ms: median(figures.map((f) => f.latencyP50Ms)),
+        latencyP99Ms: median(figures.map((f) => f.latencyP99Ms)),
+        non2xx: figures.reduce((sum, f) => sum + f.non2xx, 0),
+        errors: figures.reduce((sum, f) => sum + f.errors, 0),
+      };
+    };
+    const pingRuns = runs.get('ping') ?? [];
+    const healthRuns = runs.get('health') ?? [];
+    const classifyRuns = runs.get('classify') ?? [];
+    const ratioRuns = classifyRuns.map((f, i) => f.requestsPerSecond / (pingRuns[i]?.requestsPerSecond ?? Number.NaN));
+    const healthRatioRuns = classifyRuns.map((f, i) => f.requestsPerSecond / (healthRuns[i]?.requestsPerSecond ?? Number.NaN));
+    const batch = summarise('classifyBatch1000');
+    result.byConnections[String(connections)] = {
+      endpoints: {
+        ping: summarise('ping'),
+        health: summarise('health'),
+        classify: summarise('classify'),
+        classifyBatch1000: batch,
+      },
+      classifyVsPing: median(ratioRuns),
+      classifyVsPingRuns: ratioRuns,
+      classifyVsHealth: median(healthRatioRuns),
+      batchFormulasPerSecond: batch.requestsPerSecond * 1000,
+    };
+  }
+  return result;
+}
