@@ -13,6 +13,8 @@ const nodeTransform = {
 const esmAllowed = ['transformIgnorePatterns', ['/node_modules/(?!(lucia|oslo|@oslojs)/)']];
 
 module.exports = {
+  // Server suites seed the demo lab (Argon2 hashes, ~60 complexes): generous on a busy 2-core machine.
+  testTimeout: 30_000,
   projects: [
     {
       displayName: 'lib',

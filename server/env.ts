@@ -14,9 +14,25 @@ const envSchema = z.object({
   /** Folder of the exported web app served as static files. */
   WEB_DIR: z.string().min(1).default('dist'),
   LOG_REQUESTS: z.enum(['0', '1']).default('1'),
+  /** Outgoing mail server (smtp:// or smtps://). Unset in development and tests: a local sink is started. */
+  SMTP_URL: z
+    .string()
+    .regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL')
+    .optional(),
+  /** The address people reach the app at, for links in e-mails (default http://HOST:PORT). */
+  APP_URL: z.url('must be a URL like https://sphereline.example.org').optional(),
+  MAIL_FROM: z.string().min(3).default('Sphereline <no-reply@sphereline.example.org>'),
+  /** Bibliographic metadata service for DOI look-up (GET {METADATA_URL}/works/{doi}). Unset outside production: a local fake. */
+  METADATA_URL: z.url('must be a URL like https://api.example.org').optional(),
+  /** S3-compatible store for attachments. Unset outside production: a local fake S3 under DATA_DIR/s3. */
+  S3_ENDPOINT: z.url('must be a URL like https://s3.example.org').optional(),
+  S3_BUCKET: z.string().min(3).max(63).default('sphereline-attachments'),
+  S3_ACCESS_KEY: z.string().min(1).optional(),
+  S3_SECRET_KEY: z.string().min(1).optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
 });
 
-export type Env = z.infer<typeof envSchema> & { dataDirAbsolute: string; webDirAbsolute: string };
+export type Env = z.infer<typeof envSchema> & { dataDirAbsolute: string; webDirAbsolute: string; appUrl: string };
 
 export class EnvError extends Error {}
 
@@ -31,5 +47,6 @@ export function readEnv(source: Record<string, string | undefined> = process.env
     ...parsed.data,
     dataDirAbsolute: path.resolve(root, parsed.data.DATA_DIR),
     webDirAbsolute: path.resolve(root, parsed.data.WEB_DIR),
+    appUrl: (parsed.data.APP_URL ?? `http://${parsed.data.HOST}:${parsed.data.PORT}`).replace(/\/+$/, ''),
   };
 }

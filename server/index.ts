@@ -6,6 +6,9 @@ import { migrate, openOrm } from './db/orm';
 import { seedDemo } from './db/seed';
 import { readEnv } from './env';
 import { ClusterError } from './db/cluster';
+import { DEMO_PASSWORD, demoAccounts } from './modules/auth/demo-accounts';
+import { createMailer } from './modules/mail/mailer';
+import { failAbandonedImports } from './modules/exchange/import.service';
 
 const log = (line: string) => console.log(`[sphereline] ${line}`);
 
@@ -20,8 +23,16 @@ async function main() {
   const applied = await migrate(orm);
   if (applied.length > 0) log(`Applied migrations: ${applied.join(', ')}`);
   await seedDemo(orm);
+  // Imports whose server stopped mid-way wrote nothing (one transaction); say so on their job rows.
+  const abandoned = await failAbandonedImports(orm);
+  if (abandoned > 0) log(`Marked ${abandoned} interrupted import(s) as failed.`);
 
-  const app = createApp({ orm, webDir: env.webDirAbsolute, logRequests: env.LOG_REQUESTS === '1' });
+  // Without SMTP_URL (development): a local mail sink; its messages are listed at /api/dev/outbox.
+  const mailer = createMailer({ orm, smtpUrl: env.SMTP_URL, nodeEnv: env.NODE_ENV, from: env.MAIL_FROM, keepProcessAlive: true });
+  const mailDestination = await mailer.start();
+  if (env.NODE_ENV === 'production' && !env.SMTP_URL) log('SMTP_URL is not set: e-mail (sign-up, reset, invitations) cannot be sent.');
+
+  const app = createApp({ orm, webDir: env.webDirAbsolute, logRequests: env.LOG_REQUESTS === '1', mailer });
   const server: Server = await new Promise((resolve, reject) => {
     const listening = app.listen(env.PORT, env.HOST, () => resolve(listening));
     listening.once('error', reject);
@@ -32,6 +43,11 @@ async function main() {
   Sphereline is running at http://${env.HOST}:${port}/
   API health:              http://${env.HOST}:${port}/api/health
   Database:                ${cluster ? `private PostgreSQL on 127.0.0.1:${cluster.port} (data in ${env.DATA_DIR}/postgres)` : 'DATABASE_URL'}
+  E-mail:                  ${mailDestination}${env.NODE_ENV !== 'production' && !env.SMTP_URL ? `\n  Outbox:                  http://${env.HOST}:${port}/api/dev/outbox` : ''}
+
+  Demo sign-ins (invented people; password for all: ${DEMO_PASSWORD}):
+${demoAccounts.map((a) => `    ${a.email.padEnd(36)} ${a.role.padEnd(12)} ${a.displayName}, ${a.part}`).join('\n')}
+
   Press Ctrl+C to stop.
 `);
 
@@ -42,6 +58,7 @@ async function main() {
     log(`${signal}: stopping …`);
     await new Promise<void>((resolve) => server.close(() => resolve()));
     server.closeAllConnections();
+    await mailer.close();
     await orm.close(true);
     if (cluster) await cluster.stop();
     log('Stopped cleanly.');

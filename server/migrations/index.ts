@@ -1,4 +1,7 @@
 import { Migration20261202000000_foundation } from './Migration20261202000000_foundation';
+import { Migration20261210000000_accounts } from './Migration20261210000000_accounts';
+import { Migration20261215000000_library } from './Migration20261215000000_library';
+import { Migration20261220000000_exchange } from './Migration20261220000000_exchange';
 
 /**
  * Migrations are listed here (not discovered from the folder) so that tsx, jest and a bundled
@@ -6,4 +9,7 @@ import { Migration20261202000000_foundation } from './Migration20261202000000_fo
  */
 export const migrationsList = [
   { name: 'Migration20261202000000_foundation', class: Migration20261202000000_foundation },
+  { name: 'Migration20261210000000_accounts', class: Migration20261210000000_accounts },
+  { name: 'Migration20261215000000_library', class: Migration20261215000000_library },
+  { name: 'Migration20261220000000_exchange', class: Migration20261220000000_exchange },
 ];

@@ -1,8 +1,19 @@
+import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/core';
 import { Seeder } from '@mikro-orm/seeder';
 import { AppSetting } from '@/server/modules/settings/app-setting.entity';
+import { User } from '@/server/modules/auth/user.entity';
+import { DEMO_GROUPS, DEMO_PASSWORD, demoAccounts } from '@/server/modules/auth/demo-accounts';
+import { hashPassword } from '@/server/modules/auth/password';
+import { ResearchGroup } from '@/server/modules/groups/group.entity';
+import { GroupMembership } from '@/server/modules/groups/membership.entity';
+import { seedDemoLibrary } from '@/server/modules/library/demo-library';
 
 export const DEMO_SEED_KEY = 'demo-seed';
+/** Its own marker, so a database seeded before accounts existed still gets the lab's people once. */
+export const DEMO_PEOPLE_SEED_KEY = 'demo-seed-people';
+/** The lab's library (issue 6) has its own marker too, for databases seeded before the library existed. */
+export const DEMO_LIBRARY_SEED_KEY = 'demo-seed-library';
 
 /**
  * The invented Larkspur Coordination Lab (North Fen Institute). Runs once per database: the
@@ -10,13 +21,43 @@ export const DEMO_SEED_KEY = 'demo-seed';
  */
 export class DemoSeeder extends Seeder {
   async run(em: EntityManager): Promise<void> {
+    if (!(await em.findOne(AppSetting, { key: DEMO_PEOPLE_SEED_KEY }))) {
+      await seedDemoPeople(em);
+      em.create(AppSetting, { key: DEMO_PEOPLE_SEED_KEY, value: { seededAt: new Date().toISOString() } });
+      await em.flush();
+    }
+    if (!(await em.findOne(AppSetting, { key: DEMO_LIBRARY_SEED_KEY }))) {
+      const library = await seedDemoLibrary(em);
+      em.create(AppSetting, { key: DEMO_LIBRARY_SEED_KEY, value: { ...library, seededAt: new Date().toISOString() } });
+      await em.flush();
+    }
     const done = await em.findOne(AppSetting, { key: DEMO_SEED_KEY });
     if (done) return;
-    // Later modules add the lab's members, groups and library here, before the marker.
+    // Later modules add the lab's library here, before the marker.
     em.create(AppSetting, {
       key: DEMO_SEED_KEY,
       value: { scenario: 'Larkspur Coordination Lab (invented demo data)', seededAt: new Date().toISOString() },
     });
     await em.flush();
+  }
+}
+
+/** The lab's people and a second, separate group; all verified, all with the demo password. */
+async function seedDemoPeople(em: EntityManager): Promise<void> {
+  const groups = {
+    larkspur: em.create(ResearchGroup, { id: randomUUID(), name: DEMO_GROUPS.larkspur }),
+    fenwick: em.create(ResearchGroup, { id: randomUUID(), name: DEMO_GROUPS.fenwick }),
+  };
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  for (const account of demoAccounts) {
+    if (await em.findOne(User, { email: account.email })) continue;
+    const user = em.create(User, {
+      id: randomUUID(),
+      email: account.email,
+      displayName: account.displayName,
+      passwordHash,
+      emailVerifiedAt: new Date(),
+    });
+    em.create(GroupMembership, { groupId: groups[account.group].id, userId: user.id, role: account.role });
   }
 }

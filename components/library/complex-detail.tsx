@@ -1,0 +1,177 @@
+import { useState } from 'react';
+import { ScrollView, StyleSheet, View } from 'react-native';
+import { ErrorBlock, LoadingBlock, StaleNotice } from '@/components/account/query-states';
+import { TextLink } from '@/components/account/auth-frame';
+import { CautionsCard, IdentityCard, VerdictCard } from '@/components/check/result-cards';
+import { useClassification } from '@/components/check/use-classification';
+import { Card } from '@/components/ui/card';
+import { Chip } from '@/components/ui/chip';
+import { FormulaText } from '@/components/ui/formula-text';
+import { AppText } from '@/components/ui/text';
+import { colors, radius, spacing } from '@/components/ui/theme';
+import { StatusPill, VerdictBadge } from '@/components/ui/verdict-badge';
+import { ApiError } from '@/lib/api/api-client';
+import { useComplexQuery } from '@/lib/api/library';
+import type { ComplexDetail, ComplexSnapshot } from '@/lib/schemas/library';
+import { ComplexActions } from './complex-actions';
+import { dateTimeText, metalLabel } from './library-format';
+import { MeasurementsTable } from './measurements-table';
+import { ReviewThread, RevisionHistory } from './revision-history';
+
+/** Room temperature for the engine's estimate beside the measured values. */
+const DISPLAY_TEMPERATURE_C = 25;
+
+/** One library entry: identity, the engine's view, measurements, history, review and actions. */
+export function ComplexDetailView({ id, showBackLink = false }: { id: string; showBackLink?: boolean }) {
+  const query = useComplexQuery(id);
+  return (
+    <ScrollView style={styles.scroll} contentContainerStyle={styles.content}>
+      <View style={styles.column} testID="complex-detail">
+        {showBackLink ? <TextLink href="/library" testID="complex-back">← Library</TextLink> : null}
+        {query.data === undefined ? (
+          query.isError ? (
+            <ErrorBlock
+              title={query.error instanceof ApiError && query.error.code === 'NOT_FOUND' ? 'This entry is not in your library' : 'The entry could not be loaded'}
+              error={query.error}
+              onRetry={() => void query.refetch()}
+              testID="complex-detail-error"
+            />
+          ) : (
+            <LoadingBlock label="Loading the entry…" testID="complex-detail-loading" />
+          )
+        ) : (
+          <>
+            {query.isError ? <StaleNotice error={query.error} onRetry={() => void query.refetch()} testID="complex-detail-stale" /> : null}
+            <EntryBody entry={query.data} />
+          </>
+        )}
+      </View>
+    </ScrollView>
+  );
+}
+
+function EntryBody({ entry }: { entry: ComplexDetail }) {
+  const [showApproved, setShowApproved] = useState(false);
+  const shown: ComplexSnapshot = showApproved && entry.approved ? entry.approved : entry;
+  return (
+    <>
+      <View style={styles.head}>
+        <FormulaText formula={shown.formula} variant="display" testID="complex-formula" />
+        <AppText variant="lead" tone="soft" testID="complex-name">{shown.name}</AppText>
+        <View style={styles.badges}>
+          <VerdictBadge verdict={shown.verdict} />
+          <StatusPill status={shown.status} />
+          <AppText variant="caption" tone="muted">
+            {metalLabel(shown.metal, shown.oxidationState)} · d{shown.dElectrons}
+            {shown.spinState ? ` · ${shown.spinState} spin` : ''} · v{entry.version}
+          </AppText>
+        </View>
+        <AppText variant="caption" tone="muted">
+          Added by {entry.createdBy?.displayName ?? 'someone no longer in the group'} · last change {dateTimeText(entry.updatedAt)} UTC
+          {entry.approvedAt ? ` · approved ${dateTimeText(entry.approvedAt)} UTC` : ''}
+        </AppText>
+      </View>
+
+      <PendingBanner entry={entry} showApproved={showApproved} onToggle={() => setShowApproved(!showApproved)} />
+      <LatestReviewNote entry={entry} />
+      <ComplexActions entry={entry} />
+
+      <Card title="Measured" testID="complex-measured-card">
+        <MeasurementsTable measurements={shown.measurements} />
+      </Card>
+      {shown.notes ? (
+        <Card title="Notes">
+          <AppText testID="complex-notes">{shown.notes}</AppText>
+        </Card>
+      ) : null}
+      <EnginePanel formula={shown.formula} />
+      <Card title="Review" testID="complex-review-card">
+        <ReviewThread complexId={entry.id} />
+      </Card>
+      <Card title="History" testID="complex-history-card">
+        <RevisionHistory complexId={entry.id} />
+      </Card>
+    </>
+  );
+}
+
+/** An approved version stays the group's data while a newer revision waits. */
+function PendingBanner({ entry, showApproved, onToggle }: { entry: ComplexDetail; showApproved: boolean; onToggle: () => void }) {
+  if (!entry.hasPendingRevision) return null;
+  const published = entry.view === 'published';
+  return (
+    <View style={styles.banner} testID="complex-pending-banner" accessibilityRole="alert">
+      <AppText style={styles.bannerText}>
+        {published
+          ? 'Approved version shown; a newer revision awaits review.'
+          : showApproved
+            ? 'Approved version shown; the newer revision below it awaits review.'
+            : 'You are looking at the newer revision; the approved version stays the group’s data until this one is approved.'}
+      </AppText>
+      {!published && entry.approved ? (
+        <Chip
+          label={showApproved ? 'Show the newer revision' : 'Show the approved version'}
+          onPress={onToggle}
+          selected={showApproved}
+          testID="complex-toggle-approved"
+        />
+      ) : null}
+    </View>
+  );
+}
+
+function LatestReviewNote({ entry }: { entry: ComplexDetail }) {
+  const review = entry.latestReview;
+  if (!review || review.decision === 'approve' || (entry.status !== 'changes-requested' && entry.status !== 'rejected')) return null;
+  return (
+    <View style={styles.reviewNote} testID="complex-latest-review">
+      <AppText variant="label" style={styles.reviewNoteTitle}>
+        {review.decision === 'request-changes' ? 'Changes requested' : 'Rejected'} by {review.reviewer?.displayName ?? 'a curator'}
+      </AppText>
+      <AppText>{review.comment}</AppText>
+    </View>
+  );
+}
+
+/** The engine's reading of the formula, computed here (pure and instant); measured values above win. */
+function EnginePanel({ formula }: { formula: string }) {
+  const state = useClassification(formula, DISPLAY_TEMPERATURE_C, null);
+  if (state.kind !== 'result') {
+    return state.kind === 'problem' ? (
+      <Card title="Prediction">
+        <AppText tone="danger">The engine cannot read this formula: {state.problem.message}</AppText>
+      </Card>
+    ) : null;
+  }
+  return (
+    <View style={styles.engine} testID="complex-engine">
+      <AppText variant="caption" tone="muted">
+        Predicted by Sphereline’s rules of thumb at {DISPLAY_TEMPERATURE_C} °C — an estimate, not a measurement; where the library holds a measured value, the measurement wins.
+      </AppText>
+      <VerdictCard result={state.result} />
+      <IdentityCard result={state.result} />
+      <CautionsCard result={state.result} />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  scroll: { flex: 1, backgroundColor: colors.paper },
+  content: { paddingHorizontal: spacing.lg, paddingVertical: spacing.xl, alignItems: 'center' },
+  column: { width: '100%', maxWidth: 880, gap: spacing.lg },
+  head: { gap: spacing.xs },
+  badges: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm },
+  banner: {
+    backgroundColor: colors.amberSoft,
+    borderLeftWidth: 4,
+    borderLeftColor: colors.amber,
+    borderRadius: radius.md,
+    padding: spacing.md,
+    gap: spacing.sm,
+    alignItems: 'flex-start',
+  },
+  bannerText: { color: colors.ink },
+  reviewNote: { borderLeftWidth: 4, borderLeftColor: colors.amber, paddingLeft: spacing.md, gap: 2 },
+  reviewNoteTitle: { color: colors.amber },
+  engine: { gap: spacing.md },
+});

@@ -1,0 +1,127 @@
+import { useState, type ReactNode } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { Chip } from '@/components/ui/chip';
+import { AppText } from '@/components/ui/text';
+import { spacing } from '@/components/ui/theme';
+import type { ComplexFilters } from '@/lib/api/library';
+import { complexStatuses, measurementKindRules, measurementKinds } from '@/lib/schemas/library';
+import { roman } from '@/components/ui/format';
+
+/** Metals most groups hold; metals of loaded entries are added to these. */
+const COMMON_METALS = ['Cr', 'Mn', 'Fe', 'Co', 'Ni', 'Cu', 'Zn', 'Ru', 'Rh', 'Pd', 'Ir', 'Pt'];
+const OXIDATION_STATES = [0, 1, 2, 3, 4];
+const D_COUNTS = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
+const VERDICTS = ['labile', 'intermediate', 'inert'] as const;
+const STATUS_WORDS: Record<(typeof complexStatuses)[number], string> = {
+  draft: 'Draft',
+  submitted: 'Submitted',
+  approved: 'Approved',
+  'changes-requested': 'Changes requested',
+  rejected: 'Rejected',
+  retired: 'Retired',
+};
+
+type FilterKey = Exclude<keyof ComplexFilters, 'q' | 'groupId' | 'ligand'>;
+
+/** The active filters as short words, each removable ("Co", "d6", "inert", "has citation"). */
+export function activeFilterLabels(filters: ComplexFilters): { key: FilterKey; label: string }[] {
+  const out: { key: FilterKey; label: string }[] = [];
+  if (filters.metal) out.push({ key: 'metal', label: filters.metal });
+  if (filters.oxidationState !== undefined) out.push({ key: 'oxidationState', label: `oxidation state ${roman(filters.oxidationState)}` });
+  if (filters.dCount !== undefined) out.push({ key: 'dCount', label: `d${filters.dCount}` });
+  if (filters.verdict) out.push({ key: 'verdict', label: filters.verdict });
+  if (filters.status) out.push({ key: 'status', label: STATUS_WORDS[filters.status] });
+  if (filters.measurementKind) out.push({ key: 'measurementKind', label: measurementKindRules[filters.measurementKind].label });
+  if (filters.hasCitation !== undefined) out.push({ key: 'hasCitation', label: filters.hasCitation ? 'cited' : 'no citation' });
+  return out;
+}
+
+export function LibraryFilters({ filters, onChange, knownMetals, showStatus }: {
+  filters: ComplexFilters;
+  onChange: (next: ComplexFilters) => void;
+  knownMetals: readonly string[];
+  /** Viewers only ever see approved entries: the status filter would be noise for them. */
+  showStatus: boolean;
+}) {
+  const [open, setOpen] = useState(false);
+  const active = activeFilterLabels(filters);
+  const set = <K extends FilterKey>(key: K, value: ComplexFilters[K]) => {
+    const next = { ...filters };
+    if (next[key] === value || value === undefined) delete next[key];
+    else next[key] = value;
+    onChange(next);
+  };
+  const metals = [...new Set([...COMMON_METALS, ...knownMetals])].sort();
+  return (
+    <View style={styles.wrap} testID="library-filters">
+      <View style={styles.row}>
+        <Chip label={open ? 'Hide filters' : `Filters${active.length ? ` (${active.length})` : ''}`} onPress={() => setOpen(!open)} testID="library-filters-toggle" />
+        {active.map((item) => (
+          <Chip key={item.key} label={`${item.label} ✕`} selected onPress={() => set(item.key, undefined)} testID={`library-filter-active-${item.key}`} />
+        ))}
+      </View>
+      {open ? (
+        <View style={styles.panel}>
+          <Group title="Metal">
+            {metals.map((metal) => (
+              <Chip key={metal} label={metal} mono selected={filters.metal === metal} onPress={() => set('metal', metal)} testID={`library-filter-metal-${metal}`} />
+            ))}
+          </Group>
+          <Group title="Oxidation state">
+            {OXIDATION_STATES.map((n) => (
+              <Chip key={n} label={roman(n)} selected={filters.oxidationState === n} onPress={() => set('oxidationState', n)} testID={`library-filter-ox-${n}`} />
+            ))}
+          </Group>
+          <Group title="d electrons">
+            {D_COUNTS.map((n) => (
+              <Chip key={n} label={`d${n}`} selected={filters.dCount === n} onPress={() => set('dCount', n)} testID={`library-filter-d-${n}`} />
+            ))}
+          </Group>
+          <Group title="Verdict">
+            {VERDICTS.map((verdict) => (
+              <Chip key={verdict} label={verdict} selected={filters.verdict === verdict} onPress={() => set('verdict', verdict)} testID={`library-filter-verdict-${verdict}`} />
+            ))}
+          </Group>
+          {showStatus ? (
+            <Group title="Status">
+              {complexStatuses.map((status) => (
+                <Chip key={status} label={STATUS_WORDS[status]} selected={filters.status === status} onPress={() => set('status', status)} testID={`library-filter-status-${status}`} />
+              ))}
+            </Group>
+          ) : null}
+          <Group title="Measured">
+            {measurementKinds.map((kind) => (
+              <Chip
+                key={kind}
+                label={measurementKindRules[kind].label}
+                selected={filters.measurementKind === kind}
+                onPress={() => set('measurementKind', kind)}
+                testID={`library-filter-kind-${kind}`}
+              />
+            ))}
+          </Group>
+          <Group title="Citation">
+            <Chip label="cited" selected={filters.hasCitation === true} onPress={() => set('hasCitation', true)} testID="library-filter-cited" />
+            <Chip label="no citation" selected={filters.hasCitation === false} onPress={() => set('hasCitation', false)} testID="library-filter-uncited" />
+          </Group>
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+function Group({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <View style={styles.group}>
+      <AppText variant="label" tone="muted">{title}</AppText>
+      <View style={styles.row}>{children}</View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: spacing.sm },
+  row: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.xs },
+  panel: { gap: spacing.md, paddingVertical: spacing.xs },
+  group: { gap: spacing.xs },
+});

@@ -1,0 +1,376 @@
+import {
+  keepPreviousData,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+  type QueryClient,
+} from '@tanstack/react-query';
+import type { z } from 'zod';
+import { apiErrorBodySchema } from '@/lib/schemas/errors';
+import {
+  complexDetailSchema,
+  complexListResponseSchema,
+  ligandsResponseSchema,
+  reviewQueueResponseSchema,
+  reviewResponseSchema,
+  revisionDiffSchema,
+  revisionsResponseSchema,
+  staleVersionErrorSchema,
+  type ComplexDetail,
+  type ComplexListResponse,
+  type ComplexSearchQuery,
+  type CreateComplexInput,
+  type MeasurementInput,
+  type ReviewInput,
+  type ReviewResponse,
+  type TransitionInput,
+  type UpdateComplexInput,
+  type UpdateMeasurementInput,
+} from '@/lib/schemas/library';
+import { ApiError, apiRequest } from './api-client';
+
+/**
+ * The curated library (issue 6): typed calls for /api/complexes, /api/review-queue and /api/ligands,
+ * their query keys, and the hooks the screens use. Every change invalidates the lists, the entry, its
+ * history and the review queue; a 409 on a stale version arrives as StaleVersionError with the entry
+ * as it is now (never a silent overwrite).
+ */
+
+/** Search filters as the screens hold them (page is handled by the infinite query). */
+export type ComplexFilters = Omit<Partial<ComplexSearchQuery>, 'page' | 'pageSize'>;
+
+export const LIBRARY_PAGE_SIZE = 20;
+
+export const complexKeys = {
+  all: ['complexes'] as const,
+  lists: () => [...complexKeys.all, 'list'] as const,
+  list: (filters: ComplexFilters) => [...complexKeys.lists(), normaliseFilters(filters)] as const,
+  details: () => [...complexKeys.all, 'detail'] as const,
+  detail: (id: string) => [...complexKeys.details(), id] as const,
+  revisions: (id: string) => [...complexKeys.detail(id), 'revisions'] as const,
+  diff: (id: string, from: number, to: number) => [...complexKeys.revisions(id), 'diff', from, to] as const,
+};
+
+export const reviewQueueKeys = {
+  all: ['review-queue'] as const,
+};
+
+export const ligandKeys = {
+  all: ['ligands'] as const,
+  list: (groupId: string | null) => [...ligandKeys.all, groupId ?? 'reference'] as const,
+};
+
+/** Drops empty filters so `{ q: '' }` and `{}` share one cache entry. */
+export function normaliseFilters(filters: ComplexFilters): ComplexFilters {
+  const out: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(filters)) {
+    if (value === undefined || value === null) continue;
+    if (typeof value === 'string' && value.trim() === '') continue;
+    out[key] = typeof value === 'string' ? value.trim() : value;
+  }
+  return out as ComplexFilters;
+}
+
+export function searchParams(filters: ComplexFilters, page: number, pageSize = LIBRARY_PAGE_SIZE): string {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(normaliseFilters(filters))) params.set(key, String(value));
+  params.set('page', String(page));
+  params.set('pageSize', String(pageSize));
+  return params.toString();
+}
+
+// ---- errors ---------------------------------------------------------------------------------------
+
+/** 409 because someone saved the entry after it was loaded: carries the entry as it is now. */
+export class StaleVersionError extends ApiError {
+  constructor(
+    message: string,
+    readonly current: ComplexDetail,
+  ) {
+    super(409, 'CONFLICT', message);
+    this.name = 'StaleVersionError';
+  }
+}
+
+/** No retries on 4xx (the request itself is wrong); two more tries on network and 5xx failures. */
+export function retryUnlessClientError(failureCount: number, error: unknown): boolean {
+  return !(error instanceof ApiError && error.status >= 400 && error.status < 500) && failureCount < 2;
+}
+
+/**
+ * Like apiRequest, but a stale-version 409 keeps its `current` entry (apiRequest's generic error
+ * shape drops extra members of the error body).
+ */
+async function versionedRequest<T>(path: string, schema: z.ZodType<T>, init: { method: string; body?: unknown }): Promise<T> {
+  let response: Response;
+  try {
+    response = await fetch(`/api${path}`, {
+      method: init.method,
+      headers: init.body === undefined ? undefined : { 'Content-Type': 'application/json' },
+      body: init.body === undefined ? undefined : JSON.stringify(init.body),
+      credentials: 'same-origin',
+    });
+  } catch {
+    throw new ApiError(0, 'NETWORK', 'The server could not be reached. Check your connection.');
+  }
+  const payload: unknown = await response.json().catch(() => null);
+  if (!response.ok) {
+    if (response.status === 409) {
+      const stale = staleVersionErrorSchema.safeParse(payload);
+      if (stale.success) throw new StaleVersionError(stale.data.error.message, stale.data.error.current);
+    }
+    const parsed = apiErrorBodySchema.safeParse(payload);
+    if (parsed.success) {
+      const { code, message, fields } = parsed.data.error;
+      throw new ApiError(response.status, code, message, fields ?? {});
+    }
+    throw new ApiError(response.status, 'INTERNAL', `The server answered ${response.status}.`);
+  }
+  return schema.parse(payload);
+}
+
+/** Re-labels a step's field problems so they land on the right form row ("value" → "measurements.2.value"). */
+function withFieldPrefix(error: unknown, prefix: string): unknown {
+  if (!(error instanceof ApiError) || error instanceof StaleVersionError || !prefix) return error;
+  const fields = Object.fromEntries(Object.entries(error.fields).map(([key, message]) => [`${prefix}${key}`, message]));
+  return new ApiError(error.status, error.code, error.message, fields);
+}
+
+// ---- plain API functions ------------------------------------------------------------------------
+
+const entryPath = (id: string) => `/complexes/${encodeURIComponent(id)}`;
+
+export function fetchComplexes(filters: ComplexFilters, page: number, signal?: AbortSignal): Promise<ComplexListResponse> {
+  return apiRequest(`/complexes?${searchParams(filters, page)}`, complexListResponseSchema, { signal });
+}
+
+export function fetchComplex(id: string, signal?: AbortSignal): Promise<ComplexDetail> {
+  return apiRequest(entryPath(id), complexDetailSchema, { signal });
+}
+
+export function createComplex(input: CreateComplexInput): Promise<ComplexDetail> {
+  return apiRequest('/complexes', complexDetailSchema, { method: 'POST', body: input });
+}
+
+export function updateComplex(id: string, input: UpdateComplexInput): Promise<ComplexDetail> {
+  return versionedRequest(entryPath(id), complexDetailSchema, { method: 'PATCH', body: input });
+}
+
+export function addMeasurement(id: string, input: MeasurementInput): Promise<ComplexDetail> {
+  return versionedRequest(`${entryPath(id)}/measurements`, complexDetailSchema, { method: 'POST', body: input });
+}
+
+export function updateMeasurement(id: string, measurementId: string, input: UpdateMeasurementInput): Promise<ComplexDetail> {
+  return versionedRequest(`${entryPath(id)}/measurements/${encodeURIComponent(measurementId)}`, complexDetailSchema, {
+    method: 'PATCH',
+    body: input,
+  });
+}
+
+export function deleteMeasurement(id: string, measurementId: string, version: number): Promise<ComplexDetail> {
+  return versionedRequest(`${entryPath(id)}/measurements/${encodeURIComponent(measurementId)}?version=${version}`, complexDetailSchema, {
+    method: 'DELETE',
+  });
+}
+
+export function submitComplex(id: string, input: TransitionInput = {}): Promise<ComplexDetail> {
+  return versionedRequest(`${entryPath(id)}/submit`, complexDetailSchema, { method: 'POST', body: input });
+}
+
+export function reviewComplex(id: string, input: ReviewInput): Promise<ReviewResponse> {
+  return versionedRequest(`${entryPath(id)}/reviews`, reviewResponseSchema, { method: 'POST', body: input });
+}
+
+export function retireComplex(id: string, input: TransitionInput = {}): Promise<ComplexDetail> {
+  return versionedRequest(`${entryPath(id)}/retire`, complexDetailSchema, { method: 'POST', body: input });
+}
+
+export async function fetchRevisions(id: string, signal?: AbortSignal) {
+  const { revisions } = await apiRequest(`${entryPath(id)}/revisions`, revisionsResponseSchema, { signal });
+  return revisions;
+}
+
+export function fetchRevisionDiff(id: string, from: number, to: number, signal?: AbortSignal) {
+  return apiRequest(`${entryPath(id)}/revisions/diff?from=${from}&to=${to}`, revisionDiffSchema, { signal });
+}
+
+export function fetchReviewQueue(signal?: AbortSignal) {
+  return apiRequest('/review-queue', reviewQueueResponseSchema, { signal });
+}
+
+export async function fetchLigands(groupId: string | null, signal?: AbortSignal) {
+  const query = groupId ? `?groupId=${encodeURIComponent(groupId)}` : '';
+  const { ligands } = await apiRequest(`/ligands${query}`, ligandsResponseSchema, { signal });
+  return ligands;
+}
+
+/** One step of saving an edited entry; `fieldPrefix` points server field problems at the form row. */
+export type EditStep =
+  | { kind: 'update-entry'; input: Omit<UpdateComplexInput, 'version'> }
+  | { kind: 'add-measurement'; input: Omit<MeasurementInput, 'version'>; fieldPrefix: string }
+  | { kind: 'update-measurement'; measurementId: string; input: Omit<UpdateMeasurementInput, 'version'>; fieldPrefix: string }
+  | { kind: 'delete-measurement'; measurementId: string };
+
+/**
+ * Saves an edit as a chain of versioned changes (entry fields, then each measurement): every step
+ * names the version the previous one produced, so a change by someone else in between is a 409.
+ * Returns the entry after the last step (or the current entry when there was nothing to save).
+ */
+export async function saveComplexEdits(id: string, baseVersion: number, steps: readonly EditStep[]): Promise<ComplexDetail> {
+  let version = baseVersion;
+  let latest: ComplexDetail | null = null;
+  for (const step of steps) {
+    try {
+      switch (step.kind) {
+        case 'update-entry':
+          latest = await updateComplex(id, { ...step.input, version });
+          break;
+        case 'add-measurement':
+          latest = await addMeasurement(id, { ...step.input, version });
+          break;
+        case 'update-measurement':
+          latest = await updateMeasurement(id, step.measurementId, { ...step.input, version });
+          break;
+        case 'delete-measurement':
+          latest = await deleteMeasurement(id, step.measurementId, version);
+          break;
+      }
+    } catch (error) {
+      throw withFieldPrefix(error, 'fieldPrefix' in step ? step.fieldPrefix : '');
+    }
+    version = latest.version;
+  }
+  return latest ?? fetchComplex(id);
+}
+
+// ---- cache rules ----------------------------------------------------------------------------------
+
+/** After any change of an entry: store the fresh copy, refetch lists, history and the queue. */
+export async function entryChanged(client: QueryClient, entry: ComplexDetail): Promise<void> {
+  client.setQueryData(complexKeys.detail(entry.id), entry);
+  await Promise.all([
+    client.invalidateQueries({ queryKey: complexKeys.lists() }),
+    client.invalidateQueries({ queryKey: complexKeys.revisions(entry.id) }),
+    client.invalidateQueries({ queryKey: reviewQueueKeys.all }),
+  ]);
+}
+
+/** A 409 brought the entry as it is now: the cache should show that too. */
+function rememberCurrent(client: QueryClient, error: unknown) {
+  if (error instanceof StaleVersionError) void entryChanged(client, error.current);
+}
+
+// ---- hooks ------------------------------------------------------------------------------------------
+
+/**
+ * Pages of the search, appended as the person scrolls or presses "Load more". While new filters
+ * load, the previous result stays on screen (placeholderData), and a failed refresh keeps it too.
+ */
+export function useComplexesQuery(filters: ComplexFilters, enabled = true) {
+  return useInfiniteQuery({
+    queryKey: complexKeys.list(filters),
+    queryFn: ({ pageParam, signal }) => fetchComplexes(filters, pageParam, signal),
+    initialPageParam: 1,
+    getNextPageParam: (last) => (last.page * last.pageSize < last.total ? last.page + 1 : undefined),
+    placeholderData: keepPreviousData,
+    retry: retryUnlessClientError,
+    enabled,
+  });
+}
+
+export function useComplexQuery(id: string | null | undefined) {
+  return useQuery({
+    queryKey: complexKeys.detail(id ?? ''),
+    queryFn: ({ signal }) => fetchComplex(id ?? '', signal),
+    enabled: !!id,
+    retry: retryUnlessClientError,
+  });
+}
+
+export function useRevisionsQuery(id: string | null | undefined) {
+  return useQuery({
+    queryKey: complexKeys.revisions(id ?? ''),
+    queryFn: ({ signal }) => fetchRevisions(id ?? '', signal),
+    enabled: !!id,
+    retry: retryUnlessClientError,
+  });
+}
+
+export function useRevisionDiffQuery(id: string, from: number | null, to: number | null) {
+  return useQuery({
+    queryKey: complexKeys.diff(id, from ?? 0, to ?? 0),
+    queryFn: ({ signal }) => fetchRevisionDiff(id, from ?? 0, to ?? 0, signal),
+    enabled: from !== null && to !== null && from !== to,
+    retry: retryUnlessClientError,
+    // A diff between two stored revisions never changes.
+    staleTime: Infinity,
+  });
+}
+
+export function useReviewQueueQuery(enabled = true) {
+  return useQuery({
+    queryKey: reviewQueueKeys.all,
+    queryFn: ({ signal }) => fetchReviewQueue(signal),
+    enabled,
+    retry: retryUnlessClientError,
+  });
+}
+
+export function useLigandsQuery(groupId: string | null, enabled = true) {
+  return useQuery({
+    queryKey: ligandKeys.list(groupId),
+    queryFn: ({ signal }) => fetchLigands(groupId, signal),
+    enabled,
+    retry: retryUnlessClientError,
+    staleTime: 5 * 60_000,
+  });
+}
+
+export function useCreateComplexMutation() {
+  const client = useQueryClient();
+  return useMutation<ComplexDetail, Error, CreateComplexInput>({
+    mutationFn: createComplex,
+    onSuccess: (entry) => entryChanged(client, entry),
+  });
+}
+
+export function useSaveComplexMutation(id: string) {
+  const client = useQueryClient();
+  return useMutation<ComplexDetail, Error, { baseVersion: number; steps: readonly EditStep[] }>({
+    mutationFn: ({ baseVersion, steps }) => saveComplexEdits(id, baseVersion, steps),
+    onSuccess: (entry) => entryChanged(client, entry),
+    onError: (error) => {
+      rememberCurrent(client, error);
+      // Earlier steps may have been saved before a later one failed: reload what is there now.
+      if (!(error instanceof StaleVersionError)) void client.invalidateQueries({ queryKey: complexKeys.detail(id) });
+    },
+  });
+}
+
+export function useSubmitComplexMutation(id: string) {
+  const client = useQueryClient();
+  return useMutation<ComplexDetail, Error, TransitionInput>({
+    mutationFn: (input) => submitComplex(id, input),
+    onSuccess: (entry) => entryChanged(client, entry),
+    onError: (error) => rememberCurrent(client, error),
+  });
+}
+
+export function useReviewComplexMutation(id: string) {
+  const client = useQueryClient();
+  return useMutation<ReviewResponse, Error, ReviewInput>({
+    mutationFn: (input) => reviewComplex(id, input),
+    onSuccess: ({ complex }) => entryChanged(client, complex),
+    onError: (error) => rememberCurrent(client, error),
+  });
+}
+
+export function useRetireComplexMutation(id: string) {
+  const client = useQueryClient();
+  return useMutation<ComplexDetail, Error, TransitionInput>({
+    mutationFn: (input) => retireComplex(id, input),
+    onSuccess: (entry) => entryChanged(client, entry),
+    onError: (error) => rememberCurrent(client, error),
+  });
+}

@@ -1,0 +1,239 @@
+import { z } from 'zod';
+import { complexSearchQuerySchema, doiSchema } from './library';
+
+/**
+ * Library exchange (issue 7): CSV import/export, citation export (BibTeX, RIS), DOI look-up,
+ * attachments and e-mail preferences. One zod schema per DTO, shared by the server and the app.
+ * Wire format: string ids, ISO date strings.
+ */
+
+// ───────────────────────────── CSV columns ─────────────────────────────
+
+/**
+ * The columns the importer reads and the exporter writes, in export order. One row per
+ * measurement; rows with the same `entry` label (or, without one, the same formula and name)
+ * make one library entry. An entry without measurements is one row with the measurement
+ * columns empty.
+ */
+export const csvColumns = [
+  'entry',
+  'formula',
+  'name',
+  'notes',
+  'kind',
+  'value',
+  'unit',
+  'temperature_K',
+  'ionic_strength_M',
+  'medium',
+  'method',
+  'partner_formula',
+  'measurement_notes',
+  'doi',
+  'authors',
+  'title',
+  'journal',
+  'year',
+  'volume',
+  'pages',
+] as const;
+export const csvColumnSchema = z.enum(csvColumns);
+export type CsvColumn = z.infer<typeof csvColumnSchema>;
+
+/** Other headers people use for the same column (compared lower-case, ignoring spaces, _ - . and brackets). */
+export const csvColumnSynonyms: Readonly<Record<CsvColumn, readonly string[]>> = {
+  entry: ['entry', 'entry id', 'entry key', 'group', 'complex id', 'key'],
+  formula: ['formula', 'complex', 'complex formula', 'coordination formula', 'species'],
+  name: ['name', 'complex name', 'compound', 'compound name', 'iupac name'],
+  notes: ['notes', 'entry notes', 'complex notes', 'comment', 'comments'],
+  kind: ['kind', 'measurement', 'measurement kind', 'quantity', 'type'],
+  value: ['value', 'k', 'rate constant', 'measured value'],
+  unit: ['unit', 'units'],
+  temperature_K: ['temperature K', 'temperature', 'T', 'T K', 'temp', 'temp K'],
+  ionic_strength_M: ['ionic strength M', 'ionic strength', 'I', 'I M', 'mu'],
+  medium: ['medium', 'solvent'],
+  method: ['method', 'technique'],
+  partner_formula: ['partner formula', 'partner', 'reaction partner'],
+  measurement_notes: ['measurement notes', 'measurement comment'],
+  doi: ['doi', 'citation doi'],
+  authors: ['authors', 'author', 'citation authors'],
+  title: ['title', 'article title', 'paper title'],
+  journal: ['journal', 'source', 'journal or book'],
+  year: ['year', 'publication year'],
+  volume: ['volume', 'vol'],
+  pages: ['pages', 'page', 'pp'],
+};
+
+/** A user's mapping: our column → the header text in their file (exactly as in the file). */
+export const csvMappingSchema = z.partialRecord(csvColumnSchema, z.string().min(1).max(200));
+export type CsvMapping = z.infer<typeof csvMappingSchema>;
+
+// ───────────────────────────── import ─────────────────────────────
+
+export const IMPORT_MAX_BYTES = 5 * 1024 * 1024;
+export const IMPORT_MAX_ROWS = 50_000;
+
+/**
+ * POST /api/imports — the body is the raw file (Content-Type text/csv, at most 5 MB); options go
+ * in the query string: groupId (optional with one group), dryRun (true: validate only),
+ * mapping (JSON of CsvMapping), wait (true: answer when the job has finished), fileName.
+ */
+export const importQuerySchema = z
+  .object({
+    groupId: z.uuid('groupId must be a group id.').optional(),
+    dryRun: z.enum(['true', 'false', '1', '0']).default('false').transform((v) => v === 'true' || v === '1'),
+    wait: z.enum(['true', 'false', '1', '0']).default('false').transform((v) => v === 'true' || v === '1'),
+    fileName: z.string().trim().max(200).optional(),
+    mapping: z
+      .string()
+      .max(4000)
+      .transform((text, ctx) => {
+        try {
+          return JSON.parse(text) as unknown;
+        } catch {
+          ctx.addIssue({ code: 'custom', message: 'mapping must be JSON, e.g. {"formula":"Complex"}.' });
+          return z.NEVER;
+        }
+      })
+      .pipe(csvMappingSchema)
+      .optional(),
+  })
+  .strict();
+export type ImportQuery = z.infer<typeof importQuerySchema>;
+
+/** One problem in the file: `row` is the line number as a spreadsheet shows it (the header is row 1). */
+export const importIssueSchema = z.object({
+  row: z.number().int(),
+  /** The header as written in the file (null for problems of the whole row). */
+  column: z.string().nullable(),
+  message: z.string(),
+  /** Character position (1-based) inside the cell, for formulas the engine cannot read. */
+  position: z.number().int().optional(),
+});
+export type ImportIssue = z.infer<typeof importIssueSchema>;
+
+export const importStates = ['queued', 'validating', 'importing', 'succeeded', 'failed'] as const;
+export const importStateSchema = z.enum(importStates);
+export type ImportState = z.infer<typeof importStateSchema>;
+
+/** GET /api/imports/:id (and the answer to POST /api/imports). Poll until `state` is succeeded or failed. */
+export const importJobSchema = z.object({
+  id: z.string(),
+  groupId: z.string(),
+  fileName: z.string().nullable(),
+  dryRun: z.boolean(),
+  state: importStateSchema,
+  /** Rows looked at so far, of `total` data rows. */
+  processed: z.number().int(),
+  total: z.number().int(),
+  /** The headers found and the column each was mapped to (null: ignored). */
+  columns: z.array(z.object({ header: z.string(), column: csvColumnSchema.nullable() })),
+  errorCount: z.number().int(),
+  /** At most 1000 issues are kept; errorCount has the full number. */
+  errors: z.array(importIssueSchema),
+  /** Entries and measurements the file holds (dry run) or that were written (import). */
+  entryCount: z.number().int(),
+  measurementCount: z.number().int(),
+  complexIds: z.array(z.string()),
+  message: z.string().nullable(),
+  createdAt: z.iso.datetime(),
+  updatedAt: z.iso.datetime(),
+  finishedAt: z.iso.datetime().nullable(),
+});
+export type ImportJob = z.infer<typeof importJobSchema>;
+
+/** A file that cannot be read at all (4xx before any row is looked at): the error body's extra fields. */
+export const importFileErrorSchema = z.object({
+  error: z.object({
+    code: z.enum(['VALIDATION_FAILED', 'PAYLOAD_TOO_LARGE', 'UNSUPPORTED_MEDIA', 'NOT_FOUND', 'FORBIDDEN', 'UNAUTHENTICATED']),
+    message: z.string(),
+    fields: z.record(z.string(), z.string()).optional(),
+    issues: z.array(importIssueSchema).optional(),
+  }),
+});
+
+// ───────────────────────────── export ─────────────────────────────
+
+/** GET /api/exports/library.csv | citations.bib | citations.ris — the library's search filters, no paging. */
+export const exportQuerySchema = complexSearchQuerySchema.omit({ page: true, pageSize: true });
+export type ExportQuery = z.infer<typeof exportQuerySchema>;
+
+// ───────────────────────────── DOI look-up ─────────────────────────────
+
+export const doiLookupQuerySchema = z.object({ doi: doiSchema }).strict();
+
+/** GET /api/citations/lookup?doi=… → a citation ready for the form (not saved). */
+export const doiLookupResponseSchema = z.object({
+  doi: z.string(),
+  authors: z.string(),
+  title: z.string().nullable(),
+  journal: z.string(),
+  year: z.number().int().nullable(),
+  volume: z.string().nullable(),
+  pages: z.string().nullable(),
+});
+export type DoiLookupResponse = z.infer<typeof doiLookupResponseSchema>;
+
+// ───────────────────────────── attachments ─────────────────────────────
+
+export const ATTACHMENT_MAX_BYTES = 20 * 1024 * 1024;
+
+export const attachmentKinds = ['pdf', 'png', 'jpeg', 'zip', 'cif', 'jcamp-dx', 'csv', 'text'] as const;
+export const attachmentKindSchema = z.enum(attachmentKinds);
+export type AttachmentKind = z.infer<typeof attachmentKindSchema>;
+
+/** File extensions accepted per kind (checked together with the content). */
+export const attachmentExtensions: Readonly<Record<AttachmentKind, readonly string[]>> = {
+  pdf: ['pdf'],
+  png: ['png'],
+  jpeg: ['jpg', 'jpeg'],
+  // Office files and zipped data sets are ZIP containers.
+  zip: ['zip', 'xlsx', 'docx', 'pptx', 'odt', 'ods'],
+  cif: ['cif'],
+  'jcamp-dx': ['jdx', 'dx', 'jcamp'],
+  csv: ['csv', 'tsv'],
+  text: ['txt', 'dat', 'asc', 'xy'],
+};
+
+/**
+ * POST /api/complexes/:id/attachments — the body is the raw file (any Content-Type, at most 20 MB);
+ * `fileName` (query) is the name to show; `description` optional.
+ */
+export const attachmentUploadQuerySchema = z
+  .object({
+    fileName: z.string().trim().min(1, 'Give the file name, e.g. fileName=uv-vis.jdx.').max(255, 'A file name has at most 255 characters.'),
+    description: z.string().trim().max(500).optional(),
+  })
+  .strict();
+
+export const attachmentSchema = z.object({
+  id: z.string(),
+  complexId: z.string(),
+  fileName: z.string(),
+  kind: attachmentKindSchema,
+  contentType: z.string(),
+  sizeBytes: z.number().int(),
+  sha256: z.string().regex(/^[0-9a-f]{64}$/),
+  description: z.string().nullable(),
+  uploadedBy: z.object({ id: z.string(), displayName: z.string() }).nullable(),
+  createdAt: z.iso.datetime(),
+  /** GET this path (same session) to download the file. */
+  downloadPath: z.string(),
+});
+export type Attachment = z.infer<typeof attachmentSchema>;
+
+export const attachmentListSchema = z.object({ attachments: z.array(attachmentSchema) });
+export type AttachmentList = z.infer<typeof attachmentListSchema>;
+
+// ───────────────────────────── e-mail preferences ─────────────────────────────
+
+export const mailPreferencesSchema = z.object({
+  /** Curators: a mail when an entry of their group is submitted for review. */
+  reviewSubmissions: z.boolean(),
+  /** Submitters: a mail when a curator decides on their submission. */
+  reviewDecisions: z.boolean(),
+});
+export type MailPreferences = z.infer<typeof mailPreferencesSchema>;
+
+export const updateMailPreferencesInputSchema = mailPreferencesSchema.partial().strict();
+export type UpdateMailPreferencesInput = z.infer<typeof updateMailPreferencesInputSchema>;

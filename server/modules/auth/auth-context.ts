@@ -1,0 +1,46 @@
+import type { Orm } from '@/server/db/orm';
+import type { Mailer } from '@/server/modules/mail/mailer';
+import type { SphereLucia } from './lucia';
+
+/** Limits and lifetimes of the account flows; tests may tighten them through createApp({ auth }). */
+export interface AuthSettings {
+  /** Failed sign-ins allowed per address, and per client IP, in one window. */
+  signInFailuresPerAddress: number;
+  signInFailuresPerIp: number;
+  signInWindowSeconds: number;
+  /** Password-reset requests (and sign-ups) allowed per address and per IP in one window. */
+  mailRequestsPerAddress: number;
+  mailRequestsPerIp: number;
+  mailWindowSeconds: number;
+  verifyTokenHours: number;
+  resetTokenMinutes: number;
+  invitationDays: number;
+}
+
+export const defaultAuthSettings: AuthSettings = {
+  signInFailuresPerAddress: 5,
+  // A whole lab may sit behind one NAT address: the per-IP limit is looser than the per-address one.
+  signInFailuresPerIp: 30,
+  signInWindowSeconds: 15 * 60,
+  mailRequestsPerAddress: 5,
+  mailRequestsPerIp: 30,
+  mailWindowSeconds: 60 * 60,
+  verifyTokenHours: 48,
+  resetTokenMinutes: 60,
+  invitationDays: 7,
+};
+
+export interface AccountsContext {
+  orm: Orm;
+  lucia: SphereLucia;
+  mailer: Mailer;
+  /** Base of the links in e-mails, without a trailing slash. */
+  appUrl: string;
+  settings: AuthSettings;
+}
+
+/** Who is asking: recorded on the session and used for throttling. Services never see req/res. */
+export interface RequestMeta {
+  ip: string;
+  userAgent: string | null;
+}

@@ -1,0 +1,373 @@
+import { randomUUID } from 'node:crypto';
+import type { InferEntity } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { roleAtLeast } from '@/lib/schemas/groups';
+import type { CsvMapping, ImportIssue, ImportJob as ImportJobDto } from '@/lib/schemas/exchange';
+import type { Citation as CitationDto, CitationInput, ComplexSnapshot, Measurement as MeasurementDto } from '@/lib/schemas/library';
+import type { Orm } from '@/server/db/orm';
+import { AppError, notFound } from '@/server/http/errors';
+import { AuditEvent } from '@/server/modules/audit/audit-event.entity';
+import { Citation } from '@/server/modules/library/citation.entity';
+import { Complex } from '@/server/modules/library/complex.entity';
+import { toCitationDto, toSnapshot } from '@/server/modules/library/complex.mapper';
+import { membershipIn, resolveGroup, type MembershipInfo } from '@/server/modules/library/library-access';
+import { Measurement } from '@/server/modules/library/measurement.entity';
+import { ComplexRevision } from '@/server/modules/library/revision.entity';
+import { mapColumns, readCsvTable } from './csv-file';
+import { ImportJob } from './import-job.entity';
+import { validateRows, type PlannedEntry } from './import-validate';
+
+/**
+ * CSV import jobs. The POST reads and checks the file (4xx for a file that cannot be read), creates
+ * an import_job row and works on it in the background; the client polls GET /api/imports/:id.
+ * The write is ONE transaction with multi-row INSERTs: it commits whole or not at all, so a killed
+ * server leaves nothing half-written; its job row is later marked failed (heartbeat too old).
+ */
+
+type ImportJobEntity = InferEntity<typeof ImportJob>;
+
+/** A running job touches heartbeat_at at least this often; older means its process is gone. */
+export const HEARTBEAT_MS = 5_000;
+export const ABANDONED_AFTER_MS = 30_000;
+const MAX_STORED_ISSUES = 1000;
+const CHUNK = 500;
+
+export interface ImportRequest {
+  userId: string;
+  groupId?: string;
+  fileName?: string;
+  dryRun: boolean;
+  mapping?: CsvMapping;
+}
+
+export function toImportJobDto(job: ImportJobEntity): ImportJobDto {
+  const abandoned = isAbandoned(job);
+  return {
+    id: job.id,
+    groupId: job.groupId,
+    fileName: job.fileName ?? null,
+    dryRun: job.dryRun,
+    state: abandoned ? 'failed' : job.state,
+    processed: job.processed,
+    total: job.total,
+    columns: job.columns,
+    errorCount: job.errorCount,
+    errors: job.errors,
+    entryCount: job.entryCount,
+    measurementCount: job.measurementCount,
+    complexIds: job.complexIds,
+    message: abandoned ? abandonedMessage : job.message ?? null,
+    createdAt: job.createdAt.toISOString(),
+    updatedAt: job.updatedAt.toISOString(),
+    finishedAt: job.finishedAt ? job.finishedAt.toISOString() : null,
+  };
+}
+
+const abandonedMessage = 'The server stopped while this import was running; nothing was written. Upload the file again.';
+const running = (state: string) => state === 'queued' || state === 'validating' || state === 'importing';
+const isAbandoned = (job: ImportJobEntity) => running(job.state) && Date.now() - job.heartbeatAt.getTime() > ABANDONED_AFTER_MS;
+
+/** At start-up (and any time): jobs whose process stopped beating are failed for good. */
+export async function failAbandonedImports(orm: Orm, olderThanMs = ABANDONED_AFTER_MS): Promise<number> {
+  return orm.em.fork().nativeUpdate(
+    ImportJob,
+    { state: { $in: ['queued', 'validating', 'importing'] }, heartbeatAt: { $lt: new Date(Date.now() - olderThanMs) } },
+    { state: 'failed', message: abandonedMessage, updatedAt: new Date(), finishedAt: new Date() },
+  );
+}
+
+async function groupFor(em: EntityManager, userId: string, groupId: string | undefined): Promise<MembershipInfo> {
+  const membership = await resolveGroup(em, userId, groupId);
+  if (!roleAtLeast(membership.role, 'contributor')) {
+    throw new AppError('FORBIDDEN', 'Viewers can read the library but not import into it; ask an admin for the contributor role.');
+  }
+  return membership;
+}
+
+/**
+ * Checks the file and creates the job; `done` settles when the job has finished (the route awaits
+ * it only with ?wait=true). Throws 4xx for a file that cannot be read at all.
+ */
+export async function startImport(orm: Orm, request: ImportRequest, bytes: Buffer): Promise<{ job: ImportJobDto; done: Promise<ImportJobDto> }> {
+  const em = orm.em.fork();
+  const membership = await groupFor(em, request.userId, request.groupId);
+  const table = readCsvTable(bytes);
+  const map = mapColumns(table.headers, request.mapping);
+  const now = new Date();
+  const id = randomUUID();
+  await em.insert(ImportJob, {
+    id,
+    groupId: membership.groupId,
+    createdById: request.userId,
+    fileName: request.fileName ?? null,
+    dryRun: request.dryRun,
+    state: 'queued',
+    processed: 0,
+    total: table.rows.length,
+    columns: map.columns,
+    errorCount: 0,
+    errors: [],
+    entryCount: 0,
+    measurementCount: 0,
+    complexIds: [],
+    message: null,
+    heartbeatAt: now,
+    createdAt: now,
+    updatedAt: now,
+    finishedAt: null,
+  });
+  const job = await em.findOneOrFail(ImportJob, { id });
+  const done = runJob(orm, job, request, () => validateRows(table, map, (processed) => progress(processed)));
+
+  let lastWrite = 0;
+  // Progress goes through its own connection, outside the import transaction, so pollers see it.
+  function progress(processed: number, state?: ImportJobEntity['state']) {
+    const nowMs = Date.now();
+    if (!state && nowMs - lastWrite < 250) return;
+    lastWrite = nowMs;
+    void orm.em
+      .fork()
+      .nativeUpdate(ImportJob, { id }, { processed, ...(state ? { state } : {}), heartbeatAt: new Date(), updatedAt: new Date() })
+      .catch(() => {});
+  }
+  return { job: toImportJobDto(job), done };
+}
+
+async function runJob(
+  orm: Orm,
+  job: ImportJobEntity,
+  request: ImportRequest,
+  validate: () => ReturnType<typeof validateRows>,
+): Promise<ImportJobDto> {
+  const em = orm.em.fork();
+  const beat = setInterval(() => {
+    void orm.em.fork().nativeUpdate(ImportJob, { id: job.id }, { heartbeatAt: new Date() }).catch(() => {});
+  }, HEARTBEAT_MS) as unknown as NodeJS.Timeout;
+  beat.unref();
+  const finish = async (values: Partial<ImportJobEntity>) => {
+    await em.nativeUpdate(ImportJob, { id: job.id }, { ...values, heartbeatAt: new Date(), updatedAt: new Date(), finishedAt: new Date() });
+    return toImportJobDto(await em.findOneOrFail(ImportJob, { id: job.id }, { refresh: true }));
+  };
+  try {
+    // Let the POST answer first; the work starts on the next turn of the event loop.
+    await new Promise((resolve) => setImmediate(resolve));
+    await em.nativeUpdate(ImportJob, { id: job.id }, { state: 'validating', heartbeatAt: new Date(), updatedAt: new Date() });
+    const started = performance.now();
+    const result = validate();
+    const counts = { entryCount: result.entries.length, measurementCount: result.measurementCount, processed: job.total };
+    if (result.issues.length > 0) {
+      return await finish({
+        ...counts,
+        state: 'failed',
+        errorCount: result.issues.length,
+        errors: result.issues.slice(0, MAX_STORED_ISSUES),
+        message: `${result.issues.length} problem(s) in ${new Set(result.issues.map((i) => i.row)).size} row(s); nothing was ${request.dryRun ? 'checked further' : 'imported'}. Fix them and upload the file again.`,
+      });
+    }
+    if (request.dryRun) {
+      return await finish({
+        ...counts,
+        state: 'succeeded',
+        message: `Dry run: all ${job.total} rows are valid (${counts.entryCount} entries, ${counts.measurementCount} measurements; checked in ${Math.round(performance.now() - started)} ms). Nothing was written.`,
+      });
+    }
+    await em.nativeUpdate(ImportJob, { id: job.id }, { state: 'importing', processed: 0, heartbeatAt: new Date(), updatedAt: new Date() });
+    console.log('validated', performance.now()-started);
+    const complexIds = await writeEntries(orm, job, request.userId, result.entries);
+    return await finish({
+      ...counts,
+      state: 'succeeded',
+      complexIds: complexIds.slice(0, 10_000),
+      message: `Imported ${counts.entryCount} entries with ${counts.measurementCount} measurements in ${Math.round(performance.now() - started)} ms; they wait for review (status "submitted").`,
+    });
+  } catch (error) {
+    const message =
+      error instanceof AppError ? error.message : 'The import failed on the server and nothing was written. It has been logged; try again.';
+    if (!(error instanceof AppError)) console.error(`[import] job ${job.id} failed:`, error);
+    return finish({ state: 'failed', message }).catch(() => toImportJobDto({ ...job, state: 'failed', message }));
+  } finally {
+    clearInterval(beat);
+  }
+}
+
+const citationKey = (c: CitationInput) =>
+  c.doi ? `doi:${c.doi.toLowerCase()}` : `ref:${[c.authors, c.journal, c.year ?? '', c.volume ?? '', c.pages ?? ''].join('\u0000')}`;
+
+function chunks<T>(items: readonly T[], size = CHUNK): T[][] {
+  const out: T[][] = [];
+  for (let i = 0; i < items.length; i += size) out.push(items.slice(i, i + size));
+  return out;
+}
+
+/** The citations the file names, found (by DOI, or identical fields) or created — in bulk. */
+async function resolveCitations(tem: EntityManager, groupId: string, userId: string, entries: readonly PlannedEntry[]): Promise<Map<string, CitationDto>> {
+  const wanted = new Map<string, CitationInput>();
+  for (const entry of entries) for (const m of entry.measurements) if (m.citation) wanted.set(citationKey(m.citation), m.citation);
+  const resolved = new Map<string, CitationDto>();
+  if (wanted.size === 0) return resolved;
+  const now = new Date();
+  const withDoi = [...wanted.values()].filter((c) => c.doi);
+  for (const part of chunks(withDoi)) {
+    const values = part.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)').join(', ');
+    const params = part.flatMap((c) => [randomUUID(), groupId, c.doi, c.authors, c.title ?? null, c.journal, c.year ?? null, c.volume ?? null, c.pages ?? null, userId, now]);
+    await tem.execute(
+      `insert into citation (id, group_id, doi, authors, title, journal, year, volume, pages, created_by_id, created_at)
+       values ${values} on conflict (group_id, lower(doi)) where doi is not null do nothing`,
+      params,
+    );
+  }
+  if (withDoi.length > 0) {
+    const rows = await tem.find(Citation, { groupId, doi: { $ne: null } });
+    for (const row of rows) if (row.doi) resolved.set(`doi:${row.doi.toLowerCase()}`, toCitationDto(row));
+  }
+  const withoutDoi = [...wanted.entries()].filter(([, c]) => !c.doi);
+  if (withoutDoi.length > 0) {
+    const existing = await tem.find(Citation, { groupId, doi: null });
+    for (const row of existing) {
+      const key = citationKey({ authors: row.authors, journal: row.journal, year: row.year ?? null, volume: row.volume ?? null, pages: row.pages ?? null });
+      if (!resolved.has(key)) resolved.set(key, toCitationDto(row));
+    }
+    const fresh = withoutDoi.filter(([key]) => !resolved.has(key));
+    const rows = fresh.map(([key, c]) => {
+      const row = { id: randomUUID(), groupId, doi: null, authors: c.authors, title: c.title ?? null, journal: c.journal, year: c.year ?? null, volume: c.volume ?? null, pages: c.pages ?? null, createdById: userId, createdAt: now };
+      resolved.set(key, toCitationDto(row));
+      return row;
+    });
+    for (const part of chunks(rows)) await tem.insertMany(Citation, part);
+  }
+  return resolved;
+}
+
+/** The whole write: citations, entries, measurements, one revision and one audit event per entry. */
+async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entries: readonly PlannedEntry[]): Promise<string[]> {
+  const em = orm.em.fork();
+  const ids: string[] = [];
+  await em.transactional(async (tem) => {
+    // The job's group may have lost this person between the POST and now.
+    const membership = await membershipIn(tem, userId, job.groupId);
+    if (!membership || !roleAtLeast(membership.role, 'contributor')) throw new AppError('FORBIDDEN', 'You are no longer a contributor of this group.');
+    console.time('cit');
+    const citations = await resolveCitations(tem, job.groupId, userId, entries);
+    console.timeEnd('cit');console.time('build');
+    const now = new Date();
+    const complexRows: Record<string, unknown>[] = [];
+    const measurementRows: Record<string, unknown>[] = [];
+    const revisionRows: Record<string, unknown>[] = [];
+    const auditRows: Record<string, unknown>[] = [];
+    for (const entry of entries) {
+      const id = randomUUID();
+      ids.push(id);
+      const measurements: MeasurementDto[] = entry.measurements.map((m, order) => {
+        // File order survives: the library lists measurements by created_at.
+        const createdAt = new Date(now.getTime() + order);
+        const citation = m.citation ? citations.get(citationKey(m.citation)) ?? null : null;
+        const row = {
+          id: randomUUID(),
+          complexId: id,
+          kind: m.input.kind,
+          value: m.input.value,
+          unit: m.input.unit as MeasurementDto['unit'],
+          temperatureK: m.input.temperatureK ?? null,
+          ionicStrengthM: m.input.ionicStrengthM ?? null,
+          medium: m.input.medium ?? null,
+          method: m.input.method ?? null,
+          partnerFormula: m.input.partnerFormula ?? null,
+          citationId: citation?.id ?? null,
+          notes: m.input.notes ?? null,
+          createdAt,
+          updatedAt: createdAt,
+        };
+        measurementRows.push(row);
+        const { complexId: _complexId, citationId: _citationId, ...fields } = row;
+        return { ...fields, citation, createdAt: createdAt.toISOString(), updatedAt: createdAt.toISOString() };
+      });
+      const snapshot: ComplexSnapshot = toSnapshot(
+        { formula: entry.formula, name: entry.name, notes: entry.notes, status: 'submitted', ...entry.derived },
+        measurements,
+      );
+      complexRows.push({
+        id,
+        groupId: job.groupId,
+        formula: entry.formula,
+        name: entry.name,
+        status: 'submitted',
+        notes: entry.notes,
+        ...entry.derived,
+        measurementKinds: [...new Set(entry.measurements.map((m) => m.input.kind))].sort(),
+        hasCitation: measurements.some((m) => m.citation !== null),
+        version: 1,
+        createdById: userId,
+        submittedById: userId,
+        submittedAt: now,
+        approvedSnapshot: null,
+        approvedVersion: null,
+        approvedAt: null,
+        createdAt: now,
+        updatedAt: now,
+      });
+      revisionRows.push({
+        id: randomUUID(),
+        complexId: id,
+        number: 1,
+        kind: 'create',
+        status: 'submitted',
+        message: `Imported from ${job.fileName ?? 'a CSV file'} (row ${entry.firstRow}) and submitted for review`.slice(0, 500),
+        snapshot,
+        authorId: userId,
+        createdAt: now,
+      });
+      auditRows.push({
+        id: randomUUID(),
+        actorId: userId,
+        groupId: job.groupId,
+        action: 'library.entry.imported',
+        subjectType: 'complex',
+        subjectId: id,
+        details: { to: 'submitted', version: 1, formula: entry.formula, importJobId: job.id, row: entry.firstRow },
+        createdAt: now,
+      });
+    }
+    let written = 0;
+    const report = () =>
+      orm.em.fork().nativeUpdate(ImportJob, { id: job.id }, { processed: Math.min(written, job.total), heartbeatAt: new Date(), updatedAt: new Date() }).catch(() => 0);
+    console.timeEnd('build');console.time('cx');
+    for (const part of chunks(complexRows)) await tem.insertMany(Complex, part as never[]);
+    console.timeEnd('cx');console.time('ms');
+    for (const part of chunks(measurementRows, 1000)) {
+      await tem.insertMany(Measurement, part as never[]);
+      written += part.length;
+      await report();
+    }
+    console.timeEnd('ms');console.time('rev');
+    for (const part of chunks(revisionRows)) await tem.insertMany(ComplexRevision, part as never[]);
+    console.timeEnd('rev');console.time('aud');
+    for (const part of chunks(auditRows)) await tem.insertMany(AuditEvent, part as never[]);
+    await tem.insertMany(AuditEvent, [
+      {
+        id: randomUUID(),
+        actorId: userId,
+        groupId: job.groupId,
+        action: 'library.import.completed',
+        subjectType: 'import-job',
+        subjectId: job.id,
+        details: { entries: entries.length, measurements: measurementRows.length, fileName: job.fileName },
+        createdAt: now,
+      },
+    ]);
+    console.timeEnd('aud');
+    written = job.total;
+    await report();
+  });
+  return ids;
+}
+
+/** The job, for its creator and the group's curators; 404 for everyone else. */
+export async function getImportJob(em: EntityManager, userId: string, id: string): Promise<ImportJobDto> {
+  const job = await em.findOne(ImportJob, { id }, { refresh: true });
+  if (!job) throw notFound('That import');
+  const membership = await membershipIn(em, userId, job.groupId);
+  if (!membership || (job.createdById !== userId && !roleAtLeast(membership.role, 'curator'))) throw notFound('That import');
+  return toImportJobDto(job);
+}
+
+export type { ImportIssue };

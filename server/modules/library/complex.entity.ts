@@ -1,0 +1,41 @@
+import { randomUUID } from 'node:crypto';
+import { defineEntity, p } from '@mikro-orm/core';
+import type { ComplexSnapshot, ComplexStatus } from '@/lib/schemas/library';
+
+/**
+ * A library entry: the working copy (what authors and curators edit) plus, once approved, the
+ * approved snapshot that viewers keep seeing while a newer revision is drafted or reviewed.
+ * The derived columns (metal … ligand_set_key) come from the engine and are stored for search.
+ * `version` is bumped by every change with an atomic `update … where id = ? and version = ?`.
+ */
+export const Complex = defineEntity({
+  name: 'Complex',
+  tableName: 'complex',
+  properties: {
+    id: p.uuid().primary().onCreate(() => randomUUID()),
+    groupId: p.uuid(),
+    formula: p.string().length(300),
+    name: p.string().length(200),
+    status: p.string().length(20).$type<ComplexStatus>(),
+    notes: p.text().nullable(),
+    metal: p.string().length(3),
+    oxidationState: p.integer(),
+    dElectrons: p.integer(),
+    spinState: p.string().length(4).$type<'high' | 'low'>().nullable(),
+    verdict: p.string().length(12).$type<'labile' | 'intermediate' | 'inert'>(),
+    ligandIds: p.array(),
+    ligandSetKey: p.string().length(400),
+    searchText: p.text(),
+    measurementKinds: p.array(),
+    hasCitation: p.boolean(),
+    version: p.integer(),
+    createdById: p.uuid().nullable(),
+    submittedById: p.uuid().nullable(),
+    submittedAt: p.datetime().nullable(),
+    approvedSnapshot: p.json<ComplexSnapshot>().nullable(),
+    approvedVersion: p.integer().nullable(),
+    approvedAt: p.datetime().nullable(),
+    createdAt: p.datetime().onCreate(() => new Date()),
+    updatedAt: p.datetime().onCreate(() => new Date()),
+  },
+});

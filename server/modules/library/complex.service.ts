@@ -1,0 +1,679 @@
+import { randomUUID } from 'node:crypto';
+import type { InferEntity } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { roleAtLeast } from '@/lib/schemas/groups';
+import {
+  measurementCheckSchema,
+  type ComplexDetail,
+  type ComplexSnapshot,
+  type ComplexStatus,
+  type CreateComplexInput,
+  type Measurement as MeasurementDto,
+  type MeasurementInput,
+  type ReviewInput,
+  type ReviewResponse,
+  type RevisionDetail,
+  type RevisionDiff,
+  type Revision as RevisionDto,
+  type TransitionInput,
+  type UpdateComplexInput,
+  type UpdateMeasurementInput,
+} from '@/lib/schemas/library';
+import { AppError, notFound } from '@/server/http/errors';
+import { parseWith } from '@/server/http/validate';
+import { recordAudit } from '@/server/modules/audit/audit.service';
+import { User } from '@/server/modules/auth/user.entity';
+import { Citation } from './citation.entity';
+import { citationOfGroup, findOrCreateCitation } from './citation.service';
+import { Complex } from './complex.entity';
+import { personRef, toCitationDto, toMeasurementDto, toSnapshot } from './complex.mapper';
+import { classifyOrExplain, deriveColumns, type DerivedColumns } from './derive';
+import {
+  membershipIn,
+  permissionsFor,
+  refusal,
+  resolveGroup,
+  reviewerCount,
+  viewFor,
+  type Action,
+  type MembershipInfo,
+  type Reader,
+} from './library-access';
+import { Measurement } from './measurement.entity';
+import { ComplexReview } from './review.entity';
+import { ComplexRevision, type RevisionKind } from './revision.entity';
+import { diffSnapshots } from './revision-diff';
+import { emitLibraryEvent } from './library-events';
+
+/**
+ * Library entries: create, read, edit (optimistic locking), the review workflow, measurements,
+ * revisions and diffs. Every change runs in one transaction that starts with
+ * `update complex set version = version + 1 … where id = ? and version = ?`: of many concurrent
+ * changes based on the same version exactly one matches, the others get 409 with the entry as it is.
+ */
+
+export interface Actor {
+  userId: string;
+}
+
+type ComplexEntity = InferEntity<typeof Complex>;
+
+interface LoadedEntry {
+  complex: ComplexEntity;
+  membership: MembershipInfo;
+  reader: Reader;
+}
+
+class StaleVersion extends Error {}
+
+const facts = (c: ComplexEntity) => ({
+  status: c.status,
+  createdById: c.createdById ?? null,
+  submittedById: c.submittedById ?? null,
+  hasApproved: c.approvedSnapshot != null,
+});
+
+/** The entry if the person may see it; otherwise 404 (non-members and hidden drafts alike). */
+async function loadEntry(em: EntityManager, actor: Actor, id: string): Promise<LoadedEntry> {
+  const complex = await em.findOne(Complex, { id }, { refresh: true });
+  if (!complex) throw notFound('That library entry');
+  const membership = await membershipIn(em, actor.userId, complex.groupId);
+  if (!membership) throw notFound('That library entry');
+  const reader: Reader = { userId: actor.userId, role: membership.role };
+  if (!viewFor(reader, facts(complex))) throw notFound('That library entry');
+  return { complex, membership, reader };
+}
+
+function ensureAllowed(entry: LoadedEntry, action: Action) {
+  const problem = refusal(entry.reader, facts(entry.complex), action);
+  if (problem) throw problem;
+}
+
+async function peopleNames(em: EntityManager, ids: (string | null | undefined)[]): Promise<Map<string, string>> {
+  const wanted = [...new Set(ids.filter((id): id is string => typeof id === 'string'))];
+  if (wanted.length === 0) return new Map();
+  const users = await em.find(User, { id: { $in: wanted } }, { fields: ['id', 'displayName'] });
+  return new Map(users.map((u) => [u.id, u.displayName]));
+}
+
+export async function measurementsOf(em: EntityManager, complexId: string): Promise<MeasurementDto[]> {
+  const rows = await em.find(Measurement, { complexId }, { orderBy: { createdAt: 'asc', id: 'asc' }, refresh: true });
+  const citationIds = [...new Set(rows.map((m) => m.citationId).filter((id): id is string => !!id))];
+  const citations = citationIds.length ? await em.find(Citation, { id: { $in: citationIds } }) : [];
+  const byId = new Map(citations.map((c) => [c.id, toCitationDto(c)]));
+  return rows.map((m) => toMeasurementDto(m, m.citationId ? byId.get(m.citationId) ?? null : null));
+}
+
+async function workingSnapshot(em: EntityManager, complex: ComplexEntity): Promise<ComplexSnapshot> {
+  return toSnapshot(complex, await measurementsOf(em, complex.id));
+}
+
+/** The entry as this reader may see it (working copy or approved snapshot), with what they may do. */
+export async function detailFor(em: EntityManager, complex: ComplexEntity, reader: Reader): Promise<ComplexDetail> {
+  const view = viewFor(reader, facts(complex)) ?? 'published';
+  const approved = complex.approvedSnapshot ?? null;
+  const content: ComplexSnapshot = view === 'published' && approved ? approved : await workingSnapshot(em, complex);
+  const latest = await em.findOne(ComplexReview, { complexId: complex.id }, { orderBy: { createdAt: 'desc', id: 'desc' } });
+  const people = await peopleNames(em, [complex.createdById, complex.submittedById, latest?.reviewerId]);
+  const ownSubmission = complex.status === 'submitted' && complex.submittedById === reader.userId && roleAtLeast(reader.role, 'curator');
+  const curators = ownSubmission ? await reviewerCount(em, complex.groupId) : 2;
+  const pending = approved != null && complex.status !== 'approved' && complex.status !== 'retired';
+  const working = view === 'working';
+  return {
+    ...content,
+    id: complex.id,
+    groupId: complex.groupId,
+    version: complex.version,
+    view,
+    hasPendingRevision: pending,
+    approved: working && pending ? approved : null,
+    approvedAt: complex.approvedAt ? complex.approvedAt.toISOString() : null,
+    createdBy: personRef(people, complex.createdById),
+    submittedBy: working ? personRef(people, complex.submittedById) : null,
+    submittedAt: working && complex.submittedAt ? complex.submittedAt.toISOString() : null,
+    createdAt: complex.createdAt.toISOString(),
+    updatedAt: complex.updatedAt.toISOString(),
+    myRole: reader.role,
+    permissions: permissionsFor(reader, facts(complex), curators),
+    latestReview:
+      working && latest
+        ? {
+            decision: latest.decision,
+            comment: latest.comment,
+            reviewer: personRef(people, latest.reviewerId),
+            createdAt: latest.createdAt.toISOString(),
+          }
+        : null,
+  };
+}
+
+async function staleError(em: EntityManager, actor: Actor, id: string, basedOn: number): Promise<AppError> {
+  const entry = await loadEntry(em, actor, id);
+  const current = await detailFor(em, entry.complex, entry.reader);
+  return new AppError(
+    'CONFLICT',
+    `This entry was changed by someone else: you edited version ${basedOn}, it is now version ${current.version}. ` +
+      'Reload it, re-apply your change and save again.',
+    undefined,
+    { currentVersion: current.version, current },
+  );
+}
+
+type ColumnChanges = Partial<{
+  formula: string;
+  name: string;
+  notes: string | null;
+  status: ComplexStatus;
+  submittedById: string | null;
+  submittedAt: Date | null;
+}> &
+  Partial<Omit<DerivedColumns, 'spinState'> & { spinState: 'high' | 'low' | null }>;
+
+interface ChangePlan {
+  set: ColumnChanges;
+  /** Measurement and other row changes, inside the transaction, after the version guard. */
+  apply?: (tem: EntityManager, newVersion: number) => Promise<void>;
+  revision: { kind: RevisionKind; message: string };
+  audit?: { action: string; details: Record<string, unknown> };
+  /** Runs with the fresh snapshot (e.g. approval stores it as the approved snapshot). */
+  withSnapshot?: (tem: EntityManager, snapshot: ComplexSnapshot, newVersion: number) => Promise<void>;
+}
+
+/** Keeps the denormalised measurement summary (kinds, has-citation) that the search filters use. */
+async function refreshMeasurementSummary(tem: EntityManager, complexId: string) {
+  await tem.execute(
+    `update complex set
+       measurement_kinds = coalesce((select array_agg(distinct m.kind order by m.kind) from measurement m where m.complex_id = ?), '{}'),
+       has_citation = exists (select 1 from measurement m where m.complex_id = ? and m.citation_id is not null)
+     where id = ?`,
+    [complexId, complexId, complexId],
+  );
+}
+
+/** One change of an entry: version guard, row changes, revision snapshot, audit — all or nothing. */
+async function commit(em: EntityManager, actor: Actor, complex: ComplexEntity, basedOn: number, plan: ChangePlan): Promise<number> {
+  const newVersion = basedOn + 1;
+  try {
+    await em.transactional(async (tem) => {
+      const affected = await tem.nativeUpdate(
+        Complex,
+        { id: complex.id, version: basedOn },
+        { ...plan.set, version: newVersion, updatedAt: new Date() },
+      );
+      if (affected === 0) throw new StaleVersion();
+      await plan.apply?.(tem, newVersion);
+      await refreshMeasurementSummary(tem, complex.id);
+      const fresh = await tem.findOneOrFail(Complex, { id: complex.id }, { refresh: true });
+      const snapshot = await workingSnapshot(tem, fresh);
+      await plan.withSnapshot?.(tem, snapshot, newVersion);
+      await tem.insert(ComplexRevision, {
+        id: randomUUID(),
+        complexId: complex.id,
+        number: newVersion,
+        kind: plan.revision.kind,
+        status: snapshot.status,
+        message: plan.revision.message,
+        snapshot,
+        authorId: actor.userId,
+        createdAt: new Date(),
+      });
+      if (plan.audit) {
+        recordAudit(tem, {
+          actorId: actor.userId,
+          groupId: complex.groupId,
+          action: plan.audit.action,
+          subjectType: 'complex',
+          subjectId: complex.id,
+          details: { version: newVersion, formula: fresh.formula, ...plan.audit.details },
+        });
+        await tem.flush();
+      }
+    });
+  } catch (error) {
+    if (error instanceof StaleVersion) throw await staleError(em, actor, complex.id, basedOn);
+    throw error;
+  }
+  return newVersion;
+}
+
+async function respond(em: EntityManager, actor: Actor, id: string): Promise<ComplexDetail> {
+  const entry = await loadEntry(em, actor, id);
+  return detailFor(em, entry.complex, entry.reader);
+}
+
+/** The version a change is based on: the one the client sent (checked now, and again atomically). */
+async function basedOnVersion(em: EntityManager, actor: Actor, entry: LoadedEntry, sent: number | undefined): Promise<number> {
+  if (sent !== undefined && sent !== entry.complex.version) throw await staleError(em, actor, entry.complex.id, sent);
+  return sent ?? entry.complex.version;
+}
+
+/** An edit of an approved entry re-opens it as a draft; the approved snapshot stays published. */
+function reopenIfApproved(entry: LoadedEntry): { set: ColumnChanges; audit?: ChangePlan['audit'] } {
+  if (entry.complex.status !== 'approved') return { set: {} };
+  return {
+    set: { status: 'draft', submittedById: null, submittedAt: null },
+    audit: { action: 'library.entry.reopened', details: { from: 'approved', to: 'draft' } },
+  };
+}
+
+// ───────────────────────────── measurements (shared by create and the nested routes) ─────────────────────────────
+
+interface MeasurementValues {
+  kind: MeasurementDto['kind'];
+  value: number;
+  unit: string;
+  temperatureK: number | null;
+  ionicStrengthM: number | null;
+  medium: string | null;
+  method: string | null;
+  partnerFormula: string | null;
+  notes: string | null;
+}
+
+function checkPartner(partnerFormula: string | null | undefined, field: string) {
+  if (partnerFormula) classifyOrExplain(partnerFormula, field);
+}
+
+async function citationIdFor(
+  tem: EntityManager,
+  groupId: string,
+  actor: Actor,
+  input: Pick<MeasurementInput, 'citationId' | 'citation'>,
+  fieldPrefix: string,
+): Promise<string | null | undefined> {
+  if (input.citationId) return (await citationOfGroup(tem, groupId, input.citationId, `${fieldPrefix}citationId`)).id;
+  if (input.citation) return (await findOrCreateCitation(tem, groupId, input.citation, actor.userId)).citation.id;
+  if (input.citationId === null || input.citation === null) return null;
+  return undefined;
+}
+
+async function insertMeasurement(tem: EntityManager, complexId: string, groupId: string, actor: Actor, input: MeasurementInput, fieldPrefix = '') {
+  const citationId = await citationIdFor(tem, groupId, actor, input, fieldPrefix);
+  const now = new Date();
+  const id = randomUUID();
+  await tem.insert(Measurement, {
+    id,
+    complexId,
+    kind: input.kind,
+    value: input.value,
+    unit: input.unit as MeasurementDto['unit'],
+    temperatureK: input.temperatureK ?? null,
+    ionicStrengthM: input.ionicStrengthM ?? null,
+    medium: input.medium ?? null,
+    method: input.method ?? null,
+    partnerFormula: input.partnerFormula ?? null,
+    citationId: citationId ?? null,
+    notes: input.notes ?? null,
+    createdAt: now,
+    updatedAt: now,
+  });
+  return id;
+}
+
+// ───────────────────────────── entries ─────────────────────────────
+
+export async function createComplex(em: EntityManager, actor: Actor, input: CreateComplexInput): Promise<ComplexDetail> {
+  const membership = await resolveGroup(em, actor.userId, input.groupId);
+  if (!roleAtLeast(membership.role, 'contributor')) {
+    throw new AppError('FORBIDDEN', 'Viewers can read the library but not add to it; ask an admin for the contributor role.');
+  }
+  const derived = deriveColumns(input.formula, input.name);
+  (input.measurements ?? []).forEach((m, i) => checkPartner(m.partnerFormula, `measurements.${i}.partnerFormula`));
+  const id = randomUUID();
+  await em.transactional(async (tem) => {
+    const now = new Date();
+    await tem.insert(Complex, {
+      id,
+      groupId: membership.groupId,
+      formula: input.formula,
+      name: input.name,
+      status: 'draft',
+      notes: input.notes ?? null,
+      ...derived,
+      measurementKinds: [],
+      hasCitation: false,
+      version: 1,
+      createdById: actor.userId,
+      submittedById: null,
+      submittedAt: null,
+      approvedSnapshot: null,
+      approvedVersion: null,
+      approvedAt: null,
+      createdAt: now,
+      updatedAt: now,
+    });
+    for (const [i, m] of (input.measurements ?? []).entries()) {
+      await insertMeasurement(tem, id, membership.groupId, actor, m, `measurements.${i}.`);
+    }
+    await refreshMeasurementSummary(tem, id);
+    const fresh = await tem.findOneOrFail(Complex, { id }, { refresh: true });
+    const snapshot = await workingSnapshot(tem, fresh);
+    await tem.insert(ComplexRevision, {
+      id: randomUUID(),
+      complexId: id,
+      number: 1,
+      kind: 'create',
+      status: 'draft',
+      message: 'Created',
+      snapshot,
+      authorId: actor.userId,
+      createdAt: now,
+    });
+    recordAudit(tem, {
+      actorId: actor.userId,
+      groupId: membership.groupId,
+      action: 'library.entry.created',
+      subjectType: 'complex',
+      subjectId: id,
+      details: { to: 'draft', formula: input.formula, version: 1 },
+    });
+    await tem.flush();
+  });
+  return respond(em, actor, id);
+}
+
+export async function getComplex(em: EntityManager, actor: Actor, id: string): Promise<ComplexDetail> {
+  return respond(em, actor, id);
+}
+
+export async function updateComplex(em: EntityManager, actor: Actor, id: string, input: UpdateComplexInput): Promise<ComplexDetail> {
+  const entry = await loadEntry(em, actor, id);
+  ensureAllowed(entry, 'edit');
+  const basedOn = await basedOnVersion(em, actor, entry, input.version);
+  const { complex } = entry;
+  const formula = input.formula ?? complex.formula;
+  const name = input.name ?? complex.name;
+  const set: ColumnChanges = {};
+  if (input.formula !== undefined) set.formula = input.formula;
+  if (input.name !== undefined) set.name = input.name;
+  if (input.notes !== undefined) set.notes = input.notes ?? null;
+  if (input.formula !== undefined || input.name !== undefined) Object.assign(set, deriveColumns(formula, name));
+  const reopen = reopenIfApproved(entry);
+  await commit(em, actor, complex, basedOn, {
+    set: { ...set, ...reopen.set },
+    revision: { kind: 'edit', message: input.message ?? 'Edited' },
+    audit: reopen.audit,
+  });
+  return respond(em, actor, id);
+}
+
+export async function addMeasurement(em: EntityManager, actor: Actor, id: string, input: MeasurementInput): Promise<ComplexDetail> {
+  const entry = await loadEntry(em, actor, id);
+  ensureAllowed(entry, 'edit');
+  checkPartner(input.partnerFormula, 'partnerFormula');
+  const basedOn = await basedOnVersion(em, actor, entry, input.version);
+  const reopen = reopenIfApproved(entry);
+  await commit(em, actor, entry.complex, basedOn, {
+    set: reopen.set,
+    apply: async (tem) => {
+      await insertMeasurement(tem, id, entry.complex.groupId, actor, input);
+    },
+    revision: { kind: 'edit', message: `Added a ${input.kind} measurement` },
+    audit: reopen.audit,
+  });
+  return respond(em, actor, id);
+}
+
+export async function updateMeasurement(
+  em: EntityManager,
+  actor: Actor,
+  id: string,
+  measurementId: string,
+  input: UpdateMeasurementInput,
+): Promise<ComplexDetail> {
+  const entry = await loadEntry(em, actor, id);
+  ensureAllowed(entry, 'edit');
+  const existing = await em.findOne(Measurement, { id: measurementId, complexId: id });
+  if (!existing) throw notFound('That measurement');
+  const merged: MeasurementValues = {
+    kind: input.kind ?? existing.kind,
+    value: input.value ?? Number(existing.value),
+    unit: input.unit ?? existing.unit,
+    temperatureK: input.temperatureK !== undefined ? input.temperatureK ?? null : existing.temperatureK ?? null,
+    ionicStrengthM: input.ionicStrengthM !== undefined ? input.ionicStrengthM ?? null : existing.ionicStrengthM ?? null,
+    medium: input.medium !== undefined ? input.medium ?? null : existing.medium ?? null,
+    method: input.method !== undefined ? input.method ?? null : existing.method ?? null,
+    partnerFormula: input.partnerFormula !== undefined ? input.partnerFormula ?? null : existing.partnerFormula ?? null,
+    notes: input.notes !== undefined ? input.notes ?? null : existing.notes ?? null,
+  };
+  parseWith(measurementCheckSchema, merged);
+  checkPartner(merged.partnerFormula, 'partnerFormula');
+  const basedOn = await basedOnVersion(em, actor, entry, input.version);
+  const reopen = reopenIfApproved(entry);
+  await commit(em, actor, entry.complex, basedOn, {
+    set: reopen.set,
+    apply: async (tem) => {
+      const citationId = await citationIdFor(tem, entry.complex.groupId, actor, input, '');
+      await tem.nativeUpdate(
+        Measurement,
+        { id: measurementId },
+        {
+          ...merged,
+          unit: merged.unit as MeasurementDto['unit'],
+          ...(citationId !== undefined ? { citationId } : {}),
+          updatedAt: new Date(),
+        },
+      );
+    },
+    revision: { kind: 'edit', message: `Changed a ${merged.kind} measurement` },
+    audit: reopen.audit,
+  });
+  return respond(em, actor, id);
+}
+
+export async function deleteMeasurement(
+  em: EntityManager,
+  actor: Actor,
+  id: string,
+  measurementId: string,
+  version: number | undefined,
+): Promise<ComplexDetail> {
+  const entry = await loadEntry(em, actor, id);
+  ensureAllowed(entry, 'edit');
+  const existing = await em.findOne(Measurement, { id: measurementId, complexId: id });
+  if (!existing) throw notFound('That measurement');
+  const basedOn = await basedOnVersion(em, actor, entry, version);
+  const reopen = reopenIfApproved(entry);
+  await commit(em, actor, entry.complex, basedOn, {
+    set: reopen.set,
+    apply: async (tem) => {
+      await tem.nativeDelete(Measurement, { id: measurementId });
+    },
+    revision: { kind: 'edit', message: `Removed a ${existing.kind} measurement` },
+    audit: reopen.audit,
+  });
+  return respond(em, actor, id);
+}
+
+// ───────────────────────────── workflow ─────────────────────────────
+
+export async function submitComplex(em: EntityManager, actor: Actor, id: string, input: TransitionInput): Promise<ComplexDetail> {
+  const entry = await loadEntry(em, actor, id);
+  ensureAllowed(entry, 'submit');
+  const basedOn = await basedOnVersion(em, actor, entry, input.version);
+  await commit(em, actor, entry.complex, basedOn, {
+    set: { status: 'submitted', submittedById: actor.userId, submittedAt: new Date() },
+    revision: { kind: 'submit', message: input.message ?? 'Submitted for review' },
+    audit: { action: 'library.entry.submitted', details: { from: entry.complex.status, to: 'submitted' } },
+  });
+  const submitted = await respond(em, actor, id);
+  emitLibraryEvent(em, { type: 'submitted', complexId: id, groupId: submitted.groupId, formula: submitted.formula, name: submitted.name, actorId: actor.userId });
+  return submitted;
+}
+
+/** Puts the working copy back to the approved snapshot (after a rejected edit of an approved entry). */
+async function restoreApproved(tem: EntityManager, complexId: string, approved: ComplexSnapshot) {
+  await tem.nativeDelete(Measurement, { complexId });
+  for (const m of approved.measurements) {
+    await tem.insert(Measurement, {
+      id: m.id,
+      complexId,
+      kind: m.kind,
+      value: m.value,
+      unit: m.unit,
+      temperatureK: m.temperatureK,
+      ionicStrengthM: m.ionicStrengthM,
+      medium: m.medium,
+      method: m.method,
+      partnerFormula: m.partnerFormula,
+      // The citation may have been deleted with its group only; keep the link when it still exists.
+      citationId: m.citation && (await tem.count(Citation, { id: m.citation.id })) > 0 ? m.citation.id : null,
+      notes: m.notes,
+      createdAt: new Date(m.createdAt),
+      updatedAt: new Date(m.updatedAt),
+    });
+  }
+}
+
+export async function reviewComplex(em: EntityManager, actor: Actor, id: string, input: ReviewInput): Promise<ReviewResponse> {
+  const entry = await loadEntry(em, actor, id);
+  ensureAllowed(entry, 'review');
+  const { complex } = entry;
+  let selfApproved = false;
+  if (input.decision === 'approve' && complex.submittedById === actor.userId) {
+    const reviewers = await reviewerCount(em, complex.groupId);
+    if (reviewers > 1) {
+      throw new AppError(
+        'CONFLICT',
+        'You cannot approve your own submission: another curator of this group must review it (you may still request changes or reject it).',
+      );
+    }
+    selfApproved = true;
+  }
+  const basedOn = await basedOnVersion(em, actor, entry, input.version);
+  const approved = complex.approvedSnapshot ?? null;
+  const restore = input.decision === 'reject' && approved != null;
+  const to: ComplexStatus =
+    input.decision === 'approve' ? 'approved' : input.decision === 'request-changes' ? 'changes-requested' : restore ? 'approved' : 'rejected';
+  const set: ColumnChanges = { status: to };
+  if (restore && approved) {
+    Object.assign(set, { formula: approved.formula, name: approved.name, notes: approved.notes }, deriveColumns(approved.formula, approved.name));
+  }
+  const reviewId = randomUUID();
+  const auditAction =
+    input.decision === 'approve' ? 'library.entry.approved' : input.decision === 'request-changes' ? 'library.entry.changes-requested' : 'library.entry.rejected';
+  const messages: Record<ReviewInput['decision'], string> = {
+    approve: selfApproved ? 'Approved (by the submitter, the group’s only curator)' : 'Approved',
+    'request-changes': `Changes requested: ${input.comment}`,
+    reject: restore ? `Rejected: ${input.comment} — the approved version was restored` : `Rejected: ${input.comment}`,
+  };
+  await commit(em, actor, complex, basedOn, {
+    set,
+    apply: async (tem, newVersion) => {
+      if (restore && approved) await restoreApproved(tem, complex.id, approved);
+      await tem.insert(ComplexReview, {
+        id: reviewId,
+        complexId: complex.id,
+        revisionNumber: newVersion,
+        decision: input.decision,
+        comment: input.comment,
+        reviewerId: actor.userId,
+        selfApproved,
+        createdAt: new Date(),
+      });
+    },
+    withSnapshot: async (tem, snapshot, newVersion) => {
+      if (input.decision !== 'approve') return;
+      await tem.nativeUpdate(Complex, { id: complex.id }, { approvedSnapshot: snapshot, approvedVersion: newVersion, approvedAt: new Date() });
+    },
+    revision: { kind: 'review', message: messages[input.decision].slice(0, 500) },
+    audit: {
+      action: auditAction,
+      details: {
+        from: 'submitted',
+        to,
+        decision: input.decision,
+        comment: input.comment,
+        ...(selfApproved ? { selfApproved: true, reason: 'the submitter is the group’s only curator' } : {}),
+        ...(restore ? { restoredApprovedVersion: complex.approvedVersion } : {}),
+      },
+    },
+  });
+  const review = await em.findOneOrFail(ComplexReview, { id: reviewId });
+  emitLibraryEvent(em, {
+    type: 'reviewed',
+    complexId: complex.id,
+    groupId: complex.groupId,
+    formula: complex.formula,
+    name: complex.name,
+    actorId: actor.userId,
+    decision: input.decision,
+    comment: input.comment,
+    submitterId: complex.submittedById ?? null,
+  });
+  const people = await peopleNames(em, [actor.userId]);
+  return {
+    review: {
+      id: review.id,
+      complexId: review.complexId,
+      revisionNumber: review.revisionNumber,
+      decision: review.decision,
+      comment: review.comment,
+      reviewer: personRef(people, review.reviewerId),
+      selfApproved: review.selfApproved,
+      createdAt: review.createdAt.toISOString(),
+    },
+    complex: await respond(em, actor, id),
+  };
+}
+
+export async function retireComplex(em: EntityManager, actor: Actor, id: string, input: TransitionInput): Promise<ComplexDetail> {
+  const entry = await loadEntry(em, actor, id);
+  ensureAllowed(entry, 'retire');
+  const basedOn = await basedOnVersion(em, actor, entry, input.version);
+  await commit(em, actor, entry.complex, basedOn, {
+    set: { status: 'retired' },
+    revision: { kind: 'retire', message: input.message ?? 'Retired' },
+    audit: { action: 'library.entry.retired', details: { from: entry.complex.status, to: 'retired' } },
+  });
+  return respond(em, actor, id);
+}
+
+// ───────────────────────────── revisions ─────────────────────────────
+
+/** Readers of the published view see the history up to the approved version only. */
+async function visibleRevisions(em: EntityManager, entry: LoadedEntry) {
+  const view = viewFor(entry.reader, facts(entry.complex));
+  const where =
+    view === 'published'
+      ? { complexId: entry.complex.id, number: { $lte: entry.complex.approvedVersion ?? 0 } }
+      : { complexId: entry.complex.id };
+  return em.find(ComplexRevision, where, { orderBy: { number: 'desc' } });
+}
+
+function toRevisionDto(row: InferEntity<typeof ComplexRevision>, people: Map<string, string>): RevisionDto {
+  return {
+    id: row.id,
+    number: row.number,
+    kind: row.kind,
+    status: row.status,
+    message: row.message,
+    author: personRef(people, row.authorId),
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+export async function listRevisions(em: EntityManager, actor: Actor, id: string): Promise<RevisionDto[]> {
+  const entry = await loadEntry(em, actor, id);
+  const rows = await visibleRevisions(em, entry);
+  const people = await peopleNames(em, rows.map((r) => r.authorId));
+  return rows.map((row) => toRevisionDto(row, people));
+}
+
+export async function getRevision(em: EntityManager, actor: Actor, id: string, number: number): Promise<RevisionDetail> {
+  const entry = await loadEntry(em, actor, id);
+  const row = (await visibleRevisions(em, entry)).find((r) => r.number === number);
+  if (!row) throw notFound(`Revision ${number} of this entry`);
+  const people = await peopleNames(em, [row.authorId]);
+  return { ...toRevisionDto(row, people), snapshot: row.snapshot };
+}
+
+export async function diffRevisions(em: EntityManager, actor: Actor, id: string, from: number, to: number): Promise<RevisionDiff> {
+  const entry = await loadEntry(em, actor, id);
+  const rows = await visibleRevisions(em, entry);
+  const before = rows.find((r) => r.number === from);
+  const after = rows.find((r) => r.number === to);
+  if (!before) throw notFound(`Revision ${from} of this entry`);
+  if (!after) throw notFound(`Revision ${to} of this entry`);
+  return diffSnapshots(from, to, before.snapshot, after.snapshot);
+}

@@ -1,0 +1,160 @@
+import { Router, type Request } from 'express';
+import {
+  complexSearchQuerySchema,
+  createCitationInputSchema,
+  createComplexInputSchema,
+  createLigandInputSchema,
+  diffQuerySchema,
+  measuredQuerySchema,
+  measurementInputSchema,
+  reviewInputSchema,
+  transitionInputSchema,
+  updateComplexInputSchema,
+  updateMeasurementInputSchema,
+} from '@/lib/schemas/library';
+import { z } from 'zod';
+import type { Orm } from '@/server/db/orm';
+import { getAuth, getMembership, isUuid, requireAuth, requireGroupRole } from '@/server/http/auth-middleware';
+import { AppError } from '@/server/http/errors';
+import { parseWith } from '@/server/http/validate';
+import { findOrCreateCitation, listCitations } from './citation.service';
+import * as complexes from './complex.service';
+import { reviewQueue, searchComplexes } from './complex-search';
+import { classifyOrExplain } from './derive';
+import { membershipIn, resolveGroup } from './library-access';
+import { addLigand, listLigands } from './ligand.service';
+import { findLibraryMeasurements } from './measured.service';
+
+/** Path ids that are not UUIDs name nothing: 404, the same as an unknown id. */
+function pathId(req: Request, param: string, what: string): string {
+  const value = req.params[param];
+  if (!isUuid(value)) throw new AppError('NOT_FOUND', `${what} was not found.`);
+  return value;
+}
+
+const versionQuerySchema = z.object({ version: z.coerce.number().int().min(1).optional() }).strict();
+const groupQuerySchema = z.object({ groupId: z.uuid('groupId must be a group id.').optional() }).strict();
+
+/**
+ * The curated library (issue 6). Every route needs a session; the group comes from the entry
+ * (or `groupId`, defaulting to the person's only group) and membership + role are checked by the
+ * services (library-access.ts) or by requireGroupRole for /groups/:groupId/… routes.
+ */
+export function libraryRoutes(orm: Orm): Router {
+  const router = Router();
+  const em = () => orm.em.fork();
+  const actor = (res: Parameters<typeof getAuth>[0]) => ({ userId: getAuth(res).user.id });
+
+  router.get('/complexes', requireAuth, async (req, res) => {
+    const query = parseWith(complexSearchQuerySchema, req.query, 'query');
+    res.json(await searchComplexes(em(), actor(res).userId, query));
+  });
+
+  router.post('/complexes', requireAuth, async (req, res) => {
+    const input = parseWith(createComplexInputSchema, req.body);
+    res.status(201).json(await complexes.createComplex(em(), actor(res), input));
+  });
+
+  router.get('/complexes/:id', requireAuth, async (req, res) => {
+    res.json(await complexes.getComplex(em(), actor(res), pathId(req, 'id', 'That library entry')));
+  });
+
+  router.patch('/complexes/:id', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    const input = parseWith(updateComplexInputSchema, req.body);
+    res.json(await complexes.updateComplex(em(), actor(res), id, input));
+  });
+
+  router.post('/complexes/:id/submit', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    res.json(await complexes.submitComplex(em(), actor(res), id, parseWith(transitionInputSchema, req.body ?? {})));
+  });
+
+  router.post('/complexes/:id/reviews', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    res.status(201).json(await complexes.reviewComplex(em(), actor(res), id, parseWith(reviewInputSchema, req.body)));
+  });
+
+  router.post('/complexes/:id/retire', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    res.json(await complexes.retireComplex(em(), actor(res), id, parseWith(transitionInputSchema, req.body ?? {})));
+  });
+
+  router.get('/complexes/:id/revisions', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    res.json({ revisions: await complexes.listRevisions(em(), actor(res), id) });
+  });
+
+  router.get('/complexes/:id/revisions/diff', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    const { from, to } = parseWith(diffQuerySchema, req.query, 'query');
+    res.json(await complexes.diffRevisions(em(), actor(res), id, from, to));
+  });
+
+  router.get('/complexes/:id/revisions/:number', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    const number = Number(req.params.number);
+    if (!Number.isInteger(number) || number < 1) throw new AppError('NOT_FOUND', 'That revision was not found.');
+    res.json(await complexes.getRevision(em(), actor(res), id, number));
+  });
+
+  router.post('/complexes/:id/measurements', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    res.status(201).json(await complexes.addMeasurement(em(), actor(res), id, parseWith(measurementInputSchema, req.body)));
+  });
+
+  router.patch('/complexes/:id/measurements/:mid', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    const mid = pathId(req, 'mid', 'That measurement');
+    res.json(await complexes.updateMeasurement(em(), actor(res), id, mid, parseWith(updateMeasurementInputSchema, req.body)));
+  });
+
+  router.delete('/complexes/:id/measurements/:mid', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    const mid = pathId(req, 'mid', 'That measurement');
+    const { version } = parseWith(versionQuerySchema, req.query, 'query');
+    res.json(await complexes.deleteMeasurement(em(), actor(res), id, mid, version));
+  });
+
+  router.get('/review-queue', requireAuth, async (_req, res) => {
+    res.json(await reviewQueue(em(), actor(res).userId));
+  });
+
+  router.get('/citations', requireAuth, async (req, res) => {
+    const { groupId } = parseWith(groupQuerySchema, req.query, 'query');
+    const membership = await resolveGroup(em(), actor(res).userId, groupId);
+    res.json({ citations: await listCitations(em(), membership.groupId) });
+  });
+
+  router.post('/citations', requireAuth, async (req, res) => {
+    const { groupId, ...citation } = parseWith(createCitationInputSchema, req.body);
+    const manager = em();
+    const membership = await resolveGroup(manager, actor(res).userId, groupId);
+    if (membership.role === 'viewer') throw new AppError('FORBIDDEN', 'Viewers cannot add citations; contributors and curators can.');
+    const result = await findOrCreateCitation(manager, membership.groupId, citation, actor(res).userId);
+    res.status(result.created ? 201 : 200).json(result.citation);
+  });
+
+  router.get('/ligands', requireAuth, async (req, res) => {
+    const { groupId } = parseWith(groupQuerySchema, req.query, 'query');
+    if (groupId && !(await membershipIn(em(), actor(res).userId, groupId))) {
+      throw new AppError('NOT_FOUND', 'That group was not found.');
+    }
+    res.json({ ligands: await listLigands(em(), groupId ?? null) });
+  });
+
+  router.post('/groups/:groupId/ligands', requireGroupRole('curator'), async (req, res) => {
+    const input = parseWith(createLigandInputSchema, req.body);
+    res.status(201).json(await addLigand(em(), getMembership(res).groupId, getAuth(res).user.id, input));
+  });
+
+  // Measured meets predicted: GET rather than a change to POST /api/classify, which stays public and stateless.
+  router.get('/groups/:groupId/measured', requireGroupRole('viewer'), async (req, res) => {
+    const { formula } = parseWith(measuredQuerySchema, req.query, 'query');
+    const classification = classifyOrExplain(formula);
+    const libraryMeasurements = await findLibraryMeasurements(em(), classification, getMembership(res).groupId);
+    res.json({ formula, classification, libraryMeasurements });
+  });
+
+  return router;
+}

@@ -1,0 +1,41 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import type { Classification } from '@/lib/chem/types';
+import type { ComplexSnapshot, LibraryMeasurement } from '@/lib/schemas/library';
+import { classifyOrExplain, ligandSetKeyOf } from './derive';
+
+/**
+ * Measured meets predicted: the approved measurements a group holds for the same complex as a
+ * classification — same metal, oxidation state and ligand set (ligand ids with their counts, so
+ * "[Co(NH3)5(OH2)]3+" and "[Co(H2O)(NH3)5]3+" match, and counter-ions or hydrate water do not
+ * matter). Only approved snapshots count (what viewers see), never drafts or retired entries.
+ */
+export async function findLibraryMeasurements(
+  em: EntityManager,
+  classification: Pick<Classification, 'metal' | 'oxidationState' | 'ligands'>,
+  groupId: string,
+): Promise<LibraryMeasurement[]> {
+  const key = ligandSetKeyOf(classification.ligands);
+  // The stored columns narrow by index; the approved snapshot decides (a pending edit may differ).
+  const rows = await em.execute<{ id: string; approved_snapshot: ComplexSnapshot }[]>(
+    `select c.id, c.approved_snapshot from complex c
+      where c.group_id = ? and c.metal = ? and c.approved_snapshot is not null and c.status <> 'retired'
+      order by c.id`,
+    [groupId, classification.metal],
+  );
+  const found: LibraryMeasurement[] = [];
+  for (const row of rows) {
+    const snapshot = row.approved_snapshot;
+    if (snapshot.oxidationState !== classification.oxidationState) continue;
+    let snapshotKey: string;
+    try {
+      snapshotKey = ligandSetKeyOf(classifyOrExplain(snapshot.formula).ligands);
+    } catch {
+      continue;
+    }
+    if (snapshotKey !== key) continue;
+    for (const m of snapshot.measurements) {
+      found.push({ ...m, complexId: row.id, complexFormula: snapshot.formula, complexName: snapshot.name });
+    }
+  }
+  return found;
+}

@@ -1,0 +1,103 @@
+import { fireEvent, screen, waitFor } from '@testing-library/react-native';
+import { ForgotPasswordScreen } from '@/components/account/forgot-password-screen';
+import { ResetPasswordScreen } from '@/components/account/reset-password-screen';
+import { SignUpScreen } from '@/components/account/sign-up-screen';
+import { apiError, mockFetch, renderWithQueries } from './test-kit';
+
+// jest.mock factories run before imports, so the stand-in is required inside.
+// eslint-disable-next-line @typescript-eslint/no-require-imports
+jest.mock('expo-router', () => require('./expo-router-mock').expoRouterMock);
+jest.setTimeout(20_000);
+
+/** Every string in a rendered tree, in order (what a reader would see). */
+function textOf(node: unknown): string {
+  if (typeof node === 'string') return node;
+  if (Array.isArray(node)) return node.map(textOf).join('');
+  if (node && typeof node === 'object' && 'children' in node) return textOf((node as { children: unknown }).children);
+  return '';
+}
+
+const TOKEN = 'a-reset-token-of-enough-length-0123456789';
+
+describe('ResetPasswordScreen', () => {
+  it('asks for the same password twice before sending anything', async () => {
+    const { fetchMock } = mockFetch({});
+    renderWithQueries(<ResetPasswordScreen token={TOKEN} />);
+    fireEvent.changeText(screen.getByTestId('reset-password'), 'violet cobalt ammine');
+    fireEvent.changeText(screen.getByTestId('reset-password-confirm'), 'violet cobalt amine');
+    fireEvent.press(screen.getByTestId('reset-submit'));
+    expect(await screen.findByTestId('reset-password-confirm-error')).toHaveTextContent(/The two passwords differ/);
+    expect(fetchMock).not.toHaveBeenCalled();
+  });
+
+  it('shows the server’s weak-password reason on the password field and sends only token and password', async () => {
+    const { calls } = mockFetch({
+      'POST /api/auth/password-reset/confirm': apiError(400, 'VALIDATION_FAILED', 'The password is too weak: This password is on a list of commonly used passwords: choose another.', {
+        password: 'This password is on a list of commonly used passwords: choose another.',
+      }),
+    });
+    renderWithQueries(<ResetPasswordScreen token={TOKEN} />);
+    fireEvent.changeText(screen.getByTestId('reset-password'), 'password123');
+    fireEvent.changeText(screen.getByTestId('reset-password-confirm'), 'password123');
+    fireEvent.press(screen.getByTestId('reset-submit'));
+    expect(await screen.findByTestId('reset-password-error')).toHaveTextContent(/commonly used passwords/);
+    expect(calls[0]?.body).toEqual({ token: TOKEN, password: 'password123' });
+  });
+
+  it('explains a spent link and offers a new one', async () => {
+    mockFetch({
+      'POST /api/auth/password-reset/confirm': apiError(400, 'VALIDATION_FAILED', 'This link is not valid any more.', { token: 'invalid, used or expired' }),
+    });
+    renderWithQueries(<ResetPasswordScreen token={TOKEN} />);
+    fireEvent.changeText(screen.getByTestId('reset-password'), 'teal paper ligand field');
+    fireEvent.changeText(screen.getByTestId('reset-password-confirm'), 'teal paper ligand field');
+    fireEvent.press(screen.getByTestId('reset-submit'));
+    expect(await screen.findByTestId('reset-form-error')).toHaveTextContent(/no longer works/);
+    expect(screen.getByTestId('reset-request-new')).toBeTruthy();
+  });
+
+  it('says the link is needed when there is no token', () => {
+    mockFetch({});
+    renderWithQueries(<ResetPasswordScreen token="" />);
+    expect(screen.getByTestId('reset-missing-token')).toBeTruthy();
+    expect(screen.queryByTestId('reset-submit')).toBeNull();
+  });
+});
+
+describe('ForgotPasswordScreen', () => {
+  it('confirms in the same words whatever the address', async () => {
+    mockFetch({ 'POST /api/auth/password-reset/request': { status: 202, body: { message: 'queued' } } });
+    const confirmationFor = async (email: string) => {
+      const view = renderWithQueries(<ForgotPasswordScreen />);
+      fireEvent.changeText(screen.getByTestId('forgot-email'), email);
+      fireEvent.press(screen.getByTestId('forgot-submit'));
+      await screen.findByTestId('forgot-done');
+      const words = textOf(view.toJSON()).replaceAll(email, '<address>');
+      view.unmount();
+      return words;
+    };
+    const known = await confirmationFor('admin@larkspur.example.org');
+    const unknown = await confirmationFor('nobody-here@example.org');
+    expect(known).toContain('If <address> belongs to a Sphereline account, a link to choose a new password is on its way.');
+    expect(unknown).toBe(known);
+  });
+});
+
+describe('SignUpScreen', () => {
+  it('explains the password rules, then switches to a check-your-e-mail state', async () => {
+    const { calls } = mockFetch({ 'POST /api/auth/sign-up': { status: 202, body: { message: 'sent' } } });
+    renderWithQueries(<SignUpScreen email="viewer@larkspur.example.org" />);
+    expect(screen.getByTestId('sign-up-password-hint')).toHaveTextContent(/At least 10 characters/);
+    expect(screen.getByTestId('sign-up-email').props.value).toBe('viewer@larkspur.example.org');
+    fireEvent.changeText(screen.getByTestId('sign-up-display-name'), 'K. Visiting');
+    fireEvent.changeText(screen.getByTestId('sign-up-password'), 'outer sphere bridge');
+    fireEvent.press(screen.getByTestId('sign-up-submit'));
+    expect(await screen.findByTestId('sign-up-done')).toHaveTextContent(/viewer@larkspur\.example\.org/);
+    await waitFor(() => expect(calls.some((call) => call.url === '/api/auth/sign-up')).toBe(true));
+    expect(calls.find((call) => call.url === '/api/auth/sign-up')?.body).toEqual({
+      displayName: 'K. Visiting',
+      email: 'viewer@larkspur.example.org',
+      password: 'outer sphere bridge',
+    });
+  });
+});

@@ -1,0 +1,131 @@
+import { fireEvent, screen, waitFor } from '@testing-library/react-native';
+import { ComplexFormScreen } from '@/components/library/complex-form';
+import { apiError, mockFetch, renderWithQueries } from '../account/test-kit';
+import { routerCalls } from '../account/expo-router-mock';
+import { contributorMe, detail } from './library-fixtures';
+
+jest.mock('expo-router', () => require('../account/expo-router-mock').expoRouterMock);
+
+beforeEach(() => jest.clearAllMocks());
+
+describe('ComplexFormScreen (new entry)', () => {
+  it('checks the formula live and points at the character the engine cannot read', async () => {
+    mockFetch({ 'GET /api/auth/me': { status: 200, body: contributorMe } });
+    renderWithQueries(<ComplexFormScreen mode="create" />);
+    fireEvent.changeText(await screen.findByTestId('complex-form-formula'), '[Co(NH3)6]3+');
+    // Co(III) with six ammines is low-spin d6 and inert (common practice: Taube's classification).
+    expect(await screen.findByTestId('complex-form-preview')).toHaveTextContent(/Co\(III\) · d6 low-spin/);
+    expect(screen.getByTestId('complex-form-preview')).toHaveTextContent(/inert/);
+    fireEvent.changeText(screen.getByTestId('complex-form-formula'), '[Co(NH3)6');
+    expect(await screen.findByTestId('complex-form-formula-problem')).toHaveTextContent(/\(character \d+\)/);
+    expect(screen.queryByTestId('complex-form-preview')).toBeNull();
+  });
+
+  it('applies the shared measurement rules per kind before sending anything', async () => {
+    const { fetchMock } = mockFetch({ 'GET /api/auth/me': { status: 200, body: contributorMe } });
+    renderWithQueries(<ComplexFormScreen mode="create" />);
+    fireEvent.changeText(await screen.findByTestId('complex-form-formula'), '[Cr(H2O)6]3+');
+    fireEvent.changeText(screen.getByTestId('complex-form-name'), 'hexaaquachromium(III)');
+    fireEvent.press(screen.getByTestId('complex-form-add-measurement'));
+    // The unit shown follows the kind: water exchange is first order.
+    expect(screen.getByTestId('complex-form-m-0-unit-s-1')).toBeTruthy();
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-value'), '-2');
+    fireEvent.press(screen.getByTestId('complex-form-save'));
+    // Wording from measurementKindRules / checkMeasurement in lib/schemas/library.ts.
+    expect(await screen.findByTestId('complex-form-m-0-value-error')).toHaveTextContent('Water exchange (k_ex) must be greater than zero.');
+    // Cross reactions need their partner.
+    fireEvent.press(screen.getByTestId('complex-form-m-0-kind-cross-reaction'));
+    expect(screen.getByTestId('complex-form-m-0-unit-M-1 s-1')).toBeTruthy();
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-value'), '3e3');
+    fireEvent.press(screen.getByTestId('complex-form-save'));
+    expect(await screen.findByTestId('complex-form-m-0-partner-error')).toHaveTextContent('A cross reaction (k12) needs the formula of its partner.');
+    expect(fetchMock.mock.calls.filter(([url]) => String(url).startsWith('/api/complexes'))).toHaveLength(0);
+  });
+
+  it('sends the entry with its measurement and cited source, and puts server field problems on their fields', async () => {
+    const { calls } = mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'POST /api/complexes': apiError(400, 'VALIDATION_FAILED', 'The request body is not valid.', {
+        'measurements.0.citation.journal': 'Give the journal or book.',
+      }),
+    });
+    renderWithQueries(<ComplexFormScreen mode="create" />);
+    fireEvent.changeText(await screen.findByTestId('complex-form-formula'), '[Cr(H2O)6]3+');
+    fireEvent.changeText(screen.getByTestId('complex-form-name'), 'hexaaquachromium(III)');
+    fireEvent.press(screen.getByTestId('complex-form-add-measurement'));
+    // [Cr(H2O)6]3+ water exchange 2.4e-6 s-1 at 298 K (Xu, Krouse & Swaddle, Inorg. Chem. 1985, 24, 267).
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-value'), '2.4e-6');
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-authors'), 'F.-C. Xu, H. R. Krouse, T. W. Swaddle');
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-journal'), 'Inorg. Chem.');
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-year'), '1985');
+    fireEvent.press(screen.getByTestId('complex-form-save'));
+    expect(await screen.findByTestId('complex-form-m-0-journal-error')).toHaveTextContent('Give the journal or book.');
+    const sent = calls.find((c) => c.method === 'POST')?.body as { groupId: string; measurements: { value: number; unit: string; temperatureK: number; citation: { year: number } }[] };
+    expect(sent.groupId).toBe(contributorMe.memberships[0]?.groupId);
+    expect(sent.measurements[0]).toMatchObject({ value: 2.4e-6, unit: 's-1', temperatureK: 298.15, citation: { year: 1985 } });
+    expect(screen.queryByTestId('complex-form-error')).toBeNull();
+  });
+});
+
+describe('ComplexFormScreen (edit)', () => {
+  it('on a stale version shows the entry as it is now and re-applies the change on top of it', async () => {
+    const opened = detail({ version: 3 });
+    const current = detail({ version: 4, name: 'hexaaquachromium(III) ion', updatedAt: '2026-01-06T09:30:00.000Z' });
+    const saved = detail({ version: 5, name: 'chromium(III) hexahydrate' });
+    let patches = 0;
+    const { calls } = mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes/c-cr-aqua': { status: 200, body: opened },
+      'PATCH /api/complexes/c-cr-aqua': () =>
+        patches++ === 0
+          ? { status: 409, body: { error: { code: 'CONFLICT', message: 'This entry was changed by someone else.', currentVersion: 4, current } } }
+          : { status: 200, body: saved },
+    });
+    renderWithQueries(<ComplexFormScreen mode="edit" complexId="c-cr-aqua" />);
+    fireEvent.changeText(await screen.findByTestId('complex-form-name'), 'chromium(III) hexahydrate');
+    fireEvent.press(screen.getByTestId('complex-form-save'));
+    const conflict = await screen.findByTestId('complex-conflict');
+    expect(conflict).toHaveTextContent(/Someone else saved this entry since you opened it/);
+    expect(screen.getByTestId('complex-conflict-name')).toHaveTextContent('hexaaquachromium(III) ion');
+    expect(routerCalls.replace).not.toHaveBeenCalled();
+    // What was typed is still in the form.
+    expect(screen.getByTestId('complex-form-name').props.value).toBe('chromium(III) hexahydrate');
+
+    fireEvent.press(screen.getByTestId('complex-conflict-reapply'));
+    fireEvent.press(screen.getByTestId('complex-form-save'));
+    await waitFor(() => expect(routerCalls.replace).toHaveBeenCalledWith('/library/c-cr-aqua'));
+    const patchBodies = calls.filter((c) => c.method === 'PATCH').map((c) => c.body);
+    expect(patchBodies).toEqual([
+      { name: 'chromium(III) hexahydrate', version: 3 },
+      { name: 'chromium(III) hexahydrate', version: 4 },
+    ]);
+  });
+
+  it('can drop the change and load the current version instead', async () => {
+    const current = detail({ version: 4, name: 'hexaaquachromium(III) ion' });
+    mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes/c-cr-aqua': { status: 200, body: detail({ version: 3 }) },
+      'PATCH /api/complexes/c-cr-aqua': { status: 409, body: { error: { code: 'CONFLICT', message: 'Stale.', currentVersion: 4, current } } },
+    });
+    renderWithQueries(<ComplexFormScreen mode="edit" complexId="c-cr-aqua" />);
+    fireEvent.changeText(await screen.findByTestId('complex-form-name'), 'my name');
+    fireEvent.press(screen.getByTestId('complex-form-save'));
+    fireEvent.press(await screen.findByTestId('complex-conflict-discard'));
+    expect(screen.getByTestId('complex-form-name').props.value).toBe('hexaaquachromium(III) ion');
+    expect(screen.queryByTestId('complex-conflict')).toBeNull();
+  });
+
+  it('saves a removed measurement as a versioned delete', async () => {
+    const { calls } = mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes/c-cr-aqua': { status: 200, body: detail({ version: 3 }) },
+      'DELETE /api/complexes/c-cr-aqua/measurements/m-1': { status: 200, body: detail({ version: 4, measurements: [] }) },
+    });
+    renderWithQueries(<ComplexFormScreen mode="edit" complexId="c-cr-aqua" />);
+    fireEvent.press(await screen.findByTestId('complex-form-m-0-remove'));
+    fireEvent.press(screen.getByTestId('complex-form-save'));
+    await waitFor(() => expect(routerCalls.replace).toHaveBeenCalledWith('/library/c-cr-aqua'));
+    expect(calls.find((c) => c.method === 'DELETE')?.url).toBe('/api/complexes/c-cr-aqua/measurements/m-1?version=3');
+  });
+});

@@ -1,0 +1,131 @@
+import { act, fireEvent, screen, waitFor } from '@testing-library/react-native';
+import { LibraryScreen } from '@/components/library/library-screen';
+import { apiError, mockFetch, renderWithQueries, type CannedResponse } from '../account/test-kit';
+import { contributorMe, listItem, listResponse, viewerMe } from './library-fixtures';
+
+jest.mock('expo-router', () => require('../account/expo-router-mock').expoRouterMock);
+// FlashList measures real layout; a FlatList renders the same rows in a test renderer.
+jest.mock('@shopify/flash-list', () => ({ FlashList: require('react-native').FlatList }));
+
+const chromium = listItem();
+const cobalt = listItem({
+  id: 'c-co-ammine',
+  formula: '[Co(NH3)6]3+',
+  name: 'hexaamminecobalt(III)',
+  metal: 'Co',
+  dElectrons: 6,
+  spinState: 'low',
+  ligandIds: ['NH3'],
+  status: 'submitted',
+});
+
+function renderLibrary(onSelect = jest.fn()) {
+  return renderWithQueries(<LibraryScreen selectedId={null} onSelect={onSelect} />);
+}
+
+describe('LibraryScreen', () => {
+  it('asks signed-out people to sign in, with the way back to the library', async () => {
+    mockFetch({ 'GET /api/auth/me': apiError(401, 'UNAUTHENTICATED', 'Sign in first.') });
+    renderLibrary();
+    expect(await screen.findByTestId('library-signed-out')).toHaveTextContent(/Sign in to see your group’s library/);
+    expect(screen.getByTestId('library-sign-in')).toHaveTextContent('Sign in to see your group’s library');
+  });
+
+  it('lists entries with formula sub/superscripts, verdict and status, and opens one', async () => {
+    mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes': { status: 200, body: listResponse([chromium, cobalt]) },
+    });
+    const onSelect = jest.fn();
+    renderLibrary(onSelect);
+    expect(await screen.findByTestId('library-item-1')).toBeTruthy();
+    expect(screen.getByTestId('library-item-0-formula')).toHaveTextContent('[Cr(H₂O)₆]³⁺');
+    expect(screen.getByTestId('library-item-1')).toHaveTextContent(/Co\(III\) · d6 low-spin/);
+    expect(screen.getByTestId('library-count')).toHaveTextContent('2 of 2 entries');
+    expect(screen.getAllByTestId('status-pill-submitted')).toHaveLength(1);
+    fireEvent.press(screen.getByTestId('library-item-1'));
+    expect(onSelect).toHaveBeenCalledWith('c-co-ammine');
+  });
+
+  it('narrows the loaded page at once while the server search is still pending', async () => {
+    const { calls } = mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes': { status: 200, body: listResponse([chromium, cobalt]) },
+    });
+    renderLibrary();
+    await screen.findByTestId('library-item-1');
+    fireEvent.changeText(screen.getByTestId('library-search'), 'cobalt');
+    // No new request yet (debounced), but the list already shows only the match.
+    expect(calls.filter((c) => c.url.startsWith('/api/complexes'))).toHaveLength(1);
+    expect(screen.getByTestId('library-item-0')).toHaveTextContent(/hexaamminecobalt/);
+    expect(screen.queryByTestId('library-item-1')).toBeNull();
+    await waitFor(() => expect(calls.some((c) => c.url.includes('q=cobalt'))).toBe(true));
+  });
+
+  it('sends filters to the server search', async () => {
+    const { calls } = mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes': { status: 200, body: listResponse([chromium]) },
+    });
+    renderLibrary();
+    await screen.findByTestId('library-item-0');
+    fireEvent.press(screen.getByTestId('library-filters-toggle'));
+    fireEvent.press(screen.getByTestId('library-filter-verdict-inert'));
+    fireEvent.press(screen.getByTestId('library-filter-d-3'));
+    await waitFor(() => expect(calls.some((c) => c.url.includes('verdict=inert') && c.url.includes('dCount=3'))).toBe(true));
+  });
+
+  it('invites contributors to add the first complex when the library is empty', async () => {
+    mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes': { status: 200, body: listResponse([]) },
+    });
+    renderLibrary();
+    expect(await screen.findByTestId('library-empty')).toHaveTextContent(/No entries yet — add the first complex/);
+    expect(screen.getByTestId('library-add-first')).toBeTruthy();
+  });
+
+  it('tells viewers how entries arrive, without an add button', async () => {
+    mockFetch({
+      'GET /api/auth/me': { status: 200, body: viewerMe },
+      'GET /api/complexes': { status: 200, body: listResponse([]) },
+    });
+    renderLibrary();
+    expect(await screen.findByTestId('library-empty')).toHaveTextContent(/No approved entries yet/);
+    expect(screen.queryByTestId('library-add-first')).toBeNull();
+    expect(screen.queryByTestId('library-new')).toBeNull();
+  });
+
+  it('loads the next page on request', async () => {
+    // A server page of one entry (pageSize 1) out of two.
+    const page1 = listResponse([chromium], 2, 1, 1);
+    const page2 = listResponse([cobalt], 2, 2, 1);
+    mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes': (() => {
+        let n = 0;
+        return () => ({ status: 200, body: n++ === 0 ? page1 : page2 });
+      })(),
+    });
+    renderLibrary();
+    fireEvent.press(await screen.findByTestId('library-load-more'));
+    expect(await screen.findByTestId('library-item-1')).toHaveTextContent(/hexaamminecobalt/);
+    expect(screen.getByTestId('library-count')).toHaveTextContent('2 of 2 entries');
+  });
+
+  it('keeps the loaded entries on screen when a refresh fails', async () => {
+    let answer: CannedResponse = { status: 200, body: listResponse([chromium]) };
+    mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes': () => answer,
+    });
+    const { client } = renderLibrary();
+    await screen.findByTestId('library-item-0');
+    answer = apiError(503, 'UNAVAILABLE', 'The database is not answering.');
+    await act(async () => {
+      await client.refetchQueries({ queryKey: ['complexes'] });
+    });
+    expect(await screen.findByTestId('library-stale')).toHaveTextContent(/Could not refresh/);
+    expect(screen.getByTestId('library-item-0')).toHaveTextContent(/hexaaquachromium/);
+  });
+});
