@@ -44,13 +44,16 @@ for (const size of Object.keys(viewports) as ViewportName[]) {
       await page.close();
     });
 
-    it('navigates to a tab and says plainly what is not built yet', async () => {
+    it('navigates between tabs from the navigation', async () => {
       const page = await browser.newPage({ viewport: viewports[size] });
       await page.goto(`${baseUrl()}/`);
-      await page.getByTestId('nav-review').click();
-      await page.getByTestId('review-not-built').waitFor();
-      assert.match(page.url(), /\/review$/);
-      await screenshot(page, `shell-review-${size}`);
+      await page.getByTestId('nav-check').click();
+      await page.getByTestId('check-empty').waitFor();
+      assert.match(page.url(), /\/check$/);
+      await page.getByTestId('nav-library').click();
+      await page.getByTestId('library-signed-out').waitFor();
+      assert.match(page.url(), /\/library$/);
+      await screenshot(page, `shell-library-signed-out-${size}`);
       await page.close();
     });
   });
