@@ -5,6 +5,7 @@ import { DEMO_GROUPS, DEMO_PASSWORD } from '@/server/modules/auth/demo-accounts'
 import { ResearchGroup } from '@/server/modules/groups/group.entity';
 import { createTestApp, type TestApp } from '../setup/test-app';
 import { Browser } from './auth-helpers';
+import { generateSyntheticEntries } from '@/server/modules/library/generate';
 
 let t: TestApp;
 let groupId: string;
@@ -82,5 +83,19 @@ describe('the Larkspur demo library', () => {
     const curator = await signedIn('curator@larkspur.example.org');
     const all = complexListResponseSchema.parse((await curator.get(`/api/complexes?groupId=${groupId}&pageSize=100`)).body);
     expect(all.total).toBe(demoLibrary.complexes.length);
+  });
+
+  it('the benchmark generator adds N approved, searchable entries to a group in one go', async () => {
+    const fenwick = await t.orm.em.fork().findOneOrFail(ResearchGroup, { name: DEMO_GROUPS.fenwick });
+    await generateSyntheticEntries(t.orm.em.fork(), { groupId: fenwick.id, count: 150 });
+    const admin = await signedIn('fenwick-admin@fenwick.example.org');
+    const all = complexListResponseSchema.parse((await admin.get(`/api/complexes?groupId=${fenwick.id}&pageSize=5`)).body);
+    expect(all.total).toBe(150);
+    const cobalt = complexListResponseSchema.parse((await admin.get(`/api/complexes?groupId=${fenwick.id}&metal=Co&measurementKind=water-exchange`)).body);
+    expect(cobalt.items.every((i) => i.metal === 'Co' && i.measurementKinds.includes('water-exchange'))).toBe(true);
+    // Nothing leaks into the Larkspur library.
+    const curator = await signedIn('curator@larkspur.example.org');
+    const larkspur = complexListResponseSchema.parse((await curator.get(`/api/complexes?groupId=${groupId}&pageSize=1`)).body);
+    expect(larkspur.total).toBe(demoLibrary.complexes.length);
   });
 });

@@ -12,7 +12,6 @@ import { Complex } from '@/server/modules/library/complex.entity';
 import { toCitationDto, toSnapshot } from '@/server/modules/library/complex.mapper';
 import { membershipIn, resolveGroup, type MembershipInfo } from '@/server/modules/library/library-access';
 import { Measurement } from '@/server/modules/library/measurement.entity';
-import { ComplexRevision } from '@/server/modules/library/revision.entity';
 import { mapColumns, readCsvTable } from './csv-file';
 import { ImportJob } from './import-job.entity';
 import { validateRows, type PlannedEntry } from './import-validate';
@@ -172,7 +171,6 @@ async function runJob(
       });
     }
     await em.nativeUpdate(ImportJob, { id: job.id }, { state: 'importing', processed: 0, heartbeatAt: new Date(), updatedAt: new Date() });
-    console.log('validated', performance.now()-started);
     const complexIds = await writeEntries(orm, job, request.userId, result.entries);
     return await finish({
       ...counts,
@@ -246,14 +244,12 @@ async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entr
     // The job's group may have lost this person between the POST and now.
     const membership = await membershipIn(tem, userId, job.groupId);
     if (!membership || !roleAtLeast(membership.role, 'contributor')) throw new AppError('FORBIDDEN', 'You are no longer a contributor of this group.');
-    console.time('cit');
     const citations = await resolveCitations(tem, job.groupId, userId, entries);
-    console.timeEnd('cit');console.time('build');
     const now = new Date();
     const complexRows: Record<string, unknown>[] = [];
     const measurementRows: Record<string, unknown>[] = [];
-    const revisionRows: Record<string, unknown>[] = [];
-    const auditRows: Record<string, unknown>[] = [];
+    const revisionRows: { id: string; complexId: string; number: number; kind: string; status: string; message: string; snapshot: ComplexSnapshot; authorId: string; createdAt: Date }[] = [];
+    const auditRows: { id: string; actorId: string; groupId: string; action: string; subjectType: string; subjectId: string; details: Record<string, unknown>; createdAt: Date }[] = [];
     for (const entry of entries) {
       const id = randomUUID();
       ids.push(id);
@@ -330,18 +326,32 @@ async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entr
     let written = 0;
     const report = () =>
       orm.em.fork().nativeUpdate(ImportJob, { id: job.id }, { processed: Math.min(written, job.total), heartbeatAt: new Date(), updatedAt: new Date() }).catch(() => 0);
-    console.timeEnd('build');console.time('cx');
     for (const part of chunks(complexRows)) await tem.insertMany(Complex, part as never[]);
-    console.timeEnd('cx');console.time('ms');
     for (const part of chunks(measurementRows, 1000)) {
       await tem.insertMany(Measurement, part as never[]);
       written += part.length;
       await report();
     }
-    console.timeEnd('ms');console.time('rev');
-    for (const part of chunks(revisionRows)) await tem.insertMany(ComplexRevision, part as never[]);
-    console.timeEnd('rev');console.time('aud');
-    for (const part of chunks(auditRows)) await tem.insertMany(AuditEvent, part as never[]);
+    // Snapshots are large JSON documents: one statement per chunk, the rows travelling as one JSON
+    // parameter that PostgreSQL unpacks (jsonb_to_recordset), is ~4x faster than the ORM's insert here.
+    for (const part of chunks(revisionRows, 1000)) {
+      await tem.execute(
+        `insert into complex_revision (id, complex_id, number, kind, status, message, snapshot, author_id, created_at)
+         select id, complex_id, number, kind, status, message, snapshot, author_id, created_at
+           from jsonb_to_recordset(?::jsonb) as x(id uuid, complex_id uuid, number int, kind text, status text, message text,
+                                                  snapshot jsonb, author_id uuid, created_at timestamptz)`,
+        [JSON.stringify(part.map((r) => ({ id: r.id, complex_id: r.complexId, number: r.number, kind: r.kind, status: r.status, message: r.message, snapshot: r.snapshot, author_id: r.authorId, created_at: r.createdAt })))],
+      );
+    }
+    for (const part of chunks(auditRows, 1000)) {
+      await tem.execute(
+        `insert into audit_event (id, actor_id, group_id, action, subject_type, subject_id, details, created_at)
+         select id, actor_id, group_id, action, subject_type, subject_id, details, created_at
+           from jsonb_to_recordset(?::jsonb) as x(id uuid, actor_id uuid, group_id uuid, action text, subject_type text, subject_id text,
+                                                  details jsonb, created_at timestamptz)`,
+        [JSON.stringify(part.map((r) => ({ id: r.id, actor_id: r.actorId, group_id: r.groupId, action: r.action, subject_type: r.subjectType, subject_id: r.subjectId, details: r.details, created_at: r.createdAt })))],
+      );
+    }
     await tem.insertMany(AuditEvent, [
       {
         id: randomUUID(),
@@ -354,7 +364,6 @@ async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entr
         createdAt: now,
       },
     ]);
-    console.timeEnd('aud');
     written = job.total;
     await report();
   });

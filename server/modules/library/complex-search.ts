@@ -123,24 +123,33 @@ export async function searchComplexes(em: EntityManager, userId: string, query: 
     params.push(...vis.fullParams, query.status);
   }
 
-  const order = tokens.length > 0 ? 'rank desc, c.id asc' : 'lower(c.name) asc, c.id asc';
+  const order = tokens.length > 0 ? 'rank desc, id asc' : 'sort_name asc, id asc';
+  const outerOrder = tokens.length > 0 ? 'p.rank desc, p.id asc' : 'p.sort_name asc, p.id asc';
   const offset = (query.page - 1) * query.pageSize;
+  // Rank, visibility and order key once per match (materialised CTE); counting and the page come
+  // from it; the heavier columns (snapshot, measurement count, author) only for the page's rows.
   const sql = `
+    with hits as materialized (
+      select c.id, ${rankSql} as rank, ${vis.full} as full_view, lower(c.name) as sort_name
+        from complex c
+       where ${where.join(' and ')}
+    ), page as (
+      select * from hits order by ${order} limit ? offset ?
+    )
     select c.id, c.group_id, c.formula, c.name, c.status, c.metal, c.oxidation_state, c.d_electrons, c.spin_state,
            c.verdict, c.ligand_ids, c.measurement_kinds, c.has_citation, c.version, c.updated_at, c.created_by_id,
-           ${vis.full} as full_view,
-           case when ${vis.full} then null else c.approved_snapshot end as approved_snapshot,
+           p.full_view,
+           case when p.full_view then null else c.approved_snapshot end as approved_snapshot,
            (c.approved_snapshot is not null) as has_approved,
            (select count(*) from measurement m where m.complex_id = c.id) as measurement_count,
            u.display_name as created_by_name,
-           ${rankSql} as rank,
-           count(*) over () as total
-      from complex c
+           p.rank,
+           (select count(*) from hits) as total
+      from page p
+      join complex c on c.id = p.id
       left join app_user u on u.id = c.created_by_id
-     where ${where.join(' and ')}
-     order by ${order}
-     limit ? offset ?`;
-  const rows = await em.execute<Row[]>(sql, [...vis.fullParams, ...vis.fullParams, ...rankParams, ...params, query.pageSize, offset]);
+     order by ${outerOrder}`;
+  const rows = await em.execute<Row[]>(sql, [...rankParams, ...vis.fullParams, ...params, query.pageSize, offset]);
   let total = rows[0] ? Number(rows[0].total) : 0;
   if (rows.length === 0 && query.page > 1) {
     const counted = await em.execute<{ n: string }[]>(`select count(*) as n from complex c where ${where.join(' and ')}`, params);

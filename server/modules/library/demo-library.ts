@@ -1,26 +1,37 @@
-import type { EntityManager as CoreEntityManager } from '@mikro-orm/core';
+import type { EntityManager as CoreEntityManager, InferEntity, RequiredEntityData } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import demoLibrary from '@/data/demo-library.json';
 import {
   citationInputSchema,
   measurementInputSchema,
   type CitationInput,
+  type ComplexSnapshot,
   type ComplexStatus,
+  type Measurement as MeasurementDto,
   type MeasurementInput,
 } from '@/lib/schemas/library';
 import { User } from '@/server/modules/auth/user.entity';
 import { DEMO_GROUPS, demoAccounts } from '@/server/modules/auth/demo-accounts';
 import { ResearchGroup } from '@/server/modules/groups/group.entity';
 import { Complex } from './complex.entity';
-import * as complexes from './complex.service';
+import { randomUUID } from 'node:crypto';
+import { AuditEvent } from '@/server/modules/audit/audit-event.entity';
+import { Citation } from './citation.entity';
+import { toCitationDto, toMeasurementDto, toSnapshot } from './complex.mapper';
+import { deriveColumns } from './derive';
+import { Measurement } from './measurement.entity';
+import { ComplexReview } from './review.entity';
+import { ComplexRevision, type RevisionKind } from './revision.entity';
 
 /**
- * Seeds the invented Larkspur Coordination Lab's library from data/demo-library.json through the
- * same services the API uses (so revisions, reviews and audit events are real): contributors
- * create and submit, the lab manager (curator) reviews. Published values keep their citation;
+ * Seeds the invented Larkspur Coordination Lab's library from data/demo-library.json: contributors
+ * create and submit, the lab manager (curator) reviews; every step leaves the revision, review and
+ * audit rows the services would write. Published values keep their citation;
  * invented in-house values say so in their notes. Runs once (the caller's marker), and skips when
  * the lab or its people are missing or the library already has entries.
  */
+
+type Rows<Schema> = RequiredEntityData<InferEntity<Schema>>[];
 
 type Author = 'contributor' | 'contributor2' | 'curator' | 'admin';
 
@@ -83,45 +94,127 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
     return measurementInputSchema.parse({ ...rest, ...(cited ? { citation: cited } : {}) });
   };
 
-  let measurements = 0;
+  // One transaction of bulk inserts (the seed runs on every first start and in tests: it must be
+  // quick). The rows are what the services would have written: revisions with full snapshots,
+  // reviews, audit events for every status change, the approved snapshot beside a pending edit.
+  const citationIds = new Map<string, string>();
+  const citationRows: Rows<typeof Citation> = [];
+  const complexRows: Rows<typeof Complex> = [];
+  const measurementRows: Rows<typeof Measurement> = [];
+  const revisionRows: Rows<typeof ComplexRevision> = [];
+  const reviewRows: Rows<typeof ComplexReview> = [];
+  const auditRows: Rows<typeof AuditEvent> = [];
   const list = demoLibrary.complexes as DemoComplex[];
+  const startMs = Date.now() - list.length * 6 * 3_600_000;
+  let clock = 0;
+  const tick = () => new Date(startMs + (clock += 1) * 600_000);
+
+  const citationDto = (key: string) => {
+    const input = citations.get(key);
+    if (!input) throw new Error(`demo library: unknown citation key ${key}`);
+    let id = citationIds.get(key);
+    if (!id) {
+      id = randomUUID();
+      citationIds.set(key, id);
+      citationRows.push({ id, groupId: group.id, doi: input.doi ?? null, authors: input.authors, title: input.title ?? null, journal: input.journal, year: input.year ?? null, volume: input.volume ?? null, pages: input.pages ?? null, createdById: people.get('curator') ?? null, createdAt: new Date(startMs) });
+    }
+    return toCitationDto({ id, groupId: group.id, ...input });
+  };
+  const measurementDto = (m: DemoMeasurement, at: Date): MeasurementDto => {
+    const input = toInput(m);
+    return toMeasurementDto(
+      { id: randomUUID(), kind: input.kind, value: input.value, unit: input.unit, temperatureK: input.temperatureK ?? null, ionicStrengthM: input.ionicStrengthM ?? null, medium: input.medium ?? null, method: input.method ?? null, partnerFormula: input.partnerFormula ?? null, notes: input.notes ?? null, createdAt: at, updatedAt: at },
+      m.citation ? citationDto(m.citation) : null,
+    );
+  };
+
+  let measurements = 0;
   for (const entry of list) {
-    const created = await complexes.createComplex(em.fork(), actor(entry.author), {
-      groupId: group.id,
-      formula: entry.formula,
-      name: entry.name,
-      notes: entry.notes,
-      measurements: entry.measurements.map(toInput),
-    });
-    measurements += entry.measurements.length;
-    if (entry.status === 'draft') continue;
-    await complexes.submitComplex(em.fork(), actor(entry.author), created.id, {});
-    if (entry.status === 'submitted') continue;
-    const decision = entry.status === 'changes-requested' ? 'request-changes' : entry.status === 'rejected' ? 'reject' : 'approve';
-    const comment =
-      decision === 'request-changes'
-        ? 'Please add the primary citation for k11 (the compilation alone is not enough).'
-        : decision === 'reject'
-          ? 'Duplicate of an entry we already hold.'
-          : 'Checked against the cited source.';
-    await complexes.reviewComplex(em.fork(), actor('curator'), created.id, { decision, comment });
+    const id = randomUUID();
+    const derived = deriveColumns(entry.formula, entry.name);
+    const author = actor(entry.author).userId;
+    const curator = actor('curator').userId;
+    const createdAt = tick();
+    let working = entry.measurements.map((m) => measurementDto(m, createdAt));
+    const base = { formula: entry.formula, name: entry.name, notes: entry.notes, ...derived };
+    let version = 0;
+    let approvedSnapshot: ComplexSnapshot | null = null;
+    let approvedVersion: number | null = null;
+    let approvedAt: Date | null = null;
+    let submittedAt: Date | null = null;
+    let submittedById: string | null = null;
+    let status: ComplexStatus = 'draft';
+    let notes = entry.notes;
+    const record = (kind: RevisionKind, authorId: string, message: string, at: Date, audit?: { action: string; from?: ComplexStatus }) => {
+      version += 1;
+      const snapshot = toSnapshot({ ...base, notes, status }, working);
+      revisionRows.push({ id: randomUUID(), complexId: id, number: version, kind, status, message, snapshot, authorId, createdAt: at });
+      if (audit) {
+        auditRows.push({ id: randomUUID(), actorId: authorId, groupId: group.id, action: audit.action, subjectType: 'complex', subjectId: id, details: { version, formula: entry.formula, ...(audit.from ? { from: audit.from } : {}), to: status, demo: true }, createdAt: at });
+      }
+      return snapshot;
+    };
+    record('create', author, 'Created', createdAt, { action: 'library.entry.created' });
+    if (entry.status !== 'draft') {
+      submittedAt = tick();
+      submittedById = author;
+      status = 'submitted';
+      record('submit', author, 'Submitted for review', submittedAt, { action: 'library.entry.submitted', from: 'draft' });
+    }
+    if (['approved', 'changes-requested', 'rejected', 'retired'].includes(entry.status)) {
+      const decision = entry.status === 'changes-requested' ? 'request-changes' : entry.status === 'rejected' ? 'reject' : 'approve';
+      const comment =
+        decision === 'request-changes'
+          ? 'Please add the primary citation for k11 (the compilation alone is not enough).'
+          : decision === 'reject'
+            ? 'Duplicate of an entry we already hold.'
+            : 'Checked against the cited source.';
+      const at = tick();
+      status = decision === 'approve' ? 'approved' : decision === 'reject' ? 'rejected' : 'changes-requested';
+      const action = decision === 'approve' ? 'library.entry.approved' : decision === 'reject' ? 'library.entry.rejected' : 'library.entry.changes-requested';
+      const snapshot = record('review', curator, decision === 'approve' ? 'Approved' : `${decision === 'reject' ? 'Rejected' : 'Changes requested'}: ${comment}`, at, { action, from: 'submitted' });
+      reviewRows.push({ id: randomUUID(), complexId: id, revisionNumber: version, decision, comment, reviewerId: curator, selfApproved: false, createdAt: at });
+      if (decision === 'approve') {
+        approvedSnapshot = snapshot;
+        approvedVersion = version;
+        approvedAt = at;
+      }
+    }
     if (entry.status === 'retired') {
-      await complexes.retireComplex(em.fork(), actor('curator'), created.id, { message: 'Split into separate studies' });
+      status = 'retired';
+      record('retire', curator, 'Split into separate studies', tick(), { action: 'library.entry.retired', from: 'approved' });
     }
     if (entry.pendingEdit) {
-      const editor = actor(entry.pendingEdit.author);
-      for (const m of entry.pendingEdit.addMeasurements) {
-        await complexes.addMeasurement(em.fork(), editor, created.id, toInput(m));
-        measurements += 1;
-      }
-      const current = await complexes.getComplex(em.fork(), editor, created.id);
-      await complexes.updateComplex(em.fork(), editor, created.id, {
-        version: current.version,
-        notes: entry.pendingEdit.notes,
-        message: 'Added an in-house measurement',
-      });
-      await complexes.submitComplex(em.fork(), editor, created.id, {});
+      const editor = actor(entry.pendingEdit.author).userId;
+      const at = tick();
+      working = [...working, ...entry.pendingEdit.addMeasurements.map((m) => measurementDto(m, at))];
+      notes = entry.pendingEdit.notes;
+      status = 'draft';
+      record('edit', editor, 'Added an in-house measurement', at, { action: 'library.entry.reopened', from: 'approved' });
+      submittedAt = tick();
+      submittedById = editor;
+      status = 'submitted';
+      record('submit', editor, 'Submitted for review', submittedAt, { action: 'library.entry.submitted', from: 'draft' });
     }
+    measurements += working.length;
+    for (const m of working) {
+      measurementRows.push({ id: m.id, complexId: id, kind: m.kind, value: m.value, unit: m.unit, temperatureK: m.temperatureK, ionicStrengthM: m.ionicStrengthM, medium: m.medium, method: m.method, partnerFormula: m.partnerFormula, citationId: m.citation?.id ?? null, notes: m.notes, createdAt: new Date(m.createdAt), updatedAt: new Date(m.updatedAt) });
+    }
+    complexRows.push({
+      id, groupId: group.id, ...base, notes, status,
+      measurementKinds: [...new Set(working.map((m) => m.kind))].sort(),
+      hasCitation: working.some((m) => m.citation !== null),
+      version, createdById: author, submittedById, submittedAt, approvedSnapshot, approvedVersion, approvedAt,
+      createdAt, updatedAt: new Date(startMs + clock * 600_000),
+    });
   }
+  await em.transactional(async (tem) => {
+    if (citationRows.length) await tem.insertMany<InferEntity<typeof Citation>>(Citation, citationRows);
+    await tem.insertMany<InferEntity<typeof Complex>>(Complex, complexRows);
+    if (measurementRows.length) await tem.insertMany<InferEntity<typeof Measurement>>(Measurement, measurementRows);
+    await tem.insertMany<InferEntity<typeof ComplexRevision>>(ComplexRevision, revisionRows);
+    if (reviewRows.length) await tem.insertMany<InferEntity<typeof ComplexReview>>(ComplexReview, reviewRows);
+    await tem.insertMany<InferEntity<typeof AuditEvent>>(AuditEvent, auditRows);
+  });
   return { complexes: list.length, measurements };
 }
