@@ -9,6 +9,7 @@ import { AppText } from '@/components/ui/text';
 import { spacing } from '@/components/ui/theme';
 import { useWideLayout } from '@/components/ui/use-wide-layout';
 import { LinkRow, TextLink } from './auth-frame';
+import { MailPreferencesCard } from '@/components/exchange/mail-preferences-card';
 import { GroupsCard } from './groups-card';
 import { ProfileCard } from './profile-card';
 import { ErrorBlock, LoadingBlock, StaleNotice } from './query-states';
@@ -81,6 +82,7 @@ function SignedIn({ me }: { me: MeResponse }) {
           </View>
           <View style={styles.column}>
             <ProfileCard user={me.user} />
+            <MailPreferencesCard me={me} />
             <SignOutCard />
           </View>
         </View>
@@ -89,6 +91,7 @@ function SignedIn({ me }: { me: MeResponse }) {
           <ProfileCard user={me.user} />
           <GroupsCard />
           <SessionsCard />
+          <MailPreferencesCard me={me} />
           <SignOutCard />
         </View>
       )}

@@ -13,6 +13,7 @@ import { StatusPill, VerdictBadge } from '@/components/ui/verdict-badge';
 import { ApiError } from '@/lib/api/api-client';
 import { useComplexQuery } from '@/lib/api/library';
 import type { ComplexDetail, ComplexSnapshot } from '@/lib/schemas/library';
+import { AttachmentsPanel } from '@/components/exchange/attachments-panel';
 import { ComplexActions } from './complex-actions';
 import { dateTimeText, metalLabel } from './library-format';
 import { MeasurementsTable } from './measurements-table';
@@ -84,6 +85,7 @@ function EntryBody({ entry }: { entry: ComplexDetail }) {
           <AppText testID="complex-notes">{shown.notes}</AppText>
         </Card>
       ) : null}
+      <AttachmentsPanel entry={entry} />
       <EnginePanel formula={shown.formula} />
       <Card title="Review" testID="complex-review-card">
         <ReviewThread complexId={entry.id} />

@@ -13,6 +13,7 @@ import { useDebouncedValue } from '@/components/ui/use-debounced-value';
 import { useWideLayout } from '@/components/ui/use-wide-layout';
 import { normaliseFilters, useComplexesQuery, type ComplexFilters } from '@/lib/api/library';
 import type { ComplexListItem } from '@/lib/schemas/library';
+import { ExportMenu } from '@/components/exchange/export-menu';
 import { ComplexDetailView } from './complex-detail';
 import { ComplexListRow } from './complex-list-item';
 import { LibraryFilters } from './library-filters';
@@ -122,6 +123,10 @@ function LibraryBrowser({ access, selectedId, onSelect }: { access: Member; sele
           </AppText>
         </View>
         {access.canContribute ? <Button label="New entry" onPress={() => router.push('/library/new')} testID="library-new" /> : null}
+      </View>
+      <View style={styles.actions}>
+        {access.canContribute ? <Button label="Import CSV" kind="quiet" onPress={() => router.push('/library/import')} testID="library-import" /> : null}
+        <ExportMenu filters={{ ...filters, q: settled }} />
       </View>
       <TextInput
         value={typed}
@@ -251,6 +256,7 @@ const styles = StyleSheet.create({
   header: { paddingHorizontal: spacing.lg, paddingTop: spacing.xl, paddingBottom: spacing.sm, gap: spacing.md },
   titleRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },
   titleText: { flex: 1 },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-start', gap: spacing.sm },
   search: {
     fontFamily: fonts.body,
     fontSize: 16,

@@ -6,6 +6,7 @@ import { AppText } from '@/components/ui/text';
 import { colors, radius, spacing } from '@/components/ui/theme';
 import type { ComplexFormValues } from '@/lib/schemas/library-forms';
 import { measurementKindRules, measurementKinds, type MeasurementKind } from '@/lib/schemas/library';
+import { DoiFillButton } from '@/components/exchange/doi-fill-button';
 import { FormTextField } from './form-field';
 import { unitDisplay } from './library-format';
 
@@ -105,6 +106,7 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
       <View style={styles.grid}>
         <View style={styles.cell}>
           <FormTextField control={control} name={`${prefix}.citation.doi`} label="DOI" placeholder="10.1021/cr030726o" testID={`${id}-doi`} />
+          <DoiFillButton index={index} control={control} setValue={setValue} />
         </View>
         <View style={styles.cellWide}>
           <FormTextField control={control} name={`${prefix}.citation.authors`} label="Authors" autoCapitalize="words" placeholder="L. Helm, A. E. Merbach" testID={`${id}-authors`} />

@@ -1,0 +1,426 @@
+import { useMemo, useState } from 'react';
+import { ActivityIndicator, StyleSheet, View } from 'react-native';
+import { TextLink } from '@/components/account/auth-frame';
+import { ErrorBlock, LoadingBlock } from '@/components/account/query-states';
+import { useLibraryAccess } from '@/components/library/use-library-access';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Chip } from '@/components/ui/chip';
+import { FormError } from '@/components/ui/form-error';
+import { Screen } from '@/components/ui/screen';
+import { AppText } from '@/components/ui/text';
+import { colors, fonts, radius, spacing } from '@/components/ui/theme';
+import { FileRefusedError, isImportFinished, useImportJobQuery, useStartImportMutation, type PickedFile } from '@/lib/api/exchange';
+import { csvColumns, IMPORT_MAX_BYTES, type CsvColumn, type CsvMapping, type ImportIssue, type ImportJob } from '@/lib/schemas/exchange';
+import { roleAtLeast } from '@/lib/schemas/groups';
+import { fileSizeText, importRefusalText } from './exchange-format';
+import { FilePickButton } from './file-picker';
+
+/** Which of our columns each header of the file feeds (null: ignored). */
+type ColumnChoice = Record<string, CsvColumn | null>;
+
+/** The header line of a CSV file (quotes and doubled quotes honoured), for mapping before the server has read it. */
+export function csvHeaderLine(text: string): string[] {
+  const line = text.replace(/^\uFEFF/, '');
+  const headers: string[] = [];
+  let cell = '';
+  let quoted = false;
+  for (let i = 0; i < line.length; i += 1) {
+    const ch = line[i] as string;
+    if (quoted) {
+      if (ch === '"' && line[i + 1] === '"') {
+        cell += '"';
+        i += 1;
+      } else if (ch === '"') quoted = false;
+      else cell += ch;
+    } else if (ch === '"') quoted = true;
+    else if (ch === ',') {
+      headers.push(cell.trim());
+      cell = '';
+    } else if (ch === '\n' || ch === '\r') break;
+    else cell += ch;
+  }
+  headers.push(cell.trim());
+  return headers.filter((header, index) => header !== '' || index < headers.length - 1);
+}
+
+/** The person's choices as the server's mapping (our column → their header). */
+export function mappingFromChoices(choices: ColumnChoice): CsvMapping {
+  const mapping: CsvMapping = {};
+  for (const [header, column] of Object.entries(choices)) if (column) mapping[column] = header;
+  return mapping;
+}
+
+/** /library/import: choose a CSV file, check it (dry run), adjust the columns, then import for review. */
+export function ImportScreen() {
+  const access = useLibraryAccess();
+  if (access.state === 'loading') return <Screen><LoadingBlock label="Checking your groups…" testID="import-loading" /></Screen>;
+  if (access.state === 'error') {
+    return <Screen><ErrorBlock title="Your groups could not be loaded" error={access.error} onRetry={access.retry} testID="import-access-error" /></Screen>;
+  }
+  const groups = access.state === 'member' ? access.memberships.filter((m) => roleAtLeast(m.role, 'contributor')) : [];
+  if (groups.length === 0) {
+    return (
+      <Screen maxWidth={720}>
+        <View style={styles.section} testID="import-not-allowed">
+          <AppText variant="title">Importing needs the contributor role</AppText>
+          <AppText tone="soft">
+            {access.state === 'signed-out'
+              ? 'Sign in to import entries into your group’s library.'
+              : 'Contributors, curators and admins of a group can import entries. Ask your group’s admin for the contributor role.'}
+          </AppText>
+          <TextLink href="/library" testID="import-back">← Library</TextLink>
+        </View>
+      </Screen>
+    );
+  }
+  return <ImportFlow groups={groups.map((g) => ({ groupId: g.groupId, groupName: g.groupName }))} />;
+}
+
+function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }[] }) {
+  const [file, setFile] = useState<PickedFile | null>(null);
+  const [fileHeaders, setFileHeaders] = useState<string[]>([]);
+  const [groupId, setGroupId] = useState<string | null>(groups.length === 1 ? (groups[0]?.groupId ?? null) : null);
+  const [choices, setChoices] = useState<ColumnChoice>({});
+  const [checkedMapping, setCheckedMapping] = useState<string | null>(null);
+  const [dryJobId, setDryJobId] = useState<string | null>(null);
+  const [runJobId, setRunJobId] = useState<string | null>(null);
+  const start = useStartImportMutation();
+  const dryJob = useImportJobQuery(dryJobId);
+  const runJob = useImportJobQuery(runJobId);
+
+  const mapping = useMemo(() => mappingFromChoices(choices), [choices]);
+  const mappingKey = JSON.stringify(mapping);
+  const dry = dryJob.data;
+  const dryRunning = !!dryJobId && (!dry || !isImportFinished(dry));
+  const dryClean = !!dry && dry.state === 'succeeded' && dry.errorCount === 0 && checkedMapping === mappingKey;
+  const run = runJob.data;
+  const tooLarge = !!file && file.sizeBytes > IMPORT_MAX_BYTES;
+
+  const pick = (picked: PickedFile) => {
+    setFile(picked);
+    setChoices({});
+    setDryJobId(null);
+    setRunJobId(null);
+    setCheckedMapping(null);
+    setFileHeaders([]);
+    start.reset();
+    // The header line lets people map columns even when the server refuses the file's headers.
+    try {
+      void picked.body
+        .slice(0, 64 * 1024)
+        .text()
+        .then((text) => setFileHeaders(csvHeaderLine(text)))
+        .catch(() => setFileHeaders([]));
+    } catch {
+      // No way to read it here: the server's report will name the headers.
+    }
+  };
+
+  const send = (dryRun: boolean) => {
+    if (!file) return;
+    start.mutate(
+      { file, groupId: groupId ?? undefined, dryRun, mapping },
+      {
+        onSuccess: (job) => {
+          if (dryRun) {
+            setDryJobId(job.id);
+            setCheckedMapping(mappingKey);
+          } else setRunJobId(job.id);
+        },
+      },
+    );
+  };
+
+  const headers = dry?.columns.map((c) => c.header) ?? fileHeaders;
+  const detected: ColumnChoice = Object.fromEntries((dry?.columns ?? []).map((c) => [c.header, c.column]));
+  const refusal = start.error;
+
+  if (run) {
+    return (
+      <Screen maxWidth={880}>
+        <ImportHeading />
+        <RunStatus job={run} onAnother={() => pick(file as PickedFile)} />
+      </Screen>
+    );
+  }
+
+  return (
+    <Screen maxWidth={880}>
+      <ImportHeading />
+      <Card title="1 · The file">
+        <AppText tone="soft">
+          One row per measurement, with a header row. Sphereline reads columns such as formula, name, kind, value, unit, temperature_K,
+          medium, method and the citation (doi, authors, journal, year…). Rows with the same formula and name become one entry. At most 5 MB.
+        </AppText>
+        <View style={styles.row}>
+          <FilePickButton label={file ? 'Choose another file' : 'Choose a CSV file'} accept=".csv,text/csv" onPick={pick} testID="import-pick" kind={file ? 'quiet' : 'primary'} />
+          {file ? (
+            <AppText testID="import-file-name" style={styles.fileName}>
+              {file.name} · {fileSizeText(file.sizeBytes)}
+            </AppText>
+          ) : null}
+        </View>
+        {tooLarge ? (
+          <FormError message={`This file is ${fileSizeText(file.sizeBytes)}; the importer takes at most 5 MB. Split it into smaller files.`} testID="import-too-large" />
+        ) : null}
+        {groups.length > 1 ? (
+          <View style={styles.groupPick}>
+            <AppText variant="label" tone="muted">Import into</AppText>
+            <View style={styles.chips}>
+              {groups.map((g) => (
+                <Chip key={g.groupId} label={g.groupName} selected={groupId === g.groupId} onPress={() => setGroupId(g.groupId)} testID={`import-group-${g.groupId}`} />
+              ))}
+            </View>
+          </View>
+        ) : null}
+      </Card>
+
+      <Card title="2 · Check (dry run)">
+        <AppText tone="soft">A dry run reads every row and reports problems. Nothing is written to the library.</AppText>
+        <View style={styles.row}>
+          <Button
+            label={dry && !dryClean && checkedMapping !== mappingKey ? 'Check again with these columns' : 'Check the file'}
+            onPress={() => send(true)}
+            disabled={!file || tooLarge || start.isPending || dryRunning || (groups.length > 1 && !groupId)}
+            testID="import-dry-run"
+          />
+          {groups.length > 1 && !groupId ? <AppText variant="caption" tone="muted">Choose a group first.</AppText> : null}
+        </View>
+        {refusal ? (
+          <View testID="import-error">
+            <FormError message={importRefusalText(refusal)} />
+            {refusal instanceof FileRefusedError && refusal.issues.length > 0 ? <IssueTable issues={refusal.issues} total={refusal.issues.length} /> : null}
+          </View>
+        ) : null}
+        {dryRunning ? <JobProgress job={dry} label="Checking rows…" /> : null}
+        {dryJob.isError && !dry ? <FormError message={importRefusalText(dryJob.error)} testID="import-poll-error" /> : null}
+        {dry && isImportFinished(dry) ? <DryRunReport job={dry} stale={checkedMapping !== mappingKey} /> : null}
+      </Card>
+
+      {headers.length > 0 ? (
+        <Card title="Columns" testID="import-mapping">
+          <ColumnMapping headers={headers} detected={detected} choices={choices} onChange={setChoices} />
+        </Card>
+      ) : null}
+
+      <Card title="3 · Import">
+        {dryClean && dry ? (
+          <>
+            <AppText tone="soft">
+              The entries are created in your group with the status “submitted”: curators review them before they become the group’s data.
+            </AppText>
+            <View style={styles.row}>
+              <Button
+                label={`Import ${dry.entryCount} ${dry.entryCount === 1 ? 'entry' : 'entries'} (submitted for review)`}
+                onPress={() => send(false)}
+                disabled={start.isPending}
+                testID="import-run"
+              />
+            </View>
+          </>
+        ) : (
+          <AppText tone="muted" testID="import-run-waiting">
+            {dry && checkedMapping !== mappingKey
+              ? 'The columns changed since the last check: check the file again before importing.'
+              : 'Importing opens once a dry run finds no problems.'}
+          </AppText>
+        )}
+        {start.isPending ? <ActivityIndicator color={colors.accent} /> : null}
+      </Card>
+    </Screen>
+  );
+}
+
+function ImportHeading() {
+  return (
+    <View style={styles.section}>
+      <TextLink href="/library" testID="import-back">← Library</TextLink>
+      <AppText variant="display" accessibilityRole="header">Import from CSV</AppText>
+    </View>
+  );
+}
+
+function JobProgress({ job, label }: { job: ImportJob | undefined; label: string }) {
+  const processed = job?.processed ?? 0;
+  const total = job?.total ?? 0;
+  const fraction = total > 0 ? Math.min(1, processed / total) : 0;
+  return (
+    <View style={styles.progress} testID="import-progress" accessibilityRole="progressbar" accessibilityValue={{ min: 0, max: total, now: processed }}>
+      <AppText variant="caption" tone="muted">
+        {label} {total > 0 ? `${processed} of ${total} rows` : ''}
+      </AppText>
+      <View style={styles.track}>
+        <View style={StyleSheet.flatten([styles.bar, { width: `${Math.round(fraction * 100)}%` }])} />
+      </View>
+    </View>
+  );
+}
+
+function DryRunReport({ job, stale }: { job: ImportJob; stale: boolean }) {
+  const clean = job.state === 'succeeded' && job.errorCount === 0;
+  return (
+    <View style={styles.report} testID="import-report">
+      {stale ? <AppText variant="caption" style={styles.staleNote}>The columns changed after this check; check again to see the effect.</AppText> : null}
+      {clean ? (
+        <FormError
+          tone="done"
+          message={`All ${job.total} rows are valid: ${job.entryCount} ${job.entryCount === 1 ? 'entry' : 'entries'} with ${job.measurementCount} ${job.measurementCount === 1 ? 'measurement' : 'measurements'}. Nothing was written yet.`}
+          testID="import-report-clean"
+        />
+      ) : (
+        <>
+          <AppText tone="danger" testID="import-report-summary">
+            {job.errorCount > 0
+              ? `${job.errorCount} ${job.errorCount === 1 ? 'problem' : 'problems'} in ${job.total} rows. Nothing was written; correct the file (or the columns below) and check again.`
+              : (job.message ?? 'The check stopped. Nothing was written.')}
+          </AppText>
+          {job.errors.length > 0 ? <IssueTable issues={job.errors} total={job.errorCount} /> : null}
+        </>
+      )}
+    </View>
+  );
+}
+
+/** Row-by-row problems; rows are numbered as a spreadsheet shows them (the header is row 1). */
+function IssueTable({ issues, total }: { issues: ImportIssue[]; total: number }) {
+  return (
+    <View style={styles.table} accessibilityRole="list">
+      <View style={StyleSheet.flatten([styles.tr, styles.th])}>
+        <AppText variant="label" tone="muted" style={styles.colRow}>Row</AppText>
+        <AppText variant="label" tone="muted" style={styles.colColumn}>Column</AppText>
+        <AppText variant="label" tone="muted" style={styles.colMessage}>Problem</AppText>
+      </View>
+      {issues.map((issue, i) => (
+        <View key={`${issue.row}-${issue.column ?? ''}-${i}`} style={styles.tr} testID={`import-report-row-${i}`}>
+          <AppText style={styles.colRow}>{issue.row}</AppText>
+          <AppText style={styles.colColumn}>{issue.column ?? 'whole row'}</AppText>
+          <AppText style={styles.colMessage}>
+            {issue.message}
+            {issue.position !== undefined ? ` (at character ${issue.position})` : ''}
+          </AppText>
+        </View>
+      ))}
+      {total > issues.length ? (
+        <AppText variant="caption" tone="muted">The first {issues.length} of {total} problems are listed.</AppText>
+      ) : null}
+    </View>
+  );
+}
+
+function ColumnMapping({ headers, detected, choices, onChange }: {
+  headers: string[];
+  detected: ColumnChoice;
+  choices: ColumnChoice;
+  onChange: (next: ColumnChoice) => void;
+}) {
+  const [open, setOpen] = useState<string | null>(null);
+  const current = (header: string) => (header in choices ? (choices[header] ?? null) : (detected[header] ?? null));
+  const choose = (header: string, column: CsvColumn | null) => {
+    const next: ColumnChoice = {};
+    // One header per column: choosing a column for this header frees it elsewhere.
+    for (const [h, c] of Object.entries(choices)) if (h !== header && (column === null || c !== column)) next[h] = c;
+    if (column !== null || detected[header] !== undefined) next[header] = column;
+    onChange(next);
+    setOpen(null);
+  };
+  return (
+    <View style={styles.mapping}>
+      <AppText tone="soft">
+        Each header of your file and the Sphereline column it fills. Change one by tapping it, then check the file again. To skip a
+        column Sphereline recognises by name, rename its header in the file.
+      </AppText>
+      {headers.map((header, i) => {
+        const column = current(header);
+        return (
+          <View key={header || `h-${i}`} style={styles.mapRow} testID={`import-mapping-${i}`}>
+            <View style={styles.mapHead}>
+              <AppText style={styles.header} numberOfLines={1}>{header || '(empty header)'}</AppText>
+              <AppText tone="muted">→</AppText>
+              <Chip
+                label={column ?? 'not read'}
+                mono={column !== null}
+                selected={open === header}
+                onPress={() => setOpen(open === header ? null : header)}
+                testID={`import-mapping-${i}-current`}
+              />
+              {header in choices ? <AppText variant="caption" tone="accent">changed</AppText> : null}
+            </View>
+            {open === header ? (
+              <View style={styles.chips}>
+                {/* The server's mapping names columns, not skips: a recognised header is read unless renamed. */}
+                {detected[header] ? null : (
+                  <Chip label="not read" selected={column === null} onPress={() => choose(header, null)} testID={`import-mapping-${i}-none`} />
+                )}
+                {csvColumns.map((c) => (
+                  <Chip key={c} label={c} mono selected={column === c} onPress={() => choose(header, c)} testID={`import-mapping-${i}-${c}`} />
+                ))}
+              </View>
+            ) : null}
+          </View>
+        );
+      })}
+    </View>
+  );
+}
+
+function RunStatus({ job, onAnother }: { job: ImportJob; onAnother: () => void }) {
+  if (!isImportFinished(job)) {
+    return (
+      <Card title="Importing">
+        <JobProgress job={job} label={job.state === 'importing' ? 'Writing entries…' : 'Reading rows…'} />
+        <AppText variant="caption" tone="muted">You can leave this page; the import carries on and its entries appear in the review queue.</AppText>
+      </Card>
+    );
+  }
+  if (job.state === 'failed') {
+    return (
+      <Card title="Import stopped">
+        <View testID="import-error">
+          <FormError message={`${job.message ?? 'The import failed.'}`} />
+        </View>
+        {job.errors.length > 0 ? <IssueTable issues={job.errors} total={job.errorCount} /> : null}
+        <View style={styles.row}>
+          <Button label="Start again with this file" kind="quiet" onPress={onAnother} testID="import-restart" />
+        </View>
+      </Card>
+    );
+  }
+  return (
+    <Card title="Imported">
+      <View testID="import-done" style={styles.section}>
+        <FormError
+          tone="done"
+          message={`${job.entryCount} ${job.entryCount === 1 ? 'entry' : 'entries'} with ${job.measurementCount} ${job.measurementCount === 1 ? 'measurement' : 'measurements'} were added and submitted for review.`}
+        />
+        <View style={styles.row}>
+          <TextLink href="/review" testID="import-to-review">Open the review queue</TextLink>
+          <TextLink href="/library" testID="import-to-library">Back to the library</TextLink>
+        </View>
+      </View>
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  section: { gap: spacing.sm },
+  row: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.md },
+  fileName: { fontFamily: fonts.mono },
+  groupPick: { gap: spacing.xs },
+  chips: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.xs },
+  progress: { gap: spacing.xs },
+  track: { height: 8, borderRadius: radius.pill, backgroundColor: colors.accentSoft, overflow: 'hidden' },
+  bar: { height: 8, borderRadius: radius.pill, backgroundColor: colors.accent },
+  report: { gap: spacing.sm },
+  staleNote: { color: colors.amber },
+  table: { borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, overflow: 'hidden' },
+  tr: { flexDirection: 'row', gap: spacing.md, paddingHorizontal: spacing.md, paddingVertical: spacing.sm, borderTopWidth: 1, borderTopColor: colors.line },
+  th: { backgroundColor: colors.paper, borderTopWidth: 0 },
+  colRow: { width: 48 },
+  colColumn: { width: 140 },
+  colMessage: { flex: 1 },
+  mapping: { gap: spacing.sm },
+  mapRow: { gap: spacing.xs, paddingVertical: spacing.xs, borderTopWidth: 1, borderTopColor: colors.line },
+  mapHead: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
+  header: { fontFamily: fonts.mono, maxWidth: 260 },
+});

@@ -1,0 +1,80 @@
+import { StyleSheet, Switch, View } from 'react-native';
+import { describeError } from '@/components/account/form-errors';
+import { QueryContent } from '@/components/account/query-states';
+import { Card } from '@/components/ui/card';
+import { AppText } from '@/components/ui/text';
+import { colors, spacing } from '@/components/ui/theme';
+import { useMailPreferencesQuery, useUpdateMailPreferencesMutation } from '@/lib/api/exchange';
+import type { MeResponse } from '@/lib/schemas/auth';
+import type { MailPreferences } from '@/lib/schemas/exchange';
+import { roleAtLeast } from '@/lib/schemas/groups';
+
+/** E-mail about reviews: curators hear of new submissions, submitters of decisions. Each can be turned off. */
+export function MailPreferencesCard({ me }: { me: Pick<MeResponse, 'memberships'> }) {
+  const query = useMailPreferencesQuery();
+  const update = useUpdateMailPreferencesMutation();
+  const curator = me.memberships.some((m) => roleAtLeast(m.role, 'curator'));
+  return (
+    <Card title="E-mail" testID="mail-preferences">
+      <QueryContent query={query} loadingLabel="Loading your e-mail choices…" errorTitle="Your e-mail choices could not be loaded" testID="mail-preferences">
+        {(prefs: MailPreferences) => (
+          <View style={styles.list}>
+            <PreferenceSwitch
+              label="New submissions to review"
+              detail={curator ? 'A message when an entry of your group is submitted for review.' : 'For curators and admins: you are not a curator in any group yet.'}
+              value={prefs.reviewSubmissions}
+              onChange={(reviewSubmissions) => update.mutate({ reviewSubmissions })}
+              disabled={!curator}
+              testID="mail-pref-submissions"
+            />
+            <PreferenceSwitch
+              label="Decisions on my entries"
+              detail="A message when a curator approves, rejects or asks for changes to something you submitted."
+              value={prefs.reviewDecisions}
+              onChange={(reviewDecisions) => update.mutate({ reviewDecisions })}
+              testID="mail-pref-decisions"
+            />
+            {update.isError ? (
+              <AppText variant="caption" tone="danger" testID="mail-pref-error">
+                Not saved: {describeError(update.error)}
+              </AppText>
+            ) : null}
+          </View>
+        )}
+      </QueryContent>
+    </Card>
+  );
+}
+
+function PreferenceSwitch({ label, detail, value, onChange, disabled, testID }: {
+  label: string;
+  detail: string;
+  value: boolean;
+  onChange: (next: boolean) => void;
+  disabled?: boolean;
+  testID: string;
+}) {
+  return (
+    <View style={styles.row}>
+      <View style={styles.text}>
+        <AppText>{label}</AppText>
+        <AppText variant="caption" tone="muted">{detail}</AppText>
+      </View>
+      <Switch
+        value={value}
+        onValueChange={onChange}
+        disabled={disabled}
+        accessibilityLabel={label}
+        trackColor={{ false: colors.lineStrong, true: colors.accent }}
+        thumbColor={colors.card}
+        testID={testID}
+      />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  list: { gap: spacing.md },
+  row: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },
+  text: { flex: 1, gap: 2 },
+});

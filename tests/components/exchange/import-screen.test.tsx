@@ -1,0 +1,206 @@
+import { fireEvent, screen, waitFor } from '@testing-library/react-native';
+import { ImportScreen, csvHeaderLine, mappingFromChoices } from '@/components/exchange/import-screen';
+import { importJobSchema, type ImportJob } from '@/lib/schemas/exchange';
+import { renderWithQueries } from '../account/test-kit';
+import { contributorMe, GROUP_ID } from '../library/library-fixtures';
+
+jest.mock('expo-router', () => require('../account/expo-router-mock').expoRouterMock);
+
+/**
+ * The web file input cannot run in a native test renderer: a button hands the screen a file instead.
+ * The file is the invented Larkspur Coordination Lab's rate sheet.
+ */
+const CSV_TEXT = 'Complex,name,k,unit\n[Cr(H2O)6]3+,hexaaquachromium(III),2.4e-6,s-1\n';
+jest.mock('@/components/exchange/file-picker', () => {
+  const { Pressable, Text } = require('react-native');
+  return {
+    FilePickButton: ({ onPick, testID, label }: { onPick: (file: unknown) => void; testID?: string; label: string }) => (
+      <Pressable
+        testID={testID}
+        onPress={() =>
+          onPick({
+            name: 'larkspur-rates.csv',
+            sizeBytes: 2048,
+            contentType: 'text/csv',
+            body: { slice: () => ({ text: async () => 'Complex,name,k,unit\n[Cr(H2O)6]3+,hexaaquachromium(III),2.4e-6,s-1\n' }) },
+          })
+        }
+      >
+        <Text>{label}</Text>
+      </Pressable>
+    ),
+  };
+});
+
+type Canned = { status: number; body?: unknown };
+type RawCall = { url: string; method: string; headers: Record<string, string>; body: unknown };
+
+/** fetch stand-in that keeps raw bodies (the shared test kit parses every body as JSON). */
+function rawFetch(routes: Record<string, Canned | (() => Canned)>) {
+  const calls: RawCall[] = [];
+  global.fetch = jest.fn(async (input: string, init?: { method?: string; body?: unknown; headers?: Record<string, string> }) => {
+    const method = init?.method ?? 'GET';
+    calls.push({ url: String(input), method, headers: init?.headers ?? {}, body: init?.body });
+    const route = routes[`${method} ${String(input).split('?')[0]}`];
+    const answer = route === undefined ? { status: 404, body: { error: { code: 'NOT_FOUND', message: 'No such route.' } } } : typeof route === 'function' ? route() : route;
+    return { ok: answer.status < 300, status: answer.status, json: async () => answer.body };
+  }) as unknown as typeof fetch;
+  return calls;
+}
+
+const T0 = '2026-01-05T10:00:00.000Z';
+function job(overrides: Partial<ImportJob>): ImportJob {
+  return importJobSchema.parse({
+    id: 'job-1',
+    groupId: GROUP_ID,
+    fileName: 'larkspur-rates.csv',
+    dryRun: true,
+    state: 'queued',
+    processed: 0,
+    total: 2,
+    columns: [
+      { header: 'Complex', column: 'formula' },
+      { header: 'name', column: 'name' },
+      { header: 'k', column: 'value' },
+      { header: 'unit', column: 'unit' },
+    ],
+    errorCount: 0,
+    errors: [],
+    entryCount: 0,
+    measurementCount: 0,
+    complexIds: [],
+    message: null,
+    createdAt: T0,
+    updatedAt: T0,
+    finishedAt: null,
+    ...overrides,
+  });
+}
+
+describe('import helpers', () => {
+  it('reads the header line with quotes, a BOM and CRLF', () => {
+    expect(csvHeaderLine('\uFEFF"Complex, formula",name,"say ""k"""\r\nx,y,z')).toEqual(['Complex, formula', 'name', 'say "k"']);
+  });
+  it('turns header choices into the server mapping (our column → their header)', () => {
+    expect(mappingFromChoices({ k: 'value', Temp: null, Complex: 'formula' })).toEqual({ value: 'k', formula: 'Complex' });
+  });
+});
+
+describe('ImportScreen', () => {
+  it('dry-runs the file and lists each problem with row, column and character position', async () => {
+    const calls = rawFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'POST /api/imports': { status: 202, body: job({}) },
+      'GET /api/imports/job-1': {
+        status: 200,
+        body: job({
+          state: 'failed',
+          processed: 2,
+          errorCount: 2,
+          errors: [
+            { row: 2, column: 'Complex', message: 'The formula has an unmatched bracket.', position: 12 },
+            { row: 3, column: null, message: 'The row has 3 cells; the header has 4.' },
+          ],
+          message: '2 problem(s) in 2 row(s); nothing was checked further.',
+          finishedAt: T0,
+        }),
+      },
+    });
+    renderWithQueries(<ImportScreen />);
+    fireEvent.press(await screen.findByTestId('import-pick'));
+    expect(screen.getByTestId('import-file-name')).toHaveTextContent('larkspur-rates.csv · 2.0 KB');
+    fireEvent.press(screen.getByTestId('import-dry-run'));
+
+    const first = await screen.findByTestId('import-report-row-0');
+    expect(first).toHaveTextContent(/^2Complex/);
+    expect(first).toHaveTextContent(/unmatched bracket\. \(at character 12\)/);
+    expect(screen.getByTestId('import-report-row-1')).toHaveTextContent(/3whole row/);
+    expect(screen.getByTestId('import-report')).toHaveTextContent(/2 problems in 2 rows\. Nothing was written/);
+    expect(screen.queryByTestId('import-run')).toBeNull();
+
+    const post = calls.find((c) => c.method === 'POST');
+    const params = new URLSearchParams(post?.url.split('?')[1]);
+    expect(params.get('dryRun')).toBe('true');
+    expect(params.get('fileName')).toBe('larkspur-rates.csv');
+    expect(params.has('mapping')).toBe(false);
+    expect(post?.headers['Content-Type']).toBe('text/csv');
+    expect(await (post?.body as { slice: () => { text: () => Promise<string> } }).slice().text()).toBe(CSV_TEXT);
+
+    // Map the "k" header (detected as value) to notes, and check again: the mapping goes along.
+    expect(screen.getByTestId('import-mapping')).toHaveTextContent(/Complex→formula/);
+    fireEvent.press(screen.getByTestId('import-mapping-2-current'));
+    fireEvent.press(screen.getByTestId('import-mapping-2-notes'));
+    expect(screen.getByTestId('import-run-waiting')).toHaveTextContent(/columns changed/);
+    fireEvent.press(screen.getByTestId('import-dry-run'));
+    await waitFor(() => expect(calls.filter((c) => c.method === 'POST')).toHaveLength(2));
+    const again = new URLSearchParams(calls.filter((c) => c.method === 'POST')[1]?.url.split('?')[1]);
+    expect(JSON.parse(again.get('mapping') ?? '{}')).toEqual({ notes: 'k' });
+  });
+
+  it('says a refused file wrote nothing (415)', async () => {
+    rawFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'POST /api/imports': { status: 415, body: { error: { code: 'UNSUPPORTED_MEDIA', message: 'The file is not UTF-8 text (byte 3).' } } },
+    });
+    renderWithQueries(<ImportScreen />);
+    fireEvent.press(await screen.findByTestId('import-pick'));
+    fireEvent.press(screen.getByTestId('import-dry-run'));
+    const error = await screen.findByTestId('import-error');
+    expect(error).toHaveTextContent(/cannot be read as CSV text: The file is not UTF-8 text \(byte 3\)\. Nothing was written\./);
+  });
+
+  it('lists the issues of a 400 refusal (ragged rows)', async () => {
+    rawFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'POST /api/imports': {
+        status: 400,
+        body: { error: { code: 'VALIDATION_FAILED', message: 'Rows have the wrong number of cells.', issues: [{ row: 5, column: null, message: 'The row has 2 cells; the header has 4.' }] } },
+      },
+    });
+    renderWithQueries(<ImportScreen />);
+    fireEvent.press(await screen.findByTestId('import-pick'));
+    fireEvent.press(screen.getByTestId('import-dry-run'));
+    expect(await screen.findByTestId('import-error')).toHaveTextContent(/Nothing was written/);
+    expect(screen.getByTestId('import-report-row-0')).toHaveTextContent(/5whole rowThe row has 2 cells/);
+  });
+
+  it('imports after a clean dry run, shows progress, then the summary', async () => {
+    let polls = 0;
+    const calls = rawFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'POST /api/imports': () => {
+        const real = calls.filter((c) => c.method === 'POST').length === 2;
+        return { status: 202, body: job({ id: real ? 'job-2' : 'job-1', dryRun: !real }) };
+      },
+      'GET /api/imports/job-1': {
+        status: 200,
+        body: job({ state: 'succeeded', processed: 2, entryCount: 1, measurementCount: 2, message: 'Dry run: all 2 rows are valid.', finishedAt: T0 }),
+      },
+      'GET /api/imports/job-2': () => {
+        polls += 1;
+        return polls === 1
+          ? { status: 200, body: job({ id: 'job-2', dryRun: false, state: 'importing', processed: 1 }) }
+          : { status: 200, body: job({ id: 'job-2', dryRun: false, state: 'succeeded', processed: 2, entryCount: 1, measurementCount: 2, finishedAt: T0 }) };
+      },
+    });
+    renderWithQueries(<ImportScreen />);
+    fireEvent.press(await screen.findByTestId('import-pick'));
+    fireEvent.press(screen.getByTestId('import-dry-run'));
+    expect(await screen.findByTestId('import-report-clean')).toHaveTextContent(/All 2 rows are valid: 1 entry with 2 measurements/);
+    fireEvent.press(screen.getByTestId('import-run'));
+    expect(screen.getByTestId('import-run')).toHaveTextContent('Import 1 entry (submitted for review)');
+    expect(await screen.findByTestId('import-progress')).toHaveTextContent(/1 of 2 rows/);
+    expect(await screen.findByTestId('import-done', {}, { timeout: 4000 })).toHaveTextContent(/1 entry with 2 measurements were added and submitted for review/);
+    expect(screen.getByTestId('import-to-review')).toBeTruthy();
+    const real = new URLSearchParams(calls.filter((c) => c.method === 'POST')[1]?.url.split('?')[1]);
+    expect(real.get('dryRun')).toBe('false');
+  });
+
+  it('tells viewers that importing needs the contributor role', async () => {
+    rawFetch({
+      'GET /api/auth/me': { status: 200, body: { ...contributorMe, memberships: [{ groupId: GROUP_ID, groupName: 'Larkspur Coordination Lab', role: 'viewer' }] } },
+    });
+    renderWithQueries(<ImportScreen />);
+    expect(await screen.findByTestId('import-not-allowed')).toHaveTextContent(/contributor role/);
+  });
+});
