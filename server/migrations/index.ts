@@ -2,6 +2,7 @@ import { Migration20261202000000_foundation } from './Migration20261202000000_fo
 import { Migration20261210000000_accounts } from './Migration20261210000000_accounts';
 import { Migration20261215000000_library } from './Migration20261215000000_library';
 import { Migration20261220000000_exchange } from './Migration20261220000000_exchange';
+import { Migration20261230000000_library_search } from './Migration20261230000000_library_search';
 
 /**
  * Migrations are listed here (not discovered from the folder) so that tsx, jest and a bundled
@@ -12,4 +13,5 @@ export const migrationsList = [
   { name: 'Migration20261210000000_accounts', class: Migration20261210000000_accounts },
   { name: 'Migration20261215000000_library', class: Migration20261215000000_library },
   { name: 'Migration20261220000000_exchange', class: Migration20261220000000_exchange },
+  { name: 'Migration20261230000000_library_search', class: Migration20261230000000_library_search },
 ];

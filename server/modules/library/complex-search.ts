@@ -9,18 +9,32 @@ import type {
   MeasurementKind,
   ReviewQueueResponse,
 } from '@/lib/schemas/library';
+import atomicWeightData from '@/data/atomic-weights.json';
+import { isElementSymbol } from '@/lib/chem/elements';
 import { AppError } from '@/server/http/errors';
 import { personRef } from './complex.mapper';
 import { searchTokens } from './derive';
 import { membershipsOf, type MembershipInfo } from './library-access';
 
 /**
- * Server-side search over the groups the person belongs to.
- * Text: every query token is compared with the words of `search_text` by pg_trgm word similarity
- * (`token <% search_text`, GIN-indexed); an entry matches when any token does, and ranks by the
- * mean word similarity of all tokens — so "Co amm" puts cobalt ammines (both tokens match) first.
+ * Server-side search over the groups the person belongs to (issue 8: 100 000 entries).
+ *
+ * Text: every query token must match (AND), each in the cheapest way that is still right:
+ * - a metal's symbol as written ("Co", case-sensitive, so "CO" stays carbonyl) or an element name
+ *   ("cobalt") is an equality on the indexed `metal` column;
+ * - a token of 3+ characters is a substring of `search_text` (`like '%amm%'`);
+ * - a shorter token ("en", "6") must start a word of `search_text`.
+ * When that finds nothing and a token is 3+ characters, the search runs once more with pg_trgm word
+ * similarity for those tokens (`tok <% search_text`), so a typo ("chromium amine") still finds
+ * the entry. Rank (0–1) is the mean over tokens: 1 for a metal or a whole word, 0.9 for the start
+ * of a word, 0.7 inside a word (word similarity in the typo pass) — cheap string tests, because
+ * every match is ranked and counted (word similarity costs ~35 µs a row: seconds at 100 000).
  * Filters combine with AND. Order: rank desc then id (with text), name then id (without).
  * Visibility is part of the SQL (see library-access.ts): viewers get approved snapshots only.
+ *
+ * Speed: the WHERE and the ranked columns all live in `complex_search_cover` (migration
+ * 20261230), so matching, ranking and counting are an index-only scan; only the page's rows are
+ * read from the table.
  */
 
 interface Row {
@@ -54,16 +68,123 @@ interface Row {
   total: string | number;
 }
 
-const csv = (ids: readonly string[]) => ids.join(',');
+/** A piece of SQL with its bindings, in order. */
+interface Fragment {
+  sql: string;
+  params: unknown[];
+}
 
-/** SQL for "this reader sees the working copy" and "sees this entry at all", with its bindings. */
+const frag = (sql: string, ...params: unknown[]): Fragment => ({ sql, params });
+
+function joinFragments(parts: readonly Fragment[], separator: string): Fragment {
+  return { sql: parts.map((p) => p.sql).join(separator), params: parts.flatMap((p) => p.params) };
+}
+
+const csv = (ids: readonly string[]) => ids.join(',');
+const inGroups = (ids: readonly string[]) => frag(`c.group_id = any(string_to_array(?, ',')::uuid[])`, csv(ids));
+
+/**
+ * "This reader sees the working copy" and "sees this entry at all", written per role so that a
+ * reader with one role (the usual case) gets a plain condition the covering index answers:
+ * curators and admins see every entry of their groups, contributors their own plus published
+ * ones, viewers published ones only (`is_published`: approved snapshot, not retired).
+ */
 function visibility(memberships: readonly MembershipInfo[], userId: string) {
   const curatorGroups = memberships.filter((m) => roleAtLeast(m.role, 'curator')).map((m) => m.groupId);
   const contributorGroups = memberships.filter((m) => m.role === 'contributor').map((m) => m.groupId);
-  const full = `(c.group_id = any(string_to_array(?, ',')::uuid[]) or (c.group_id = any(string_to_array(?, ',')::uuid[]) and c.created_by_id = ?))`;
-  const fullParams: unknown[] = [csv(curatorGroups), csv(contributorGroups), userId];
-  const visible = `(${full} or (c.approved_snapshot is not null and c.status <> 'retired'))`;
-  return { full, fullParams, visible, visibleParams: fullParams };
+  const viewerGroups = memberships
+    .filter((m) => !roleAtLeast(m.role, 'curator') && m.role !== 'contributor')
+    .map((m) => m.groupId);
+  const fullParts: Fragment[] = [];
+  const visibleParts: Fragment[] = [];
+  if (curatorGroups.length > 0) {
+    fullParts.push(inGroups(curatorGroups));
+    visibleParts.push(inGroups(curatorGroups));
+  }
+  if (contributorGroups.length > 0) {
+    const groups = inGroups(contributorGroups);
+    fullParts.push(frag(`(${groups.sql} and c.created_by_id = ?)`, ...groups.params, userId));
+    visibleParts.push(frag(`(${groups.sql} and (c.created_by_id = ? or c.is_published))`, ...groups.params, userId));
+  }
+  if (viewerGroups.length > 0) {
+    const groups = inGroups(viewerGroups);
+    visibleParts.push(frag(`(${groups.sql} and c.is_published)`, ...groups.params));
+  }
+  const or = (parts: Fragment[]) => (parts.length === 0 ? frag('false') : parts.length === 1 ? parts[0]! : (() => {
+    const joined = joinFragments(parts, ' or ');
+    return frag(`(${joined.sql})`, ...joined.params);
+  })());
+  return { full: or(fullParts), visible: or(visibleParts) };
+}
+
+/** Elements that are never the central metal: their symbols stay text tokens. */
+const NON_METALS = new Set(['H', 'He', 'B', 'C', 'N', 'O', 'F', 'Ne', 'Si', 'P', 'S', 'Cl', 'Ar', 'As', 'Se', 'Br', 'Kr', 'Te', 'I', 'Xe', 'At', 'Rn']);
+
+/** The metal a query word names: its symbol as written ("Co", not "CO" or "co") or its name in any case. */
+function metalNamedBy(word: string): string | undefined {
+  const bySymbol = isElementSymbol(word) && !NON_METALS.has(word) ? word : undefined;
+  if (bySymbol) return bySymbol;
+  return metalByName.get(word.toLowerCase());
+}
+
+const metalByName: ReadonlyMap<string, string> = new Map(
+  atomicWeightData.elements.filter((e) => !NON_METALS.has(e.symbol)).map((e) => [e.name.toLowerCase(), e.symbol]),
+);
+
+export type SearchTerm = { kind: 'metal'; symbol: string } | { kind: 'substring'; text: string } | { kind: 'word-start'; text: string };
+
+/** The query as search terms: "Co amm" → metal Co + substring "amm"; at most 8 terms. */
+export function searchTerms(query: string): SearchTerm[] {
+  const words = query
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .replace(/[^A-Za-z0-9]+/g, ' ')
+    .trim()
+    .split(' ')
+    .filter((word) => word.length > 0);
+  const seen = new Set<string>();
+  const terms: SearchTerm[] = [];
+  for (const word of words) {
+    const metal = metalNamedBy(word);
+    const [token] = searchTokens(word);
+    if (!metal && !token) continue;
+    const term: SearchTerm = metal
+      ? { kind: 'metal', symbol: metal }
+      : token!.length >= 3
+        ? { kind: 'substring', text: token! }
+        : { kind: 'word-start', text: token! };
+    const key = term.kind === 'metal' ? `m:${term.symbol}` : `t:${term.text}`;
+    if (seen.has(key)) continue;
+    seen.add(key);
+    terms.push(term);
+  }
+  return terms.slice(0, 8);
+}
+
+/** WHERE condition and 0–1 score of one term; `fuzzy` widens substring terms to word similarity. */
+function termSql(term: SearchTerm, fuzzy: boolean): { where: Fragment; score: Fragment } {
+  if (term.kind === 'metal') return { where: frag('c.metal = ?', term.symbol), score: frag('1.0::float8') };
+  const t = term.text;
+  // Tokens are [a-z0-9]+ (normaliseSearchText), so they need no escaping inside LIKE patterns.
+  const wholeWord = frag(`(c.search_text = ? or c.search_text like ? or c.search_text like ? or c.search_text like ?)`, t, `${t} %`, `% ${t} %`, `% ${t}`);
+  const wordStart = frag(`(c.search_text like ? or c.search_text like ?)`, `${t}%`, `% ${t}%`);
+  if (term.kind === 'word-start') {
+    return { where: wordStart, score: frag(`(case when ${wholeWord.sql} then 1.0 else 0.9 end)::float8`, ...wholeWord.params) };
+  }
+  if (fuzzy) {
+    return {
+      where: frag(`(c.search_text like ? or ? <% c.search_text)`, `%${t}%`, t),
+      score: frag(`(case when c.search_text like ? then 0.7 else 0 end + 0.3 * word_similarity(?, c.search_text))::float8`, `%${t}%`, t),
+    };
+  }
+  return {
+    where: frag('c.search_text like ?', `%${t}%`),
+    score: frag(
+      `(case when ${wholeWord.sql} then 1.0 when ${wordStart.sql} then 0.9 else 0.7 end)::float8`,
+      ...wholeWord.params,
+      ...wordStart.params,
+    ),
+  };
 }
 
 export async function searchComplexes(em: EntityManager, userId: string, query: ComplexSearchQuery): Promise<ComplexListResponse> {
@@ -76,63 +197,57 @@ export async function searchComplexes(em: EntityManager, userId: string, query: 
   }
   if (memberships.length === 0) return { items: [], total: 0, page: query.page, pageSize: query.pageSize };
 
+  const terms = searchTerms(query.q ?? '');
+  const strict = await runSearch(em, userId, memberships, query, terms, false);
+  // Nothing matched exactly: let substring terms match by word similarity (typos), once.
+  if (strict.total === 0 && terms.some((term) => term.kind === 'substring')) {
+    return runSearch(em, userId, memberships, query, terms, true);
+  }
+  return strict;
+}
+
+async function runSearch(
+  em: EntityManager,
+  userId: string,
+  memberships: readonly MembershipInfo[],
+  query: ComplexSearchQuery,
+  terms: readonly SearchTerm[],
+  fuzzy: boolean,
+): Promise<ComplexListResponse> {
   const vis = visibility(memberships, userId);
-  const effectiveStatus = `(case when ${vis.full} then c.status else 'approved' end)`;
-  const where: string[] = [`c.group_id = any(string_to_array(?, ',')::uuid[])`, vis.visible];
-  const params: unknown[] = [csv(memberships.map((m) => m.groupId)), ...vis.visibleParams];
+  const effectiveStatus = frag(`(case when ${vis.full.sql} then c.status else 'approved' end)`, ...vis.full.params);
+  const where: Fragment[] = [inGroups(memberships.map((m) => m.groupId)), vis.visible];
 
-  const tokens = searchTokens(query.q ?? '');
-  let rankSql = 'null::real';
-  const rankParams: unknown[] = [];
-  if (tokens.length > 0) {
-    where.push(`(${tokens.map(() => '? <% c.search_text').join(' or ')})`);
-    params.push(...tokens);
-    rankSql = `((${tokens.map(() => 'word_similarity(?, c.search_text)').join(' + ')}) / ${tokens.length})::real`;
-    rankParams.push(...tokens);
+  let rank = frag('null::real');
+  if (terms.length > 0) {
+    const parts = terms.map((term) => termSql(term, fuzzy));
+    where.push(...parts.map((p) => p.where));
+    const sum = joinFragments(parts.map((p) => p.score), ' + ');
+    rank = frag(`((${sum.sql}) / ${terms.length})::real`, ...sum.params);
   }
-  if (query.metal) {
-    where.push('c.metal = ?');
-    params.push(query.metal);
-  }
-  if (query.oxidationState !== undefined) {
-    where.push('c.oxidation_state = ?');
-    params.push(query.oxidationState);
-  }
-  if (query.dCount !== undefined) {
-    where.push('c.d_electrons = ?');
-    params.push(query.dCount);
-  }
-  if (query.verdict) {
-    where.push('c.verdict = ?');
-    params.push(query.verdict);
-  }
-  if (query.ligand) {
-    where.push('c.ligand_ids @> array[?]::text[]');
-    params.push(query.ligand);
-  }
-  if (query.measurementKind) {
-    where.push('c.measurement_kinds @> array[?]::text[]');
-    params.push(query.measurementKind);
-  }
-  if (query.hasCitation !== undefined) {
-    where.push('c.has_citation = ?');
-    params.push(query.hasCitation);
-  }
-  if (query.status) {
-    where.push(`${effectiveStatus} = ?`);
-    params.push(...vis.fullParams, query.status);
-  }
+  if (query.metal) where.push(frag('c.metal = ?', query.metal));
+  if (query.oxidationState !== undefined) where.push(frag('c.oxidation_state = ?', query.oxidationState));
+  if (query.dCount !== undefined) where.push(frag('c.d_electrons = ?', query.dCount));
+  if (query.verdict) where.push(frag('c.verdict = ?', query.verdict));
+  if (query.ligand) where.push(frag('c.ligand_ids @> array[?]::text[]', query.ligand));
+  if (query.measurementKind) where.push(frag('c.measurement_kinds @> array[?]::text[]', query.measurementKind));
+  if (query.hasCitation !== undefined) where.push(frag('c.has_citation = ?', query.hasCitation));
+  if (query.status) where.push(frag(`${effectiveStatus.sql} = ?`, ...effectiveStatus.params, query.status));
+  const condition = joinFragments(where, ' and ');
 
-  const order = tokens.length > 0 ? 'rank desc, id asc' : 'sort_name asc, id asc';
-  const outerOrder = tokens.length > 0 ? 'p.rank desc, p.id asc' : 'p.sort_name asc, p.id asc';
+  // With text the order is by rank: the name's lower case is only worth computing without text.
+  const sortKey = terms.length > 0 ? 'null::text' : 'lower(c.name)';
+  const order = terms.length > 0 ? 'rank desc, id asc' : 'sort_name asc, id asc';
+  const outerOrder = terms.length > 0 ? 'p.rank desc, p.id asc' : 'p.sort_name asc, p.id asc';
   const offset = (query.page - 1) * query.pageSize;
-  // Rank, visibility and order key once per match (materialised CTE); counting and the page come
-  // from it; the heavier columns (snapshot, measurement count, author) only for the page's rows.
+  // Rank, visibility and order key once per match (materialised CTE, read from the covering
+  // index); counting and the page come from it; the heavier columns (snapshot, measurement
+  // count, author) only for the page's rows.
   const sql = `
     with hits as materialized (
-      select c.id, ${rankSql} as rank, ${vis.full} as full_view, lower(c.name) as sort_name
+      select c.id, ${rank.sql} as rank, ${vis.full.sql} as full_view, ${sortKey} as sort_name
         from complex c
-       where ${where.join(' and ')}
+       where ${condition.sql}
     ), page as (
       select * from hits order by ${order} limit ? offset ?
     )
@@ -149,10 +264,10 @@ export async function searchComplexes(em: EntityManager, userId: string, query: 
       join complex c on c.id = p.id
       left join app_user u on u.id = c.created_by_id
      order by ${outerOrder}`;
-  const rows = await em.execute<Row[]>(sql, [...rankParams, ...vis.fullParams, ...params, query.pageSize, offset]);
+  const rows = await em.execute<Row[]>(sql, [...rank.params, ...vis.full.params, ...condition.params, query.pageSize, offset]);
   let total = rows[0] ? Number(rows[0].total) : 0;
   if (rows.length === 0 && query.page > 1) {
-    const counted = await em.execute<{ n: string }[]>(`select count(*) as n from complex c where ${where.join(' and ')}`, params);
+    const counted = await em.execute<{ n: string }[]>(`select count(*) as n from complex c where ${condition.sql}`, condition.params);
     total = Number(counted[0]?.n ?? 0);
   }
   return { items: rows.map(toListItem), total, page: query.page, pageSize: query.pageSize };
