@@ -22,9 +22,9 @@ module.exports = defineConfig([
     },
   },
   {
-    // fast-check's documented style is `fc.property(fc.integer(), …)`.
+    // fast-check's documented style is `fc.property(fc.integer(), …)`; jest.mock factories must require().
     files: ['tests/**/*.{ts,tsx}'],
-    rules: { 'import/no-named-as-default-member': 'off' },
+    rules: { 'import/no-named-as-default-member': 'off', '@typescript-eslint/no-require-imports': 'off' },
   },
   {
     files: ['app/**/*.{ts,tsx}', 'components/**/*.{ts,tsx}', 'lib/api/**/*.ts', 'lib/schemas/**/*.ts'],
