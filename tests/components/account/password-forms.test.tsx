@@ -5,7 +5,7 @@ import { SignUpScreen } from '@/components/account/sign-up-screen';
 import { apiError, mockFetch, renderWithQueries } from './test-kit';
 
 // jest.mock factories run before imports, so the stand-in is required inside.
-// eslint-disable-next-line @typescript-eslint/no-require-imports
+ 
 jest.mock('expo-router', () => require('./expo-router-mock').expoRouterMock);
 jest.setTimeout(20_000);
 

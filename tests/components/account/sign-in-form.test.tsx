@@ -3,7 +3,7 @@ import { SignInForm } from '@/components/account/sign-in-form';
 import { apiError, demoMe, mockFetch, renderWithQueries, type CannedResponse } from './test-kit';
 
 // jest.mock factories run before imports, so the stand-in is required inside.
-// eslint-disable-next-line @typescript-eslint/no-require-imports
+ 
 jest.mock('expo-router', () => require('./expo-router-mock').expoRouterMock);
 jest.setTimeout(20_000);
 
