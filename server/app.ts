@@ -7,6 +7,7 @@ import { readEnv, type Env } from './env';
 import { attachAccounts, originCheck } from './http/auth-middleware';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { requestLog } from './http/request-log';
+import { rejectUnstorableText } from './http/unstorable-text';
 import { defaultAuthSettings, type AccountsContext, type AuthSettings } from './modules/auth/auth-context';
 import { authRoutes } from './modules/auth/auth.routes';
 import { createLucia } from './modules/auth/lucia';
@@ -93,6 +94,7 @@ export function createApp({ orm, webDir, logRequests = false, ...options }: AppO
   api.use(originCheck(accounts.appUrl));
   api.use(attachAccounts(accounts));
   api.use(express.json({ limit: '1mb', strict: true }));
+  api.use(rejectUnstorableText);
   api.use(healthRoutes(orm));
   api.use(chemRoutes());
   api.use(authRoutes(accounts));

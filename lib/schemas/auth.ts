@@ -6,7 +6,7 @@ import { roleSchema } from './groups';
  * the app's forms (zodResolver) and the API client (parsing responses). Ids are strings, dates ISO.
  */
 
-export const PASSWORD_MIN_LENGTH = 10;
+export const PASSWORD_MIN_LENGTH = 12; // OWASP ASVS 4.0 V2.1.1
 /** Argon2 hashes any length, but a cap keeps a megabyte "password" from costing the server. */
 export const PASSWORD_MAX_LENGTH = 256;
 

@@ -62,7 +62,7 @@ describe('sign-up → verify → sign-in → reset → sign-in, through the mail
     // Reset by e-mail signs out everywhere.
     expect((await request(t.app).post('/api/auth/password-reset/request').send({ email })).status).toBe(202);
     const resetToken = await latestLinkToken(t.app, email, '/reset-password');
-    const weak = await request(t.app).post('/api/auth/password-reset/confirm').send({ token: resetToken, password: 'password123' });
+    const weak = await request(t.app).post('/api/auth/password-reset/confirm').send({ token: resetToken, password: 'password1234' });
     expect(weak.status).toBe(400);
     expect(weak.body.error.fields.password).toMatch(/commonly used/);
     const reset = await request(t.app).post('/api/auth/password-reset/confirm').send({ token: resetToken, password: secondPassword });

@@ -37,11 +37,11 @@ describe('ResetPasswordScreen', () => {
       }),
     });
     renderWithQueries(<ResetPasswordScreen token={TOKEN} />);
-    fireEvent.changeText(screen.getByTestId('reset-password'), 'password123');
-    fireEvent.changeText(screen.getByTestId('reset-password-confirm'), 'password123');
+    fireEvent.changeText(screen.getByTestId('reset-password'), 'password1234');
+    fireEvent.changeText(screen.getByTestId('reset-password-confirm'), 'password1234');
     fireEvent.press(screen.getByTestId('reset-submit'));
     expect(await screen.findByTestId('reset-password-error')).toHaveTextContent(/commonly used passwords/);
-    expect(calls[0]?.body).toEqual({ token: TOKEN, password: 'password123' });
+    expect(calls[0]?.body).toEqual({ token: TOKEN, password: 'password1234' });
   });
 
   it('explains a spent link and offers a new one', async () => {
@@ -87,7 +87,7 @@ describe('SignUpScreen', () => {
   it('explains the password rules, then switches to a check-your-e-mail state', async () => {
     const { calls } = mockFetch({ 'POST /api/auth/sign-up': { status: 202, body: { message: 'sent' } } });
     renderWithQueries(<SignUpScreen email="viewer@larkspur.example.org" />);
-    expect(screen.getByTestId('sign-up-password-hint')).toHaveTextContent(/At least 10 characters/);
+    expect(screen.getByTestId('sign-up-password-hint')).toHaveTextContent(/At least 12 characters/);
     expect(screen.getByTestId('sign-up-email').props.value).toBe('viewer@larkspur.example.org');
     fireEvent.changeText(screen.getByTestId('sign-up-display-name'), 'K. Visiting');
     fireEvent.changeText(screen.getByTestId('sign-up-password'), 'outer sphere bridge');
