@@ -2,8 +2,7 @@
  * Section 4: CSV import of 10 000 rows (5 000 entries × 2 measurements) through the real app —
  * POST /api/imports?dryRun=true&wait=true, then POST /api/imports?wait=true — on a throwaway
  * database, signed in as a contributor of a fresh group. The CSV is the one the exchange bulk
- * test builds (tests/server/exchange-bulk.test.ts, bigCsv), copied here because a test file exports
- * nothing.
+ * test uses (tests/factories/bulk-import-csv.ts).
  */
 import fs from 'node:fs';
 import os from 'node:os';
@@ -14,22 +13,10 @@ import { startPrivateCluster } from '@/server/db/cluster';
 import { migrate, openOrm } from '@/server/db/orm';
 import { upload } from '@/tests/server/exchange-helpers';
 import { Browser, FIXTURE_PASSWORD, makeGroup, makeUser } from '@/tests/server/auth-helpers';
+import { bulkImportCsv } from '@/tests/factories/bulk-import-csv';
 import { round } from './stats';
 
 export const IMPORT_TARGET_SECONDS = 10;
-
-/** 10 000 rows: 5 000 entries with 2 measurements each, over a handful of textbook formulas. */
-export function bulkImportCsv(rows: number): string {
-  const formulas = ['[Cr(H2O)6]3+', '[Co(NH3)6]3+', '[Ni(H2O)6]2+', '[Rh(H2O)6]3+', '[Co(en)2(NO2)Cl]NO3', 'K3[Cr(ox)3]·3H2O'];
-  const lines = ['entry,formula,name,kind,value,unit,temperature_K,doi,authors,journal,year'];
-  for (let i = 0; i < rows; i += 1) {
-    const entry = Math.floor(i / 2);
-    const formula = formulas[entry % formulas.length];
-    const measurement = i % 2 === 0 ? `water-exchange,${(1 + (i % 97)) * 1e-6},s-1,298.15` : `activation-enthalpy,${60 + (i % 50)},kJ/mol,`;
-    lines.push(`${entry},"${formula}",bulk entry ${entry},${measurement},10.5555/bulk.${entry % 300},"A. Author, B. Writer",J. Demo Chem.,2001`);
-  }
-  return `${lines.join('\n')}\n`;
-}
 
 export interface ImportBenchResult {
   rows: number;
