@@ -8,6 +8,7 @@ import { useDebouncedValue } from '@/components/ui/use-debounced-value';
 import { useWideLayout } from '@/components/ui/use-wide-layout';
 import { ExampleChips, GeometryChoice, TemperatureChoice } from './check-options';
 import { FormulaInput } from './formula-input';
+import { LibraryMeasuredCard } from './library-measured-card';
 import {
   CautionsCard,
   HintsCard,
@@ -78,6 +79,7 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
     state.kind === 'result' ? (
       <View style={styles.cards} testID="check-result">
         <VerdictCard result={state.result} />
+        <LibraryMeasuredCard formula={state.result.formula} />
         <CautionsCard result={state.result} />
         {wide ? null : options}
         <IdentityCard result={state.result} />

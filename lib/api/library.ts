@@ -12,6 +12,7 @@ import {
   complexDetailSchema,
   complexListResponseSchema,
   ligandsResponseSchema,
+  measuredResponseSchema,
   reviewQueueResponseSchema,
   reviewResponseSchema,
   revisionDiffSchema,
@@ -372,5 +373,24 @@ export function useRetireComplexMutation(id: string) {
     mutationFn: (input) => retireComplex(id, input),
     onSuccess: (entry) => entryChanged(client, entry),
     onError: (error) => rememberCurrent(client, error),
+  });
+}
+
+/** Measured meets predicted: approved measurements of the same complex in one of my groups. */
+export const measuredKeys = {
+  forFormula: (groupId: string, formula: string) => ['measured', groupId, formula] as const,
+};
+
+export function fetchLibraryMeasured(groupId: string, formula: string, signal?: AbortSignal) {
+  const query = new URLSearchParams({ formula }).toString();
+  return apiRequest(`/groups/${encodeURIComponent(groupId)}/measured?${query}`, measuredResponseSchema, { signal });
+}
+
+export function useLibraryMeasuredQuery(groupId: string | null, formula: string | null) {
+  return useQuery({
+    queryKey: measuredKeys.forFormula(groupId ?? '', formula ?? ''),
+    queryFn: ({ signal }) => fetchLibraryMeasured(groupId ?? '', formula ?? '', signal),
+    enabled: !!groupId && !!formula,
+    staleTime: 60_000,
   });
 }

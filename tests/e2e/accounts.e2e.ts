@@ -24,9 +24,10 @@ describe('signing in as each demo role at phone size', () => {
     it(`${role}: lands on Account with the lab membership and role shown`, async () => {
       const { context, page } = await signedInPage(browser, email, 'phone');
       const errors = collectPageErrors(page);
-      const account = await page.getByTestId('account-signed-in').innerText();
-      assert.match(account, /Larkspur/);
-      assert.match(account, new RegExp(role, 'i'));
+      await page.getByTestId('groups-list').waitFor();
+      const groups = await page.getByTestId('groups-list').innerText();
+      assert.match(groups, /Larkspur/);
+      assert.match(groups, new RegExp(role, 'i'));
       assert.ok((await horizontalOverflowPx(page)) <= 0, 'no horizontal scrolling');
       await screenshot(page, `account-${role}-phone`);
       assert.deepEqual(errors.filter((e) => !/401/.test(e)), []);
