@@ -46,17 +46,5 @@ export function duration(seconds: number): string {
   return `${scientific(seconds)} s`;
 }
 
-export function roman(n: number): string {
-  if (n === 0) return '0';
-  const sign = n < 0 ? '−' : '';
-  let rest = Math.abs(n);
-  const table: [number, string][] = [[10, 'X'], [9, 'IX'], [5, 'V'], [4, 'IV'], [1, 'I']];
-  let out = '';
-  for (const [value, numeral] of table) {
-    while (rest >= value) {
-      out += numeral;
-      rest -= value;
-    }
-  }
-  return sign + out;
-}
+/** Oxidation states as Roman numerals: one definition, in the engine. */
+export { romanNumeral as roman } from '@/lib/chem/metal-ions';

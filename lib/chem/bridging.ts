@@ -17,6 +17,7 @@
  */
 import { parseFormula } from './formula-parser';
 import { ligandWithId } from './ligands';
+import { romanNumeral as roman } from './metal-ions';
 import type { BridgeAssessment, BridgeAttack, BridgingCandidate, RoutePartner } from './route-types';
 import type { LigandDefinition, ParsedFormula } from './types';
 
@@ -207,26 +208,6 @@ export function attackingMetalHardness(metal: string, oxidationState: number): {
   return { hardness: 0.3, label: `${metal}(${roman(oxidationState)}) treated as borderline` };
 }
 
-export function roman(n: number): string {
-  if (n === 0) return '0';
-  if (n < 0) return `−${roman(-n)}`;
-  const table: [number, string][] = [
-    [10, 'X'],
-    [9, 'IX'],
-    [5, 'V'],
-    [4, 'IV'],
-    [1, 'I'],
-  ];
-  let rest = n;
-  let out = '';
-  for (const [value, numeral] of table) {
-    while (rest >= value) {
-      out += numeral;
-      rest -= value;
-    }
-  }
-  return out;
-}
 
 /** Context of one bridged encounter: the metal that opens a site and binds the far end of the bridge. */
 export interface BridgeScoringContext {

@@ -20,12 +20,12 @@ import {
   isWaterLigand,
   ligandToken,
   rankBridgingCandidates,
-  roman,
   scoreBridge,
 } from './bridging';
 import { classifyFormula } from './classify';
 import { parseFormula } from './formula-parser';
 import { marcusCrossRate, MarcusInputError, type MarcusResult } from './marcus';
+import { romanNumeral as roman } from './metal-ions';
 import { findCouple, speciesKey } from './redox-couples';
 import type {
   BridgeAssessment,
