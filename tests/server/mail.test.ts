@@ -69,3 +69,19 @@ describe('reading MIME', () => {
     expect(extractLinks(mail.text)).toEqual(['http://127.0.0.1:8080/verify?token=abcdef']);
   });
 });
+
+describe('the outbox page for people', () => {
+  it('answers a browser with an HTML page, and scripts with JSON', async () => {
+    const t = await createTestApp();
+    try {
+      const response = await request(t.app).get('/api/dev/outbox').set('Accept', 'text/html,application/xhtml+xml');
+      expect(response.status).toBe(200);
+      expect(response.type).toBe('text/html');
+      expect(response.text).toContain('Local outbox');
+      const json = await request(t.app).get('/api/dev/outbox');
+      expect(json.type).toBe('application/json');
+    } finally {
+      await t.close();
+    }
+  });
+});

@@ -3,6 +3,24 @@ import type { Orm } from '@/server/db/orm';
 import { extractLinks, parseMail } from './mime';
 import { DevOutboxMessage } from './outbox-message.entity';
 
+const escapeHtml = (text: string) =>
+  text.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch] ?? ch);
+
+function outboxPage(messages: { receivedAt: string; to: string[]; subject: string; text: string; links: string[] }[]): string {
+  const items = messages
+    .map(
+      (m) => `<article><h2>${escapeHtml(m.subject)}</h2><p class="meta">to ${escapeHtml(m.to.join(', '))} · ${escapeHtml(m.receivedAt)}</p>` +
+        `<ul>${m.links.map((link) => `<li><a href="${escapeHtml(link)}">${escapeHtml(link)}</a></li>`).join('')}</ul>` +
+        `<pre>${escapeHtml(m.text)}</pre></article>`,
+    )
+    .join('');
+  return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>Sphereline — local outbox</title>` +
+    `<style>body{font-family:sans-serif;max-width:760px;margin:2rem auto;padding:0 1rem;color:#16302C;background:#F4F1E8}` +
+    `article{background:#fff;border:1px solid #D8D1C1;border-radius:12px;padding:1rem;margin:1rem 0}.meta{color:#66736F;font-size:.85rem}` +
+    `pre{white-space:pre-wrap;font-size:.85rem}a{color:#1F6B61}</style></head><body><h1>Local outbox (development only)</h1>` +
+    `<p>Mail the local sink received, newest first. Nothing here left this machine.</p>${items || '<p>No messages yet.</p>'}</body></html>`;
+}
+
 /**
  * GET /api/dev/outbox[?to=address]: what the local mail sink received, newest first, so a person
  * (or a test) can follow the links. Only mounted outside production.
@@ -28,6 +46,11 @@ export function devOutboxRoutes(orm: Orm): Router {
         };
       });
     res.setHeader('Cache-Control', 'no-store');
+    // A person opening the address in a browser gets a readable page with clickable links.
+    if (req.accepts(['json', 'html']) === 'html') {
+      res.type('html').send(outboxPage(messages));
+      return;
+    }
     res.json({ messages });
   });
   return router;
