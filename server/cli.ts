@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
 import { classifyMany } from '@/lib/chem/classify';
+import { formulaProblemText } from '@/lib/chem/types';
 import { predictRoutes } from '@/lib/chem/route';
 import { marcusRequestSchema } from '@/lib/schemas/chem';
 import { marcus } from '@/server/modules/chem/chem.service';
@@ -81,7 +82,7 @@ function classifyCommand({ flags, positional }: ParsedArgs) {
     const columns = ['formula', 'metal', 'oxidationState', 'dElectrons', 'spinState', 'geometry', 'verdict', 'logKPerSecond', 'halfLifeSeconds', 'confidence', 'decidedBy', 'molarMassGPerMol', 'error'];
     const rows = results.map((result) =>
       'error' in result
-        ? { formula: result.formula, error: `${result.error} (character ${result.position + 1})` }
+        ? { formula: result.formula, error: formulaProblemText(result.error, result.position) }
         : { ...result, error: '' },
     );
     process.stdout.write(stringify(rows, { header: true, columns }));
@@ -91,7 +92,7 @@ function classifyCommand({ flags, positional }: ParsedArgs) {
     if (flags.has('--json')) {
       print(JSON.stringify(result));
     } else if ('error' in result) {
-      print(`${result.formula}\n  cannot be read: ${result.error} (character ${result.position + 1})\n`);
+      print(`${result.formula}\n  cannot be read: ${formulaProblemText(result.error, result.position)}\n`);
     } else {
       print(
         `${result.formula}\n  ${result.metal}(${result.oxidationState}) d${result.dElectrons}` +

@@ -1,4 +1,5 @@
 import { StyleSheet, TextInput, View } from 'react-native';
+import { formulaProblemText } from '@/lib/chem/types';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, radius, spacing } from '@/components/ui/theme';
 
@@ -42,7 +43,7 @@ export function FormulaInput({ label, value, onChangeText, problem, placeholder,
             {value.slice(caretAt + 1)}
           </AppText>
           <AppText tone="danger">
-            {problem.message} (character {problem.position + 1})
+            {formulaProblemText(problem.message, problem.position)}
           </AppText>
         </View>
       ) : null}

@@ -297,7 +297,7 @@ function IssueTable({ issues, total }: { issues: ImportIssue[]; total: number })
           <AppText style={styles.colColumn}>{issue.column ?? 'whole row'}</AppText>
           <AppText style={styles.colMessage}>
             {issue.message}
-            {issue.position !== undefined ? ` (at character ${issue.position})` : ''}
+            {issue.position !== undefined && !/character \d+/.test(issue.message) ? ` (at character ${issue.position})` : ''}
           </AppText>
         </View>
       ))}

@@ -211,11 +211,11 @@ class FormulaScanner {
       value = value * 10 + digitValue(this.peek());
       digits++;
       this.pos++;
-      if (digits > 3) this.fail(`Count at character ${start} is too long`, start);
+      if (digits > 3) this.fail(`Count at character ${start + 1} is too long`, start);
     }
     if (digits === 0) return 1;
-    if (value === 0) this.fail(`Count 0 for ${what} at character ${start} makes no sense`, start);
-    if (value > MAX_COUNT) this.fail(`Count ${value} for ${what} at character ${start} is too large`, start);
+    if (value === 0) this.fail(`Count 0 for ${what} at character ${start + 1} makes no sense`, start);
+    if (value > MAX_COUNT) this.fail(`Count ${value} for ${what} at character ${start + 1} is too large`, start);
     return value;
   }
 
@@ -272,7 +272,7 @@ class FormulaScanner {
         magnitude = magnitude * 10 + value;
         digits++;
         this.pos++;
-        if (digits > 2) this.fail(`Charge at character ${position} is too large`, position);
+        if (digits > 2) this.fail(`Charge at character ${position + 1} is too large`, position);
       }
     };
     if (isPlus(this.peek()) || isMinus(this.peek())) {
@@ -291,7 +291,7 @@ class FormulaScanner {
       return null;
     }
     if (digits === 0) magnitude = 1;
-    if (magnitude === 0) this.fail(`Charge at character ${position}: write a neutral complex without a charge`, position);
+    if (magnitude === 0) this.fail(`Charge at character ${position + 1}: write a neutral complex without a charge`, position);
     return { charge: sign * magnitude, position };
   }
 }
@@ -306,9 +306,9 @@ function readMetal(scanner: FormulaScanner): { metal: string; position: number }
   const position = scanner.pos;
   const first = scanner.peek() ?? '';
   if (!isUpper(first)) {
-    if (first === '' || first === ']') scanner.fail(`Expected a metal symbol at character ${position}`, position);
+    if (first === '' || first === ']') scanner.fail(`Expected a metal symbol at character ${position + 1}`, position);
     scanner.fail(
-      `Expected the metal symbol at character ${position}, found '${first}': write the metal first, e.g. [Co(NH3)6]`,
+      `Expected the metal symbol at character ${position + 1}, found '${first}': write the metal first, e.g. [Co(NH3)6]`,
       position,
     );
   }
@@ -318,12 +318,12 @@ function readMetal(scanner: FormulaScanner): { metal: string; position: number }
   if (two !== null && isElementSymbol(two)) symbol = two;
   else if (isElementSymbol(first)) symbol = first;
   if (symbol === null) {
-    scanner.fail(`Unknown element '${two ?? first}' at character ${position} (symbols are case-sensitive)`, position);
+    scanner.fail(`Unknown element '${two ?? first}' at character ${position + 1} (symbols are case-sensitive)`, position);
   }
   const element = metalElement(symbol);
   if (element === undefined) {
     scanner.fail(
-      `'${symbol}' at character ${position} is not a metal this tool knows: write the metal first inside [ ], e.g. [Co(NH3)6]3+`,
+      `'${symbol}' at character ${position + 1} is not a metal this tool knows: write the metal first inside [ ], e.g. [Co(NH3)6]3+`,
       position,
     );
   }
@@ -336,7 +336,7 @@ function readMetal(scanner: FormulaScanner): { metal: string; position: number }
     const count = scanner.readCount('the metal');
     if (count > 1) {
       scanner.fail(
-        `Polynuclear species (${count} ${symbol} atoms, character ${countPosition}) are not supported: classify one metal centre at a time`,
+        `Polynuclear species (${count} ${symbol} atoms, character ${countPosition + 1}) are not supported: classify one metal centre at a time`,
         countPosition,
       );
     }
@@ -347,7 +347,7 @@ function readMetal(scanner: FormulaScanner): { metal: string; position: number }
 function unknownLigandMessage(token: string, position: number): string {
   const suggestion = suggestLigandSpelling(token);
   const hint = suggestion !== undefined && suggestion !== token ? ` (names are case-sensitive: did you mean '${suggestion}'?)` : '';
-  return `Unknown ligand '${token}' at character ${position}${hint}`;
+  return `Unknown ligand '${token}' at character ${position + 1}${hint}`;
 }
 
 function addLigand(ligands: LigandInstance[], ligand: LigandDefinition, written: string, count: number, position: number): void {
@@ -370,17 +370,17 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
     const ch = scanner.peek();
     const position = scanner.pos;
     if (ch === undefined) {
-      if (bracketed) scanner.fail(`Unclosed '[' opened at character ${openPosition}`, openPosition);
+      if (bracketed) scanner.fail(`Unclosed '[' opened at character ${openPosition + 1}`, openPosition);
       break;
     }
     if (bracketed && ch === ']') break;
-    if (ch === '[') scanner.fail(`Nested '[' at character ${position} is not supported`, position);
-    if (ch === ')') scanner.fail(`Unmatched ')' at character ${position}`, position);
+    if (ch === '[') scanner.fail(`Nested '[' at character ${position + 1} is not supported`, position);
+    if (ch === ')') scanner.fail(`Unmatched ')' at character ${position + 1}`, position);
     if (ch === '(') {
       const close = scanner.closingParenthesis(position);
-      if (close < 0) scanner.fail(`Unclosed '(' opened at character ${position}`, position);
+      if (close < 0) scanner.fail(`Unclosed '(' opened at character ${position + 1}`, position);
       const token = scanner.input.slice(position + 1, close).trim();
-      if (token.length === 0) scanner.fail(`Empty parentheses at character ${position}`, position);
+      if (token.length === 0) scanner.fail(`Empty parentheses at character ${position + 1}`, position);
       const ligand = findLigand(token);
       if (!ligand) scanner.fail(unknownLigandMessage(token, position + 1), position + 1);
       scanner.pos = close + 1;
@@ -396,7 +396,7 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
       const token = scanner.input.slice(position, end);
       if (digitValue(ch) >= 0 && !bracketed) break;
       if (digitValue(ch) >= 0) {
-        scanner.fail(`Unexpected number '${token}' at character ${position}: a count must follow a ligand`, position);
+        scanner.fail(`Unexpected number '${token}' at character ${position + 1}: a count must follow a ligand`, position);
       }
       scanner.fail(unknownLigandMessage(token, position), position);
     }
@@ -406,7 +406,7 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
   }
   if (ligands.length === 0) {
     scanner.fail(
-      `No ligands on ${metal} (character ${metalPosition}): free metal ions are not classified; write the aqua ion, e.g. [${metal}(H2O)6]`,
+      `No ligands on ${metal} (character ${metalPosition + 1}): free metal ions are not classified; write the aqua ion, e.g. [${metal}(H2O)6]`,
       metalPosition,
     );
   }
@@ -430,10 +430,10 @@ function readIons(
     let token: string;
     if (ch === '(') {
       const close = scanner.closingParenthesis(position);
-      if (close < 0) scanner.fail(`Unclosed '(' opened at character ${position}`, position);
+      if (close < 0) scanner.fail(`Unclosed '(' opened at character ${position + 1}`, position);
       token = scanner.input.slice(position + 1, close).trim();
       definition = table.get(token);
-      if (!definition) scanner.fail(`Unknown ${kind} '${token}' at character ${position + 1}`, position + 1);
+      if (!definition) scanner.fail(`Unknown ${kind} '${token}' at character ${position + 1 + 1}`, position + 1);
       scanner.pos = close + 1;
     } else {
       const match = scanner.matchLongest(table, table === cationByFormula ? cationLengths : anionLengths);
@@ -443,11 +443,11 @@ function readIons(
         token = scanner.input.slice(position, end);
         if (kind === 'anion' && ch === '[') {
           scanner.fail(
-            `A second complex ion at character ${position} is not supported: classify each complex ion on its own`,
+            `A second complex ion at character ${position + 1} is not supported: classify each complex ion on its own`,
             position,
           );
         }
-        scanner.fail(`Unknown ${kind} '${token}' at character ${position}`, position);
+        scanner.fail(`Unknown ${kind} '${token}' at character ${position + 1}`, position);
       }
       token = match.token;
       definition = match.value;
@@ -467,7 +467,7 @@ function readHydrate(scanner: FormulaScanner): number {
   scanner.skipSpaces();
   const countPosition = scanner.pos;
   if (scanner.peek() === 'x' || scanner.peek() === 'n') {
-    scanner.fail(`Give the number of waters of crystallisation at character ${countPosition} (e.g. ·6H2O), not '${scanner.peek()}'`, countPosition);
+    scanner.fail(`Give the number of waters of crystallisation at character ${countPosition + 1} (e.g. ·6H2O), not '${scanner.peek()}'`, countPosition);
   }
   const count = scanner.readCount('water of crystallisation');
   scanner.skipSpaces();
@@ -481,7 +481,7 @@ function readHydrate(scanner: FormulaScanner): number {
     return count;
   }
   scanner.fail(
-    `Only water of crystallisation is understood after '${separator}' (character ${separatorPosition}), e.g. ·6H2O`,
+    `Only water of crystallisation is understood after '${separator}' (character ${separatorPosition + 1}), e.g. ·6H2O`,
     waterPosition,
   );
 }
@@ -552,7 +552,8 @@ function parseUnbracketedSalt(input: string, salt: { start: number; end: number 
     if (!(error instanceof FormulaError)) throw error;
     const toWritten = (position: number) =>
       Math.max(0, Math.min(input.length, position - (position > salt.end + 1 ? 2 : position > salt.start ? 1 : 0)));
-    const message = error.message.replace(/character (\d+)/g, (_, n: string) => `character ${toWritten(Number(n))}`);
+    // Messages count characters from 1; map them back onto the formula as written.
+    const message = error.message.replace(/character (\d+)/g, (_, n: string) => `character ${toWritten(Number(n) - 1) + 1}`);
     throw new FormulaError(message, input, toWritten(error.position));
   }
 }
@@ -626,7 +627,7 @@ function parseCore(input: string): ParsedCore {
   if (bracketIndex < 0) {
     // No brackets: accept a bare entity such as "Cr(H2O)6 3+"; reject a bare ion such as "Fe3+".
     const start = scanner.pos;
-    if (input.indexOf(']') >= 0) scanner.fail(`Unmatched ']' at character ${input.indexOf(']')}`, input.indexOf(']'));
+    if (input.indexOf(']') >= 0) scanner.fail(`Unmatched ']' at character ${input.indexOf(']') + 1}`, input.indexOf(']'));
     const first = scanner.peek();
     const two = isLower(scanner.peek(1)) ? `${first}${scanner.peek(1)}` : '';
     const symbol = two !== '' && isMetalSymbol(two) ? two : first !== undefined && isMetalSymbol(first) ? first : null;
@@ -680,7 +681,7 @@ function parseCore(input: string): ParsedCore {
       written = scanner.readCharge();
     }
     if (complexCount > 1 && anions.length === 0 && cations.length === 0) {
-      scanner.fail(`A count after ']' (character ${afterBracket}) needs counter-ions to balance it`, afterBracket);
+      scanner.fail(`A count after ']' (character ${afterBracket + 1}) needs counter-ions to balance it`, afterBracket);
     }
   }
 
@@ -690,9 +691,9 @@ function parseCore(input: string): ParsedCore {
     const position = scanner.pos;
     const ch = scanner.peek();
     if (ch === '[') {
-      scanner.fail(`A second complex ion at character ${position} is not supported: classify each complex ion on its own`, position);
+      scanner.fail(`A second complex ion at character ${position + 1} is not supported: classify each complex ion on its own`, position);
     }
-    scanner.fail(`Unexpected '${ch}' at character ${position}`, position);
+    scanner.fail(`Unexpected '${ch}' at character ${position + 1}`, position);
   }
 
   const counterIons = anions.length === 0 ? cations : cations.length === 0 ? anions : cations.concat(anions);

@@ -54,7 +54,7 @@ export class RouteInputError extends Error {
   readonly formula: string;
   readonly position: number | null;
   constructor(field: 'oxidant' | 'reductant', formula: string, message: string, position: number | null) {
-    super(`${field} "${formula}": ${message}${position === null ? '' : ` (at character ${position})`}`);
+    super(`${field} "${formula}": ${message}${position === null ? '' : ` (at character ${position + 1})`}`);
     this.name = 'RouteInputError';
     this.field = field;
     this.formula = formula;

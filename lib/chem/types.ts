@@ -3,7 +3,10 @@
  * Pure data shapes: no I/O, no React, no server code may be imported here.
  */
 
-/** Where a parse failed: a message a chemist can act on and the 0-based character index. */
+/**
+ * Where a parse failed: a message a chemist can act on (characters counted from 1, as people count)
+ * and the 0-based character index in `position` (for highlighting).
+ */
 export class FormulaError extends Error {
   readonly position: number;
   readonly formula: string;
@@ -160,4 +163,9 @@ export interface Classification {
   unpairedElectrons?: number | null;
   /** Metal d electrons + 2 per coordination site (ionic counting), for the 18-electron rule. */
   valenceElectronCount?: number;
+}
+
+/** A formula problem for people: the message, with the character (from 1) unless it already names it. */
+export function formulaProblemText(message: string, position: number): string {
+  return /character \d+/.test(message) ? message : `${message} (character ${position + 1})`;
 }

@@ -4,7 +4,7 @@ import {
 } from '@/lib/chem/classify';
 import { marcusCrossRate, MarcusInputError, type MarcusInput } from '@/lib/chem/marcus';
 import { predictRoute, predictRoutes, RouteInputError } from '@/lib/chem/route';
-import { FormulaError } from '@/lib/chem/types';
+import { FormulaError, formulaProblemText } from '@/lib/chem/types';
 import type { ClassifyRequest, MarcusRequest, RouteRequest } from '@/lib/schemas/chem';
 import { AppError } from '@/server/http/errors';
 
@@ -20,7 +20,7 @@ export function classify(request: ClassifyRequest) {
       throw new AppError(
         'VALIDATION_FAILED',
         `The formula cannot be read: ${error.message}`,
-        { formula: `${error.message} (character ${error.position + 1})` },
+        { formula: formulaProblemText(error.message, error.position) },
         { position: error.position },
       );
     }

@@ -84,8 +84,8 @@ describe('parseFormula: errors say what and where', () => {
   }
 
   it.each([
-    ['[Co(xyz)6]3+', 4, /Unknown ligand 'xyz' at character 4/],
-    ['[Co(NH3)6', 0, /Unclosed '\[' opened at character 0/],
+    ['[Co(xyz)6]3+', 4, /Unknown ligand 'xyz' at character 5/],
+    ['[Co(NH3)6', 0, /Unclosed '\[' opened at character 1/],
     ['[Co(nh3)6]3+', 4, /did you mean 'NH3'/],
     ['[Co(NH3)6]Cl2 3+', 14, /Charge 3\+ does not balance the counter-ions: they need the complex to be 2\+/],
     ['Fe3+', 0, /\[Fe\(H2O\)6\]3\+/],
