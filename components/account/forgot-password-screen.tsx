@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { usePasswordResetRequestMutation } from '@/lib/api/auth';
 import { passwordResetRequestInputSchema } from '@/lib/schemas/auth';
@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { AppText } from '@/components/ui/text';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { spacing } from '@/components/ui/theme';
 import { AuthFrame, DevOutboxLink, LinkRow, TextLink } from './auth-frame';
 import { applyServerErrors } from './form-errors';
@@ -21,7 +21,7 @@ export function ForgotPasswordScreen() {
   const request = usePasswordResetRequestMutation();
   const [sentTo, setSentTo] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError, formState: { errors } } = useForm({
+  const { control, handleSubmit, setError } = useForm({
     resolver: zodResolver(passwordResetRequestInputSchema),
     defaultValues: { email: '' },
   });
@@ -64,24 +64,15 @@ export function ForgotPasswordScreen() {
       testID="forgot-screen"
     >
       <View style={styles.form}>
-        <Controller
+        <FormTextField
           control={control}
           name="email"
-          render={({ field }) => (
-            <TextField
-              ref={field.ref}
-              label="E-mail address"
-              value={field.value}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              onSubmitEditing={() => void submit()}
-              error={errors.email?.message}
-              keyboardType="email-address"
-              autoComplete="email"
-              placeholder="name@example.org"
-              testID="forgot-email"
-            />
-          )}
+          label="E-mail address"
+          onSubmitEditing={() => void submit()}
+          keyboardType="email-address"
+          autoComplete="email"
+          placeholder="name@example.org"
+          testID="forgot-email"
         />
         <FormError message={formError} testID="forgot-form-error" />
         <Button

@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link } from 'expo-router';
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { useCreateGroupMutation, useGroupsQuery } from '@/lib/api/groups';
 import { createGroupInputSchema, type GroupSummary } from '@/lib/schemas/groups';
@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { AppText } from '@/components/ui/text';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { colors, radius, spacing } from '@/components/ui/theme';
 import { applyServerErrors } from './form-errors';
 import { QueryContent } from './query-states';
@@ -68,7 +68,7 @@ function CreateGroupForm() {
   const [open, setOpen] = useState(false);
   const [formError, setFormError] = useState<string | null>(null);
   const [created, setCreated] = useState<string | null>(null);
-  const { control, handleSubmit, setError, reset, formState: { errors } } = useForm({
+  const { control, handleSubmit, setError, reset } = useForm({
     resolver: zodResolver(createGroupInputSchema),
     defaultValues: { name: '' },
   });
@@ -98,24 +98,15 @@ function CreateGroupForm() {
 
   return (
     <View style={StyleSheet.flatten([styles.create, styles.createOpen])} testID="create-group-form">
-      <Controller
+      <FormTextField
         control={control}
         name="name"
-        render={({ field }) => (
-          <TextField
-            ref={field.ref}
-            label="New group’s name"
-            hint="Usually the lab’s name. You become its admin and can invite the others."
-            placeholder="e.g. Larkspur Coordination Lab"
-            value={field.value}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            onSubmitEditing={() => void submit()}
-            error={errors.name?.message}
-            autoCapitalize="words"
-            testID="create-group-name"
-          />
-        )}
+        label="New group’s name"
+        hint="Usually the lab’s name. You become its admin and can invite the others."
+        placeholder="e.g. Larkspur Coordination Lab"
+        onSubmitEditing={() => void submit()}
+        autoCapitalize="words"
+        testID="create-group-name"
       />
       <FormError message={formError} testID="create-group-error" />
       <View style={styles.buttons}>

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { ApiError } from '@/lib/api/api-client';
 import { usePasswordResetConfirmMutation } from '@/lib/api/auth';
@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { AppText } from '@/components/ui/text';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { spacing } from '@/components/ui/theme';
 import { AuthFrame, LinkRow, TextLink } from './auth-frame';
 import { applyServerErrors } from './form-errors';
@@ -23,7 +23,7 @@ export function ResetPasswordScreen({ token }: { token: string }) {
   const confirm = usePasswordResetConfirmMutation();
   const [done, setDone] = useState(false);
   const [formError, setFormError] = useState<{ message: string; linkSpent: boolean } | null>(null);
-  const { control, handleSubmit, setError, formState: { errors } } = useForm({
+  const { control, handleSubmit, setError } = useForm({
     resolver: zodResolver(resetPasswordFormSchema),
     defaultValues: { password: '', confirmPassword: '' },
   });
@@ -73,42 +73,24 @@ export function ResetPasswordScreen({ token }: { token: string }) {
   return (
     <AuthFrame title="Choose a new password" intro={PASSWORD_RULES} testID="reset-screen">
       <View style={styles.form}>
-        <Controller
+        <FormTextField
           control={control}
           name="password"
-          render={({ field }) => (
-            <TextField
-              ref={field.ref}
-              label="New password"
-              value={field.value}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              error={errors.password?.message}
-              secureTextEntry
-              autoComplete="new-password"
-              textContentType="newPassword"
-              testID="reset-password"
-            />
-          )}
+          label="New password"
+          secureTextEntry
+          autoComplete="new-password"
+          textContentType="newPassword"
+          testID="reset-password"
         />
-        <Controller
+        <FormTextField
           control={control}
           name="confirmPassword"
-          render={({ field }) => (
-            <TextField
-              ref={field.ref}
-              label="New password, again"
-              value={field.value}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              onSubmitEditing={() => void submit()}
-              error={errors.confirmPassword?.message}
-              secureTextEntry
-              autoComplete="new-password"
-              textContentType="newPassword"
-              testID="reset-password-confirm"
-            />
-          )}
+          label="New password, again"
+          onSubmitEditing={() => void submit()}
+          secureTextEntry
+          autoComplete="new-password"
+          textContentType="newPassword"
+          testID="reset-password-confirm"
         />
         <FormError message={formError?.message} testID="reset-form-error">
           {formError?.linkSpent ? <TextLink href="/forgot-password" testID="reset-request-new">Ask for a new link</TextLink> : null}

@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { ApiError } from '@/lib/api/api-client';
@@ -7,7 +7,7 @@ import { useSignInMutation } from '@/lib/api/auth';
 import { signInInputSchema, type MeResponse } from '@/lib/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { spacing } from '@/components/ui/theme';
 import { DevOutboxLink } from './auth-frame';
 import { DemoLabPanel } from './demo-lab-panel';
@@ -31,7 +31,7 @@ export function SignInForm({ initialEmail = '', onSignedIn, showDemoLab = true, 
 }) {
   const signIn = useSignInMutation();
   const [formError, setFormError] = useState<{ message: string; unverified: boolean } | null>(null);
-  const { control, handleSubmit, setError, setValue, clearErrors, formState: { errors } } = useForm({
+  const { control, handleSubmit, setError, setValue, clearErrors } = useForm({
     resolver: zodResolver(signInInputSchema),
     defaultValues: { email: initialEmail, password: '' },
   });
@@ -58,43 +58,25 @@ export function SignInForm({ initialEmail = '', onSignedIn, showDemoLab = true, 
 
   return (
     <View style={styles.form}>
-      <Controller
+      <FormTextField
         control={control}
         name="email"
-        render={({ field }) => (
-          <TextField
-            ref={field.ref}
-            label="E-mail address"
-            value={field.value}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={errors.email?.message}
-            keyboardType="email-address"
-            autoComplete="email"
-            textContentType="emailAddress"
-            placeholder="name@example.org"
-            testID="sign-in-email"
-          />
-        )}
+        label="E-mail address"
+        keyboardType="email-address"
+        autoComplete="email"
+        textContentType="emailAddress"
+        placeholder="name@example.org"
+        testID="sign-in-email"
       />
-      <Controller
+      <FormTextField
         control={control}
         name="password"
-        render={({ field }) => (
-          <TextField
-            ref={field.ref}
-            label="Password"
-            value={field.value}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            onSubmitEditing={() => void submit()}
-            error={errors.password?.message}
-            secureTextEntry
-            autoComplete="current-password"
-            textContentType="password"
-            testID="sign-in-password"
-          />
-        )}
+        label="Password"
+        onSubmitEditing={() => void submit()}
+        secureTextEntry
+        autoComplete="current-password"
+        textContentType="password"
+        testID="sign-in-password"
       />
       <FormError message={formError?.message} testID="sign-in-form-error">
         {formError?.unverified ? <DevOutboxLink /> : null}

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { useSignUpMutation } from '@/lib/api/auth';
 import { PASSWORD_MIN_LENGTH, signUpInputSchema } from '@/lib/schemas/auth';
@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { AppText } from '@/components/ui/text';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { spacing } from '@/components/ui/theme';
 import { AuthFrame, DevOutboxLink, LinkRow, TextLink } from './auth-frame';
 import { applyServerErrors, safeNextPath } from './form-errors';
@@ -24,7 +24,7 @@ export function SignUpScreen({ email: invitedEmail = '', next }: { email?: strin
   const signUp = useSignUpMutation();
   const [sentTo, setSentTo] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError, formState: { errors } } = useForm({
+  const { control, handleSubmit, setError } = useForm({
     resolver: zodResolver(signUpInputSchema),
     defaultValues: { displayName: '', email: invitedEmail, password: '' },
   });
@@ -72,61 +72,34 @@ export function SignUpScreen({ email: invitedEmail = '', next }: { email?: strin
       testID="sign-up-screen"
     >
       <View style={styles.form}>
-        <Controller
+        <FormTextField
           control={control}
           name="displayName"
-          render={({ field }) => (
-            <TextField
-              ref={field.ref}
-              label="Display name"
-              hint="How your group sees you, e.g. “A. Werner”."
-              value={field.value}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              error={errors.displayName?.message}
-              autoCapitalize="words"
-              autoComplete="name"
-              testID="sign-up-display-name"
-            />
-          )}
+          label="Display name"
+          hint="How your group sees you, e.g. “A. Werner”."
+          autoCapitalize="words"
+          autoComplete="name"
+          testID="sign-up-display-name"
         />
-        <Controller
+        <FormTextField
           control={control}
           name="email"
-          render={({ field }) => (
-            <TextField
-              ref={field.ref}
-              label="E-mail address"
-              value={field.value}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              error={errors.email?.message}
-              keyboardType="email-address"
-              autoComplete="email"
-              placeholder="name@example.org"
-              testID="sign-up-email"
-            />
-          )}
+          label="E-mail address"
+          keyboardType="email-address"
+          autoComplete="email"
+          placeholder="name@example.org"
+          testID="sign-up-email"
         />
-        <Controller
+        <FormTextField
           control={control}
           name="password"
-          render={({ field }) => (
-            <TextField
-              ref={field.ref}
-              label="Password"
-              hint={PASSWORD_RULES}
-              value={field.value}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              onSubmitEditing={() => void submit()}
-              error={errors.password?.message}
-              secureTextEntry
-              autoComplete="new-password"
-              textContentType="newPassword"
-              testID="sign-up-password"
-            />
-          )}
+          label="Password"
+          hint={PASSWORD_RULES}
+          onSubmitEditing={() => void submit()}
+          secureTextEntry
+          autoComplete="new-password"
+          textContentType="newPassword"
+          testID="sign-up-password"
         />
         <FormError message={formError} testID="sign-up-form-error" />
         <Button
