@@ -14,12 +14,15 @@ export interface TestApp {
 export async function createTestApp(options: { webDir?: string } = {}): Promise<TestApp> {
   const database = await createTestDatabase();
   const orm = await openOrm(database.url);
-  const app = createApp({ orm, webDir: options.webDir });
+  // Review e-mails go out in the background after a commit: let them finish before the database goes.
+  let settleMail: () => Promise<void> = async () => {};
+  const app = createApp({ orm, webDir: options.webDir, onReviewMail: (mail) => (settleMail = () => mail.settle()) });
   return {
     app,
     orm,
     databaseUrl: database.url,
     close: async () => {
+      await settleMail();
       await orm.close(true);
       await database.drop();
     },
