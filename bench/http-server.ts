@@ -3,7 +3,10 @@
  * throwaway database, wrapped in an outer express app that adds two bench-only routes (never in
  * production code):
  *   GET /bench/ping   bare JSON, no middleware: the floor the API endpoints are compared with;
- *   GET /bench/blank  a tiny HTML page: the floor for the browser's time to first result.
+ *   GET /bench/blank  a tiny HTML page: the floor for the browser's time to first result;
+ *   GET /bench/cpu    this process's CPU time so far (µs, user + system): the bench reads it before
+ *                     and after each run for the server's own CPU per request, a figure the load
+ *                     generator sharing the machine's cores does not blur.
  * Prints "LISTENING <port>" on stdout when ready. DATABASE_URL and WEB_DIR come from the parent.
  */
 import express from 'express';
@@ -27,6 +30,10 @@ async function main() {
   outer.disable('x-powered-by');
   outer.get('/bench/ping', (_req, res) => {
     res.json({ status: 'ok' });
+  });
+  outer.get('/bench/cpu', (_req, res) => {
+    const { user, system } = process.cpuUsage();
+    res.json({ cpuMicros: user + system });
   });
   outer.get('/bench/blank', (_req, res) => {
     res.type('html').send(BLANK_HTML);

@@ -1,8 +1,14 @@
 /**
  * Section 2: HTTP. The bench server (bench/http-server.ts: the real createApp() plus two bench-only
  * routes) runs in a child process; autocannon drives it from this process, all on 127.0.0.1.
- * Endpoints are measured in interleaved rounds (ping, health, classify, batch, then again) so the
- * machine's noise falls on all of them alike; each ratio is taken within a round, then the median.
+ * Endpoints are measured in interleaved rounds (ping, live, health, classify, batch, then again) so
+ * the machine's noise falls on all of them alike; each ratio is taken within a round, then the median.
+ *
+ * The bare endpoint of the target is `GET /api/health/live`: an API route that does nothing, behind
+ * the same middleware as /api/classify (security headers, origin check, session lookup, body
+ * parser), so the ratio is the cost of classifying. Two references are reported beside it:
+ * `/bench/ping` (no middleware at all: the floor of Express itself) and `GET /api/health` (which
+ * asks the database).
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
@@ -54,6 +60,8 @@ export async function startBenchServer(root: string, databaseUrl: string, webDir
 
 export interface EndpointFigures {
   requestsPerSecond: number;
+  /** The server process's CPU time per answered request (µs), from /bench/cpu around the run. */
+  serverCpuMicrosPerRequest: number;
   latencyP50Ms: number;
   latencyP99Ms: number;
   non2xx: number;
@@ -68,7 +76,7 @@ export interface HttpOptions {
 
 export const defaultHttpOptions: HttpOptions = { connections: [50, 200], rounds: 3, secondsPerRun: 3 };
 
-type EndpointName = 'ping' | 'health' | 'classify' | 'classifyBatch1000';
+type EndpointName = 'ping' | 'live' | 'health' | 'classify' | 'classifyBatch1000';
 
 interface Endpoint {
   name: EndpointName;
@@ -85,6 +93,7 @@ function endpoints(): Endpoint[] {
   }
   return [
     { name: 'ping', spec: { method: 'GET', path: '/bench/ping' } },
+    { name: 'live', spec: { method: 'GET', path: '/api/health/live' } },
     { name: 'health', spec: { method: 'GET', path: '/api/health' } },
     { name: 'classify', spec: { method: 'POST', path: '/api/classify', bodies: singles } },
     { name: 'classifyBatch1000', spec: { method: 'POST', path: '/api/classify', bodies: batches } },
@@ -94,6 +103,7 @@ function endpoints(): Endpoint[] {
 async function measure(baseUrl: string, endpoint: Endpoint, connections: number, seconds: number): Promise<EndpointFigures> {
   const { method, path: urlPath, bodies } = endpoint.spec;
   let next = 0;
+  const cpuBefore = await serverCpuMicros(baseUrl);
   const result = await autocannon({
     url: `${baseUrl}${urlPath}`,
     connections,
@@ -113,13 +123,21 @@ async function measure(baseUrl: string, endpoint: Endpoint, connections: number,
       },
     ],
   });
+  await drain(baseUrl);
+  const cpuUsed = (await serverCpuMicros(baseUrl)) - cpuBefore;
   return {
     requestsPerSecond: result.requests.total / result.duration,
+    serverCpuMicrosPerRequest: Math.round(cpuUsed / Math.max(1, result.requests.total)),
     latencyP50Ms: result.latency.p50,
     latencyP99Ms: result.latency.p99,
     non2xx: result.non2xx,
     errors: result.errors,
   };
+}
+
+async function serverCpuMicros(baseUrl: string): Promise<number> {
+  const response = await fetch(`${baseUrl}/bench/cpu`);
+  return ((await response.json()) as { cpuMicros: number }).cpuMicros;
 }
 
 /**
@@ -148,9 +166,13 @@ export interface HttpResult {
     string,
     {
       endpoints: Record<EndpointName, EndpointFigures & { requestsPerSecondRuns: number[] }>;
+      classifyVsLive: number;
+      classifyVsLiveRuns: number[];
       classifyVsPing: number;
-      classifyVsPingRuns: number[];
+      liveVsPing: number;
       classifyVsHealth: number;
+      /** live's server CPU per request / classify's: the throughput ratio if the server alone were the limit. */
+      classifyVsLiveByServerCpu: number;
       batchFormulasPerSecond: number;
     }
   >;
@@ -161,7 +183,6 @@ export async function runHttpBench(baseUrl: string, options: HttpOptions = defau
   // A short warm-up of every endpoint (JIT, connection pools, the database pool).
   for (const endpoint of list) {
     await measure(baseUrl, endpoint, 10, 1);
-    await drain(baseUrl);
   }
   const result: HttpResult = { byConnections: {} };
   for (const connections of options.connections) {
@@ -169,7 +190,6 @@ export async function runHttpBench(baseUrl: string, options: HttpOptions = defau
     for (let round = 0; round < options.rounds; round++) {
       for (const endpoint of list) {
         const figures = await measure(baseUrl, endpoint, connections, options.secondsPerRun);
-        await drain(baseUrl);
         runs.set(endpoint.name, [...(runs.get(endpoint.name) ?? []), figures]);
         log(`  ${connections} conn, round ${round + 1}: ${endpoint.name} ${Math.round(figures.requestsPerSecond)} req/s, p99 ${figures.latencyP99Ms} ms`);
       }
@@ -178,6 +198,7 @@ export async function runHttpBench(baseUrl: string, options: HttpOptions = defau
       const figures = runs.get(name) ?? [];
       return {
         requestsPerSecond: median(figures.map((f) => f.requestsPerSecond)),
+        serverCpuMicrosPerRequest: median(figures.map((f) => f.serverCpuMicrosPerRequest)),
         requestsPerSecondRuns: figures.map((f) => f.requestsPerSecond),
         latencyP50Ms: median(figures.map((f) => f.latencyP50Ms)),
         latencyP99Ms: median(figures.map((f) => f.latencyP99Ms)),
@@ -186,21 +207,28 @@ export async function runHttpBench(baseUrl: string, options: HttpOptions = defau
       };
     };
     const pingRuns = runs.get('ping') ?? [];
+    const liveRuns = runs.get('live') ?? [];
     const healthRuns = runs.get('health') ?? [];
     const classifyRuns = runs.get('classify') ?? [];
-    const ratioRuns = classifyRuns.map((f, i) => f.requestsPerSecond / (pingRuns[i]?.requestsPerSecond ?? Number.NaN));
-    const healthRatioRuns = classifyRuns.map((f, i) => f.requestsPerSecond / (healthRuns[i]?.requestsPerSecond ?? Number.NaN));
+    const ratioTo = (base: EndpointFigures[], of: EndpointFigures[] = classifyRuns) =>
+      of.map((f, i) => f.requestsPerSecond / (base[i]?.requestsPerSecond ?? Number.NaN));
+    const liveRatioRuns = ratioTo(liveRuns);
+
     const batch = summarise('classifyBatch1000');
     result.byConnections[String(connections)] = {
       endpoints: {
         ping: summarise('ping'),
+        live: summarise('live'),
         health: summarise('health'),
         classify: summarise('classify'),
         classifyBatch1000: batch,
       },
-      classifyVsPing: median(ratioRuns),
-      classifyVsPingRuns: ratioRuns,
-      classifyVsHealth: median(healthRatioRuns),
+      classifyVsLive: median(liveRatioRuns),
+      classifyVsLiveRuns: liveRatioRuns,
+      classifyVsPing: median(ratioTo(pingRuns)),
+      liveVsPing: median(ratioTo(pingRuns, liveRuns)),
+      classifyVsHealth: median(ratioTo(healthRuns)),
+      classifyVsLiveByServerCpu: median(classifyRuns.map((f, i) => (liveRuns[i]?.serverCpuMicrosPerRequest ?? Number.NaN) / f.serverCpuMicrosPerRequest)),
       batchFormulasPerSecond: batch.requestsPerSecond * 1000,
     };
   }

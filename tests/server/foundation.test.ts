@@ -34,9 +34,14 @@ describe('GET /api/health', () => {
     // Port 1 on loopback: nothing listens there, the connection is refused at once.
     const orm = await openOrm('postgresql://postgres:x@127.0.0.1:1/none');
     try {
-      const response = await request(createApp({ orm })).get('/api/health');
+      const app = createApp({ orm });
+      const response = await request(app).get('/api/health');
       expect(response.status).toBe(503);
       expect(response.body).toEqual({ status: 'degraded', db: 'down' });
+      // Liveness does not depend on the database: the process itself is fine.
+      const live = await request(app).get('/api/health/live');
+      expect(live.status).toBe(200);
+      expect(live.body).toEqual({ status: 'ok' });
     } finally {
       await orm.close(true);
     }
