@@ -1,3 +1,4 @@
+import type { Request } from 'express';
 import type { z } from 'zod';
 import { AppError } from './errors';
 
@@ -13,4 +14,19 @@ export function parseWith<T>(schema: z.ZodType<T>, input: unknown, where = 'body
   const first = Object.entries(fields)[0];
   const summary = first ? `${first[0]}: ${first[1]}` : 'invalid input';
   throw new AppError('VALIDATION_FAILED', `The request ${where} is not valid (${summary}).`, fields);
+}
+
+/**
+ * The JSON body of a route whose body may be left out (submit, retire): none → `{}`. A body in
+ * another type (text/plain, a form) was not parsed, and reading it as "no body" would drop what
+ * was sent without a word: 415 instead.
+ */
+export function optionalJsonBody(req: Request): unknown {
+  if (req.body !== undefined) return req.body;
+  const length = req.headers['content-length'];
+  const hasBody = req.headers['transfer-encoding'] !== undefined || (length !== undefined && length !== '0');
+  if (hasBody) {
+    throw new AppError('UNSUPPORTED_MEDIA', `Send the request body as JSON (Content-Type application/json), not ${req.headers['content-type'] ?? 'an untyped body'}.`);
+  }
+  return {};
 }

@@ -33,10 +33,16 @@ export class Browser {
   cookie: string | null = null;
   constructor(readonly app: Express) {}
 
-  send(method: Method, path: string, body?: unknown) {
+  /** The request with this browser's host, origin and cookie, for bodies `send` does not cover. */
+  raw(method: Method, path: string) {
     let req = request(this.app)[method](path).set('Host', TEST_HOST);
     if (method !== 'get') req = req.set('Origin', TEST_ORIGIN);
     if (this.cookie) req = req.set('Cookie', `${SESSION_COOKIE}=${this.cookie}`);
+    return req;
+  }
+
+  send(method: Method, path: string, body?: unknown) {
+    let req = this.raw(method, path);
     if (body !== undefined) req = req.send(body as object);
     return req.then((response) => {
       const value = sessionCookieFrom(response);

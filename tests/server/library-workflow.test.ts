@@ -123,6 +123,22 @@ describe('workflow transitions by role and status (table-driven)', () => {
     expect(response.status).toBe(400);
     expect(apiErrorBodySchema.parse(response.body).error.fields?.comment).toMatch(/comment is required/);
   });
+
+  it('submit and retire refuse a body that is not JSON (415) instead of acting as if none was sent', async () => {
+    const entry = await entryInState(w, 'draft');
+    for (const [who, action] of [['author', 'submit'], ['curator', 'retire']] as const) {
+      const response = await w[who]
+        .raw('post', `/api/complexes/${entry.id}/${action}`)
+        .set('Content-Type', 'text/plain')
+        .send('{"note":"sent as text"}');
+      expect(response.status).toBe(415);
+      expect(apiErrorBodySchema.parse(response.body).error.message).toMatch(/as JSON/);
+    }
+    const after = await w.author.get(`/api/complexes/${entry.id}`);
+    expect(after.body.status).toBe('draft');
+    // Without a body at all they still work: the note is optional.
+    expect((await w.author.send('post', `/api/complexes/${entry.id}/submit`)).status).toBe(200);
+  });
 });
 
 describe('curators cannot approve their own submission', () => {

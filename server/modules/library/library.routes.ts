@@ -16,7 +16,7 @@ import { z } from 'zod';
 import type { Orm } from '@/server/db/orm';
 import { getAuth, getMembership, isUuid, requireAuth, requireGroupRole } from '@/server/http/auth-middleware';
 import { AppError } from '@/server/http/errors';
-import { parseWith } from '@/server/http/validate';
+import { optionalJsonBody, parseWith } from '@/server/http/validate';
 import { findOrCreateCitation, listCitations } from './citation.service';
 import * as complexes from './complex.service';
 import { reviewQueue, searchComplexes } from './complex-search';
@@ -67,7 +67,7 @@ export function libraryRoutes(orm: Orm): Router {
 
   router.post('/complexes/:id/submit', requireAuth, async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
-    res.json(await complexes.submitComplex(em(), actor(res), id, parseWith(transitionInputSchema, req.body ?? {})));
+    res.json(await complexes.submitComplex(em(), actor(res), id, parseWith(transitionInputSchema, optionalJsonBody(req))));
   });
 
   router.post('/complexes/:id/reviews', requireAuth, async (req, res) => {
@@ -77,7 +77,7 @@ export function libraryRoutes(orm: Orm): Router {
 
   router.post('/complexes/:id/retire', requireAuth, async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
-    res.json(await complexes.retireComplex(em(), actor(res), id, parseWith(transitionInputSchema, req.body ?? {})));
+    res.json(await complexes.retireComplex(em(), actor(res), id, parseWith(transitionInputSchema, optionalJsonBody(req))));
   });
 
   router.get('/complexes/:id/revisions', requireAuth, async (req, res) => {
