@@ -12,11 +12,12 @@ import { LinkRow, TextLink } from './auth-frame';
 import { MailPreferencesCard } from '@/components/exchange/mail-preferences-card';
 import { GroupsCard } from './groups-card';
 import { ProfileCard } from './profile-card';
+import { PasswordCard } from './password-card';
 import { ErrorBlock, LoadingBlock, StaleNotice } from './query-states';
 import { SessionsCard } from './sessions-card';
 import { SignOutCard } from './sign-out-card';
 
-/** The Account tab: a sign-in invitation when signed out; profile, groups, devices and sign-out when in. */
+/** The Account tab: a sign-in invitation when signed out; profile, groups, devices, password and sign-out when in. */
 export function AccountScreen() {
   const me = useMeQuery();
   const retry = () => void me.refetch();
@@ -82,6 +83,7 @@ function SignedIn({ me }: { me: MeResponse }) {
           </View>
           <View style={styles.column}>
             <ProfileCard user={me.user} />
+            <PasswordCard />
             <MailPreferencesCard me={me} />
             <SignOutCard />
           </View>
@@ -91,6 +93,7 @@ function SignedIn({ me }: { me: MeResponse }) {
           <ProfileCard user={me.user} />
           <GroupsCard />
           <SessionsCard />
+          <PasswordCard />
           <MailPreferencesCard me={me} />
           <SignOutCard />
         </View>

@@ -27,7 +27,7 @@ import {
   type ComplexFormValues,
 } from '@/lib/schemas/library-forms';
 import { describeSteps, editSteps, formFromEntry } from './edit-steps';
-import { FormTextField } from './form-field';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { metalLabel } from './library-format';
 import { MeasurementFields } from './measurement-fields';
 import { StaleConflict } from './stale-conflict';

@@ -7,7 +7,7 @@ import { colors, radius, spacing } from '@/components/ui/theme';
 import type { ComplexFormValues } from '@/lib/schemas/library-forms';
 import { measurementKindRules, measurementKinds, type MeasurementKind } from '@/lib/schemas/library';
 import { DoiFillButton } from '@/components/exchange/doi-fill-button';
-import { FormTextField } from './form-field';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { unitDisplay } from './library-format';
 
 /** Hints per kind: what the number means and a typical magnitude (common practice). */

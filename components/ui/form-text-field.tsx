@@ -1,9 +1,10 @@
-import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
+import { Controller, type Control, type FieldPathByValue, type FieldValues } from 'react-hook-form';
 import { TextField, type TextFieldProps } from './text-field';
 
 export type FormTextFieldProps<T extends FieldValues> = Omit<TextFieldProps, 'value' | 'onChangeText' | 'onBlur' | 'error'> & {
   control: Control<T>;
-  name: FieldPath<T>;
+  /** A field holding text (typed, so a number or list field cannot be bound by mistake). */
+  name: FieldPathByValue<T, string>;
 };
 
 /**

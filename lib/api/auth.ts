@@ -6,6 +6,7 @@ import {
   sessionsResponseSchema,
   type MeResponse,
   type MessageResponse,
+  type PasswordChangeInput,
   type PasswordResetConfirmInput,
   type PasswordResetRequestInput,
   type SessionDto,
@@ -54,6 +55,9 @@ export const requestPasswordReset = (input: PasswordResetRequestInput) =>
 
 export const confirmPasswordReset = (input: PasswordResetConfirmInput) =>
   apiRequest('/auth/password-reset/confirm', messageResponseSchema, { method: 'POST', body: input });
+
+export const changePassword = (input: PasswordChangeInput) =>
+  apiRequest('/auth/password', messageResponseSchema, { method: 'POST', body: input });
 
 export const updateMe = (input: UpdateMeInput) =>
   apiRequest('/auth/me', meResponseSchema, { method: 'PATCH', body: input });
@@ -145,6 +149,15 @@ export function usePasswordResetConfirmMutation() {
     mutationFn: confirmPasswordReset,
     // The server signs the person out everywhere after a reset.
     onSuccess: () => identityChanged(client, null),
+  });
+}
+
+export function useChangePasswordMutation() {
+  const client = useQueryClient();
+  return useMutation<MessageResponse, Error, PasswordChangeInput>({
+    mutationFn: changePassword,
+    // This session stays; every other one has ended.
+    onSuccess: () => client.invalidateQueries({ queryKey: authKeys.sessions() }),
   });
 }
 

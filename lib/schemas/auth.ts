@@ -58,6 +58,13 @@ export type PasswordResetRequestInput = z.infer<typeof passwordResetRequestInput
 export const passwordResetConfirmInputSchema = z.object({ token: linkTokenSchema, password: newPasswordSchema });
 export type PasswordResetConfirmInput = z.infer<typeof passwordResetConfirmInputSchema>;
 
+/** Signed in: the current password (re-authentication) and the new one. */
+export const passwordChangeInputSchema = z.object({
+  currentPassword: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(PASSWORD_MAX_LENGTH),
+  newPassword: newPasswordSchema,
+});
+export type PasswordChangeInput = z.infer<typeof passwordChangeInputSchema>;
+
 export const updateMeInputSchema = z.object({ displayName: displayNameSchema });
 export type UpdateMeInput = z.infer<typeof updateMeInputSchema>;
 

@@ -76,5 +76,67 @@ describe('sign-up → verify → sign-in → reset → sign-in, through the mail
     expect(old.status).toBe(401);
     await browser.signIn(email, secondPassword);
     expect((await browser.get('/api/auth/me')).status).toBe(200);
+    const afterReset = (await outboxFor(t.app, email))[0]!; // newest first
+    expect(afterReset.subject).toBe('Sphereline: your password was changed');
+    expect(afterReset.text).toMatch(/reset with a link/);
+  });
+});
+
+describe('changing the password while signed in', () => {
+  const owner = 'changer@larkspur.example.org';
+  const original = 'tetrahedral-nickel-chloride';
+  const replacement = 'low-spin-iron-cyanide-d6';
+
+  it('asks for the current password, keeps this session, ends the others and tells the owner by e-mail', async () => {
+    const desk = new Browser(t.app);
+    expect((await desk.post('/api/auth/sign-up', { email: owner, password: original, displayName: 'Bea Thornbury' })).status).toBe(202);
+    expect((await desk.post('/api/auth/verify', { token: await latestLinkToken(t.app, owner, '/verify') })).status).toBe(200);
+    await desk.signIn(owner, original);
+    const phone = new Browser(t.app);
+    await phone.signIn(owner, original);
+
+    // Signed out: 401, whatever the body.
+    expect((await new Browser(t.app).post('/api/auth/password', { currentPassword: original, newPassword: replacement })).status).toBe(401);
+
+    const wrong = await desk.post('/api/auth/password', { currentPassword: 'not-the-password-at-all', newPassword: replacement });
+    expect(wrong.status).toBe(400);
+    expect(apiErrorBodySchema.parse(wrong.body).error.fields).toEqual({ currentPassword: 'That is not your current password.' });
+    const same = await desk.post('/api/auth/password', { currentPassword: original, newPassword: original });
+    expect(same.status).toBe(400);
+    expect(apiErrorBodySchema.parse(same.body).error.fields?.newPassword).toMatch(/different/);
+    const weak = await desk.post('/api/auth/password', { currentPassword: original, newPassword: 'password1234' });
+    expect(weak.status).toBe(400);
+    expect(apiErrorBodySchema.parse(weak.body).error.fields?.newPassword).toMatch(/commonly used/);
+    const short = await desk.post('/api/auth/password', { currentPassword: original, newPassword: 'short' });
+    expect(short.status).toBe(400);
+    expect(apiErrorBodySchema.parse(short.body).error.fields?.newPassword).toMatch(/at least 12/);
+    // None of the refusals changed anything: both devices are still signed in.
+    expect((await phone.get('/api/auth/me')).status).toBe(200);
+
+    const changed = await desk.post('/api/auth/password', { currentPassword: original, newPassword: replacement });
+    expect(changed.status).toBe(200);
+    expect((await desk.get('/api/auth/me')).status).toBe(200);
+    expect((await phone.get('/api/auth/me')).status).toBe(401);
+    expect(sessionsResponseSchema.parse((await desk.get('/api/auth/sessions')).body).sessions).toHaveLength(1);
+    expect((await request(t.app).post('/api/auth/sign-in').set('Host', TEST_HOST).send({ email: owner, password: original })).status).toBe(401);
+    await new Browser(t.app).signIn(owner, replacement);
+
+    const mail = (await outboxFor(t.app, owner))[0]!; // newest first
+    expect(mail.subject).toBe('Sphereline: your password was changed');
+    expect(mail.text).toMatch(/changed from the account page/);
+    expect(mail.html).toContain('/forgot-password');
+  });
+
+  it('throttles guesses of the current password', async () => {
+    const desk = new Browser(t.app);
+    await desk.signIn(owner, replacement);
+    const statuses: number[] = [];
+    for (let i = 0; i < 6; i += 1) {
+      statuses.push((await desk.post('/api/auth/password', { currentPassword: `guess-number-${i}-wrong`, newPassword: 'another-long-password-x' })).status);
+    }
+    expect(statuses.slice(0, 5)).toEqual([400, 400, 400, 400, 400]);
+    expect(statuses[5]).toBe(429);
+    // Even the right password waits now.
+    expect((await desk.post('/api/auth/password', { currentPassword: replacement, newPassword: 'another-long-password-x' })).status).toBe(429);
   });
 });

@@ -1,5 +1,6 @@
 import { Router, type ErrorRequestHandler, type Request } from 'express';
 import {
+  passwordChangeInputSchema,
   passwordResetConfirmInputSchema,
   passwordResetRequestInputSchema,
   signInInputSchema,
@@ -100,6 +101,13 @@ export function authRoutes(ctx: AccountsContext): Router {
     await auth.confirmPasswordReset(ctx, em(), input);
     clearSessionCookie(req, res);
     res.json(message('Your password is changed and you are signed out everywhere. Sign in with the new password.'));
+  });
+
+  router.post('/auth/password', requireAuth, async (req, res) => {
+    const input = parseWith(passwordChangeInputSchema, req.body);
+    const { user, session } = getAuth(res);
+    await auth.changePassword(ctx, em(), user.id, session.id, input);
+    res.json(message('Your password is changed. Other devices where you were signed in have been signed out.'));
   });
 
   router.get('/auth/sessions', requireAuth, async (_req, res) => {

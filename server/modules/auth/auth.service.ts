@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/core';
 import type {
   MeResponse,
+  PasswordChangeInput,
   PasswordResetConfirmInput,
   SessionDto,
   SignInInput,
@@ -13,6 +14,7 @@ import { ResearchGroup } from '@/server/modules/groups/group.entity';
 import { GroupMembership } from '@/server/modules/groups/membership.entity';
 import {
   alreadyRegisteredMail,
+  passwordChangedMail,
   resetPasswordMail,
   resetUnknownAddressMail,
   verifyEmailMail,
@@ -42,9 +44,10 @@ function rateLimited(retryAfterSeconds: number) {
   );
 }
 
-function assertStrongPassword(password: string, email: string) {
+/** `field` names the form field the reason belongs to (`password`, or `newPassword` when changing). */
+function assertStrongPassword(password: string, email: string, field = 'password') {
   const reason = weakPasswordReason(password, { email });
-  if (reason) throw new AppError('VALIDATION_FAILED', `The password is too weak: ${reason}`, { password: reason });
+  if (reason) throw new AppError('VALIDATION_FAILED', `The password is too weak: ${reason}`, { [field]: reason });
 }
 
 // ---- tokens ------------------------------------------------------------------------------------
@@ -213,6 +216,41 @@ export async function confirmPasswordReset(ctx: AccountsContext, em: EntityManag
   await clearAttempts(em, [`sign-in:address:${owner.email}`]);
   recordAudit(em, { actorId: userId, action: 'user.password-reset', subjectType: 'user', subjectId: userId });
   await em.flush();
+  await ctx.mailer.send(passwordChangedMail(owner.email, owner.displayName, 'reset', link(ctx, '/forgot-password')));
+}
+
+/**
+ * A signed-in change of password: the current password first (a session left open on a shared
+ * computer is not enough, ASVS V3.7.1), wrong guesses throttled like sign-ins. The session that
+ * asked stays; every other one ends; the owner gets an e-mail about it.
+ */
+export async function changePassword(
+  ctx: AccountsContext,
+  em: EntityManager,
+  userId: string,
+  currentSessionId: string,
+  input: PasswordChangeInput,
+) {
+  const rules: ThrottleRule[] = [
+    { key: `password-change:user:${userId}`, limit: ctx.settings.signInFailuresPerAddress, windowSeconds: ctx.settings.signInWindowSeconds },
+  ];
+  const retry = await throttledFor(em, rules);
+  if (retry) throw rateLimited(retry);
+  const user = await em.findOneOrFail(User, { id: userId });
+  if (!(await verifyPassword(user.passwordHash, input.currentPassword))) {
+    await countAttempt(em, rules);
+    throw new AppError('VALIDATION_FAILED', 'The current password is not right.', { currentPassword: 'That is not your current password.' });
+  }
+  if (input.newPassword === input.currentPassword) {
+    throw new AppError('VALIDATION_FAILED', 'The new password is the same as the current one.', { newPassword: 'Choose a password different from the current one.' });
+  }
+  assertStrongPassword(input.newPassword, user.email, 'newPassword');
+  await em.nativeUpdate(User, { id: userId }, { passwordHash: await hashPassword(input.newPassword), updatedAt: new Date() });
+  await em.nativeDelete(UserSession, { userId, id: { $ne: hashSecret(currentSessionId) } });
+  await clearAttempts(em, rules.map((rule) => rule.key));
+  recordAudit(em, { actorId: userId, action: 'user.password-changed', subjectType: 'user', subjectId: userId });
+  await em.flush();
+  await ctx.mailer.send(passwordChangedMail(user.email, user.displayName, 'changed', link(ctx, '/forgot-password')));
 }
 
 // ---- me and sessions ---------------------------------------------------------------------------

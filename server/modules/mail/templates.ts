@@ -81,6 +81,20 @@ export function resetPasswordMail(to: string, displayName: string, url: string, 
   });
 }
 
+/** After any change of the password (ASVS V2.2.3): the owner hears of it even if it was not them. */
+export function passwordChangedMail(to: string, displayName: string, how: 'changed' | 'reset', resetUrl: string): OutgoingMail {
+  return render(to, 'Sphereline: your password was changed', {
+    greeting: `Hello ${displayName},`,
+    paragraphs: [
+      how === 'changed'
+        ? 'The password of your Sphereline account was just changed from the account page. Other devices where you were signed in have been signed out.'
+        : 'The password of your Sphereline account was just reset with a link sent to this address. You have been signed out on every device.',
+    ],
+    action: { label: 'Not you? Choose a new password now', url: resetUrl },
+    after: ['If it was you, there is nothing more to do.'],
+  });
+}
+
 export function resetUnknownAddressMail(to: string, signUpUrl: string): OutgoingMail {
   return render(to, 'Sphereline: password reset requested', {
     greeting: 'Hello,',

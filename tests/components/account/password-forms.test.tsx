@@ -1,5 +1,6 @@
 import { fireEvent, screen, waitFor } from '@testing-library/react-native';
 import { ForgotPasswordScreen } from '@/components/account/forgot-password-screen';
+import { PasswordCard } from '@/components/account/password-card';
 import { ResetPasswordScreen } from '@/components/account/reset-password-screen';
 import { SignUpScreen } from '@/components/account/sign-up-screen';
 import { apiError, mockFetch, renderWithQueries } from './test-kit';
@@ -61,6 +62,42 @@ describe('ResetPasswordScreen', () => {
     renderWithQueries(<ResetPasswordScreen token="" />);
     expect(screen.getByTestId('reset-missing-token')).toBeTruthy();
     expect(screen.queryByTestId('reset-submit')).toBeNull();
+  });
+});
+
+describe('PasswordCard (signed in)', () => {
+  const fill = (current: string, next: string, again: string) => {
+    fireEvent.changeText(screen.getByTestId('password-current'), current);
+    fireEvent.changeText(screen.getByTestId('password-new'), next);
+    fireEvent.changeText(screen.getByTestId('password-confirm'), again);
+    fireEvent.press(screen.getByTestId('password-submit'));
+  };
+
+  it('checks the two new passwords agree before sending anything', async () => {
+    const { fetchMock } = mockFetch({});
+    renderWithQueries(<PasswordCard />);
+    fill('the current one', 'labile aqua complex', 'labile aqua complx');
+    expect(await screen.findByTestId('password-confirm-error')).toHaveTextContent(/The two passwords differ/);
+    expect(fetchMock).not.toHaveBeenCalled();
+  });
+
+  it('puts a wrong current password on its field and sends only current and new', async () => {
+    const { calls } = mockFetch({
+      'POST /api/auth/password': apiError(400, 'VALIDATION_FAILED', 'The current password is not right.', { currentPassword: 'That is not your current password.' }),
+    });
+    renderWithQueries(<PasswordCard />);
+    fill('not my password', 'inert chromium ammine', 'inert chromium ammine');
+    expect(await screen.findByTestId('password-current-error')).toHaveTextContent('That is not your current password.');
+    expect(calls[0]?.body).toEqual({ currentPassword: 'not my password', newPassword: 'inert chromium ammine' });
+  });
+
+  it('says what happened and empties the fields after a change', async () => {
+    mockFetch({ 'POST /api/auth/password': { status: 200, body: { message: 'Your password is changed. Other devices where you were signed in have been signed out.' } } });
+    renderWithQueries(<PasswordCard />);
+    fill('the current one', 'inert chromium ammine', 'inert chromium ammine');
+    expect(await screen.findByTestId('password-done')).toHaveTextContent(/Other devices .* signed out/);
+    expect(screen.getByTestId('password-current').props.value).toBe('');
+    expect(screen.getByTestId('password-new').props.value).toBe('');
   });
 });
 

@@ -55,6 +55,7 @@ export const KNOWN_WRITE_ROUTES: readonly string[] = [
   'PATCH /api/auth/me',
   'POST /api/auth/password-reset/request',
   'POST /api/auth/password-reset/confirm',
+  'POST /api/auth/password',
   'DELETE /api/auth/sessions/:id',
   'POST /api/groups',
   'POST /api/groups/:groupId/invitations',
