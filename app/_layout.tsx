@@ -1,16 +1,30 @@
 import { QueryClientProvider } from '@tanstack/react-query';
-import { useFonts } from 'expo-font';
+import { loadAsync, useFonts } from 'expo-font';
 import { Slot } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
 import { queryClient } from '@/lib/api/query-client';
 import { fontFiles } from '@/components/ui/theme';
+
+// Ask for the shipped fonts as soon as this module runs, before anything renders; useFonts below joins
+// the same requests (expo-font keeps one load per family) and reports the outcome, errors included.
+loadAsync(fontFiles).catch(() => undefined);
 
 export default function RootLayout() {
   // Fonts ship with the app (assets/fonts); an error falls back to system fonts rather than a blank page.
   const [fontsLoaded, fontError] = useFonts(fontFiles);
-  if (!fontsLoaded && !fontError) return null;
+  const fontsSettled = fontsLoaded || !!fontError;
+  // The routes render hidden while the fonts load, so the screen's own chunk downloads beside the fonts
+  // rather than after them; nothing shows before the fonts are in, as before.
   return (
     <QueryClientProvider client={queryClient}>
-      <Slot />
+      <View style={fontsSettled ? styles.shown : styles.waitingForFonts}>
+        <Slot />
+      </View>
     </QueryClientProvider>
   );
 }
+
+const styles = StyleSheet.create({
+  shown: { flex: 1 },
+  waitingForFonts: { flex: 1, display: 'none' },
+});

@@ -1,4 +1,6 @@
-import { ForgotPasswordScreen } from '@/components/account/forgot-password-screen';
+import { deferred } from '@/components/deferred/deferred';
+
+const ForgotPasswordScreen = deferred('ForgotPasswordScreen');
 
 export default function ForgotPassword() {
   return <ForgotPasswordScreen />;

@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { firstParam } from '@/components/account/form-errors';
-import { ResetPasswordScreen } from '@/components/account/reset-password-screen';
+import { deferred } from '@/components/deferred/deferred';
+import { firstParam } from '@/components/ui/route-params';
+
+const ResetPasswordScreen = deferred('ResetPasswordScreen');
 
 export default function ResetPassword() {
   const { token } = useLocalSearchParams<{ token?: string | string[] }>();

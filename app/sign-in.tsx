@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { firstParam } from '@/components/account/form-errors';
-import { SignInScreen } from '@/components/account/sign-in-screen';
+import { deferred } from '@/components/deferred/deferred';
+import { firstParam } from '@/components/ui/route-params';
+
+const SignInScreen = deferred('SignInScreen');
 
 export default function SignIn() {
   const { next, email } = useLocalSearchParams<{ next?: string | string[]; email?: string | string[] }>();

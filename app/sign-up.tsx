@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { firstParam } from '@/components/account/form-errors';
-import { SignUpScreen } from '@/components/account/sign-up-screen';
+import { deferred } from '@/components/deferred/deferred';
+import { firstParam } from '@/components/ui/route-params';
+
+const SignUpScreen = deferred('SignUpScreen');
 
 export default function SignUp() {
   const { next, email } = useLocalSearchParams<{ next?: string | string[]; email?: string | string[] }>();

@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { firstParam } from '@/components/account/form-errors';
-import { VerifyScreen } from '@/components/account/verify-screen';
+import { deferred } from '@/components/deferred/deferred';
+import { firstParam } from '@/components/ui/route-params';
+
+const VerifyScreen = deferred('VerifyScreen');
 
 export default function Verify() {
   const { token } = useLocalSearchParams<{ token?: string | string[] }>();

@@ -1,9 +1,13 @@
 /**
- * Section 5: web. (a) Size of the JavaScript the first screen loads (the <script> tags of the
- * exported index.html), raw and gzip (zlib, default level, as a server would send it), plus the
- * largest modules in them; (b) time from navigation to the first rendered Check result
- * in headless Chromium at 390×844, against a blank page from the same server, medians of N cold
- * loads (a fresh browser context each: no cache), alternating so noise falls on both alike.
+ * Section 5: web. (a) Size of the JavaScript the first screen loads, raw and gzip (zlib, default
+ * level, as a server would send it), plus the largest modules in it. "First screen" is everything the
+ * browser must download before the landing page (/) renders: the <script> tags of the exported
+ * index.html AND the route chunks expo-router fetches before it can draw (every layout, then the
+ * landing route): with async routes those arrive in a second round of requests, and counting only the
+ * script tags left them out. (b) Time from navigation to the first rendered Check result in headless
+ * Chromium at 390×844, against a blank page from the same server, medians of N cold loads (a fresh
+ * browser context each: no cache), alternating so noise falls on both alike; the first, unmeasured
+ * load also lists the scripts requested before the result appeared (in the JSON report).
  */
 import fs from 'node:fs';
 import path from 'node:path';
@@ -18,6 +22,7 @@ export interface BundleFile {
 }
 
 export interface BundleResult {
+  /** index.html's scripts, then the route chunks the landing page needs (layouts, then the route). */
   firstScreen: BundleFile[];
   firstScreenRawBytes: number;
   firstScreenGzipBytes: number;
@@ -50,9 +55,44 @@ function largestModules(source: string, top: number): { count: number; modules: 
   return { count: starts.length, modules: modules.slice(0, top) };
 }
 
+/**
+ * The route chunks of the export, by route file ("./(tabs)/index.tsx" → "/_expo/static/js/web/index-….js"),
+ * read from the entry's route context module: each route's getter names a dependency index, and the
+ * module's dependency map carries the chunk path of each async dependency under "paths".
+ */
+export function routeChunks(entrySource: string): Map<string, string> {
+  const anchor = entrySource.indexOf('"./_layout.tsx"');
+  if (anchor < 0) throw new Error('bench/web.ts: no route context ("./_layout.tsx") in the entry chunk; update routeChunks()');
+  const start = entrySource.lastIndexOf('__d(function', anchor);
+  const next = entrySource.indexOf('__d(function', anchor);
+  const moduleText = entrySource.slice(start, next < 0 ? entrySource.length : next);
+  const dependencyMapText = /,\d+,(\{"0":[^]*?"paths":\{[^}]*\}\})\)/.exec(moduleText)?.[1];
+  if (!dependencyMapText) throw new Error('bench/web.ts: the route context has no chunk paths; update routeChunks()');
+  const dependencyMap = JSON.parse(dependencyMapText) as Record<string, number> & { paths: Record<string, string> };
+  const chunks = new Map<string, string>();
+  for (const match of moduleText.matchAll(/"(\.\/[^"]+)":\{[^{}]*?\w+\[(\d+)\],\w+\.paths\)/g)) {
+    const moduleId = dependencyMap[match[2] ?? ''];
+    const chunk = moduleId === undefined ? undefined : dependencyMap.paths[String(moduleId)];
+    if (match[1] && chunk) chunks.set(match[1], chunk);
+  }
+  return chunks;
+}
+
+/** The landing route: app/index or the index of a (group) at the root, e.g. "./(tabs)/index.tsx". */
+const LANDING_ROUTE = /^\.\/(\([^/]+\)\/)?index\.tsx?$/;
+const LAYOUT_ROUTE = /(^|\/)_layout\.tsx?$/;
+
 export function measureBundle(webDir: string): BundleResult {
   const indexHtml = fs.readFileSync(path.join(webDir, 'index.html'), 'utf8');
-  const scripts = [...indexHtml.matchAll(/<script[^>]+src="([^"]+\.js)"/g)].map((match) => match[1] ?? '');
+  const tags = [...indexHtml.matchAll(/<script[^>]+src="([^"]+\.js)"/g)].map((match) => match[1] ?? '');
+  // With async routes the entry holds no screen: expo-router fetches every layout's chunk, then the
+  // landing route's, before the first frame (seen in Chromium's requests). Those count too.
+  const entry = tags.find((src) => /\/entry-[^/]*\.js$/.test(src));
+  const routes = entry ? routeChunks(fs.readFileSync(path.join(webDir, entry.replace(/^\//, '')), 'utf8')) : new Map<string, string>();
+  const layouts = [...routes].filter(([route]) => LAYOUT_ROUTE.test(route)).map(([, chunk]) => chunk);
+  const landing = [...routes].filter(([route]) => LANDING_ROUTE.test(route)).map(([, chunk]) => chunk);
+  if (routes.size > 0 && landing.length === 0) throw new Error('bench/web.ts: no landing route chunk found; update LANDING_ROUTE');
+  const scripts = [...new Set([...tags, ...layouts, ...landing])];
   const firstScreen = scripts.map((src) => {
     const data = fs.readFileSync(path.join(webDir, src.replace(/^\//, '')));
     return { file: src, rawBytes: data.length, gzipBytes: gzipSize(data) };
@@ -66,7 +106,7 @@ export function measureBundle(webDir: string): BundleResult {
     allJsRawBytes += data.length;
     allJsGzipBytes += gzipSize(data);
   }
-  // Modules of every first-screen file (the entry and any common chunk the export splits off).
+  // Modules of every first-screen file (entry, common chunk, layouts and the landing route).
   const firstScreenSource = firstScreen.map((file) => fs.readFileSync(path.join(webDir, file.file.replace(/^\//, '')), 'utf8')).join('\n');
   const { count, modules } = largestModules(firstScreenSource, 15);
   return {
@@ -96,6 +136,9 @@ export interface FirstResultTiming {
   /** check / blank: how many blank-page loads one Check result costs. */
   ratio: number;
   formula: string;
+  /** Scripts the first (unmeasured) Check load requested before its result appeared, and their gzip total. */
+  scriptsBeforeResult: string[];
+  scriptsBeforeResultGzipBytes: number;
 }
 
 export async function measureFirstResult(baseUrl: string, loads = 5, formula = '[Co(NH3)5Cl]Cl2'): Promise<FirstResultTiming> {
@@ -104,19 +147,42 @@ export async function measureFirstResult(baseUrl: string, loads = 5, formula = '
   const blankMs: number[] = [];
   const checkUrl = `${baseUrl}/check?formula=${encodeURIComponent(formula)}`;
   const blankUrl = `${baseUrl}/bench/blank`;
-  const timeLoad = async (url: string) => {
+  let scriptsBeforeResult: string[] = [];
+  const timeLoad = async (url: string, listScripts = false) => {
     const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
+    if (listScripts) {
+      // Page-clock time of the first frame in which the result is displayed (not merely in the DOM: the
+      // app may render it hidden while its fonts load), to compare with the requests' start times.
+      await page.addInitScript(() => {
+        const marks = window as unknown as { resultShownAt?: number };
+        const look = () => {
+          const result = document.querySelector<HTMLElement>('[data-testid="check-result"]');
+          if (result && result.offsetParent !== null) marks.resultShownAt = performance.now();
+          else requestAnimationFrame(look);
+        };
+        requestAnimationFrame(look);
+      });
+    }
     const started = performance.now();
     await page.goto(url, { waitUntil: 'commit' });
     await page.getByTestId('check-result').waitFor({ state: 'visible', timeout: 30_000 });
     const elapsed = performance.now() - started;
+    if (listScripts) {
+      scriptsBeforeResult = await page.evaluate(() => {
+        const shownAt = (window as unknown as { resultShownAt?: number }).resultShownAt ?? Number.POSITIVE_INFINITY;
+        return performance
+          .getEntriesByType('resource')
+          .filter((entry) => entry.startTime < shownAt && new URL(entry.name).pathname.endsWith('.js'))
+          .map((entry) => new URL(entry.name).pathname);
+      });
+    }
     await context.close();
     return elapsed;
   };
   try {
     // One unmeasured load of each (the server's static files into the OS cache, the browser started).
-    await timeLoad(checkUrl);
+    await timeLoad(checkUrl, true);
     await timeLoad(blankUrl);
     for (let load = 0; load < loads; load++) {
       checkMs.push(await timeLoad(checkUrl));
@@ -126,5 +192,19 @@ export async function measureFirstResult(baseUrl: string, loads = 5, formula = '
     await browser.close();
   }
   const ratios = checkMs.map((ms, i) => ms / (blankMs[i] ?? Number.NaN));
-  return { checkMs, blankMs, checkMedianMs: median(checkMs), blankMedianMs: median(blankMs), ratio: median(ratios), formula };
+  let scriptsBeforeResultGzipBytes = 0;
+  for (const src of scriptsBeforeResult) {
+    const response = await fetch(`${baseUrl}${src}`);
+    scriptsBeforeResultGzipBytes += gzipSize(Buffer.from(await response.arrayBuffer()));
+  }
+  return {
+    checkMs,
+    blankMs,
+    checkMedianMs: median(checkMs),
+    blankMedianMs: median(blankMs),
+    ratio: median(ratios),
+    formula,
+    scriptsBeforeResult,
+    scriptsBeforeResultGzipBytes,
+  };
 }

@@ -1,4 +1,6 @@
-import { ReviewQueueScreen } from '@/components/review/review-queue-screen';
+import { deferred } from '@/components/deferred/deferred';
+
+const ReviewQueueScreen = deferred('ReviewQueueScreen');
 
 export default function Review() {
   return <ReviewQueueScreen />;

@@ -1,6 +1,8 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { useCallback } from 'react';
-import { RouteScreen } from '@/components/route/route-screen';
+import { deferred } from '@/components/deferred/deferred';
+
+const RouteScreen = deferred('RouteScreen');
 
 /** /route?oxidant=…&reductant=… opens with the pair filled in. */
 export default function Route() {

@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { firstParam } from '@/components/account/form-errors';
-import { AcceptInvitationScreen } from '@/components/account/accept-invitation-screen';
+import { deferred } from '@/components/deferred/deferred';
+import { firstParam } from '@/components/ui/route-params';
+
+const AcceptInvitationScreen = deferred('AcceptInvitationScreen');
 
 export default function AcceptInvitation() {
   const { token } = useLocalSearchParams<{ token?: string | string[] }>();

@@ -73,8 +73,3 @@ export function safeNextPath(next: string | string[] | undefined, fallback = '/a
   if (!value || !value.startsWith('/') || value.startsWith('//') || value.startsWith('/\\')) return fallback;
   return value;
 }
-
-/** First value of a route parameter (expo-router hands arrays for repeated keys). */
-export function firstParam(value: string | string[] | undefined): string {
-  return (Array.isArray(value) ? value[0] : value)?.trim() ?? '';
-}

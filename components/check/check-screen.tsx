@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Geometry } from '@/lib/chem/types';
+import { deferred } from '@/components/deferred/deferred';
 import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
 import { spacing } from '@/components/ui/theme';
@@ -8,7 +9,6 @@ import { useDebouncedValue } from '@/components/ui/use-debounced-value';
 import { useWideLayout } from '@/components/ui/use-wide-layout';
 import { ExampleChips, GeometryChoice, TemperatureChoice } from './check-options';
 import { FormulaInput } from './formula-input';
-import { LibraryMeasuredCard } from './library-measured-card';
 import {
   CautionsCard,
   HintsCard,
@@ -18,6 +18,10 @@ import {
   VerdictCard,
 } from './result-cards';
 import { useClassification } from './use-classification';
+
+// The measured card needs the signed-in person and the library (the data layer): it arrives after the
+// first verdict instead of holding it back, and shows nothing until it has values anyway.
+const LibraryMeasuredCard = deferred('LibraryMeasuredCard', { fallback: null, afterPaint: true });
 
 export interface CheckScreenProps {
   initialFormula: string;

@@ -5,7 +5,7 @@ import type { Classification } from '@/lib/chem/types';
 import { BulletList } from '@/components/ui/bullet-list';
 import { Card } from '@/components/ui/card';
 import { CautionBox } from '@/components/ui/caution-box';
-import { duration, powerOfTen, roman, scientific } from '@/components/ui/format';
+import { duration, groupedInteger, powerOfTen, roman, scientific } from '@/components/ui/format';
 import { FormulaText } from '@/components/ui/formula-text';
 import { KeyValueGrid } from '@/components/ui/key-value';
 import { AppText } from '@/components/ui/text';
@@ -73,7 +73,7 @@ export function IdentityCard({ result }: { result: Classification }) {
 
 export function LigandFieldCard({ result }: { result: Classification }) {
   const items: { label: string; value: string }[] = [];
-  if (result.deltaOcm !== null) items.push({ label: 'Δo (estimate)', value: `${Math.round(result.deltaOcm).toLocaleString('en')} cm⁻¹` });
+  if (result.deltaOcm !== null) items.push({ label: 'Δo (estimate)', value: `${groupedInteger(result.deltaOcm)} cm⁻¹` });
   if (result.lfseDq !== null) items.push({ label: 'LFSE', value: `${result.lfseDq} Dq` });
   if (result.lfseKJPerMol !== null) items.push({ label: 'LFSE', value: `${result.lfseKJPerMol.toFixed(0)} kJ/mol` });
   if (result.activationEnergyDq) {

@@ -1,5 +1,6 @@
 import { Link } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
+import { usePreloadDeferredScreens } from '@/components/deferred/deferred';
 import { sections } from '@/components/shell/app-shell';
 import { NavGlyph } from '@/components/shell/nav-glyph';
 import { Card } from '@/components/ui/card';
@@ -11,6 +12,8 @@ import { useWideLayout } from '@/components/ui/use-wide-layout';
 /** The landing view: what Sphereline is, and a door to each part of it. */
 export function LandingScreen() {
   const wide = useWideLayout();
+  // Every door here but Check leads to the deferred screens: fetch them while the visitor reads.
+  usePreloadDeferredScreens();
   return (
     <Screen maxWidth={960}>
       <View style={styles.hero} testID="landing">

@@ -1,18 +1,8 @@
 import type { z } from 'zod';
-import { apiErrorBodySchema, type ApiErrorCode } from '@/lib/schemas/errors';
+import { apiErrorBodySchema } from '@/lib/schemas/errors';
+import { ApiError } from './api-error';
 
-/** An error answered by the API, classified by its code (never by message text). */
-export class ApiError extends Error {
-  constructor(
-    readonly status: number,
-    readonly code: ApiErrorCode | 'NETWORK',
-    message: string,
-    readonly fields: Record<string, string> = {},
-  ) {
-    super(message);
-    this.name = 'ApiError';
-  }
-}
+export { ApiError };
 
 /** Same-origin API base: the server serves both the app and /api. */
 const API_BASE = '/api';

@@ -1,5 +1,5 @@
 import { QueryClient } from '@tanstack/react-query';
-import { ApiError } from './api-client';
+import { ApiError } from './api-error';
 
 /** One client for the app: no retries on 4xx (the request itself is wrong), a few on network/5xx. */
 export const queryClient = new QueryClient({

@@ -1,4 +1,6 @@
-import { AccountScreen } from '@/components/account/account-screen';
+import { deferred } from '@/components/deferred/deferred';
+
+const AccountScreen = deferred('AccountScreen');
 
 export default function Account() {
   return <AccountScreen />;

@@ -1,7 +1,9 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
-import { LibraryScreen } from '@/components/library/library-screen';
-import { firstParam } from '@/components/account/form-errors';
+import { deferred } from '@/components/deferred/deferred';
+import { firstParam } from '@/components/ui/route-params';
 import { useWideLayout } from '@/components/ui/use-wide-layout';
+
+const LibraryScreen = deferred('LibraryScreen');
 
 /** /library (?selected=<id> on a wide screen shows that entry beside the list without leaving it). */
 export default function Library() {

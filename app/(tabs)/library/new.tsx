@@ -1,4 +1,6 @@
-import { ComplexFormScreen } from '@/components/library/complex-form';
+import { deferred } from '@/components/deferred/deferred';
+
+const ComplexFormScreen = deferred('ComplexFormScreen');
 
 export default function NewLibraryEntry() {
   return <ComplexFormScreen mode="create" />;

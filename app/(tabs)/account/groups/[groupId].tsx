@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { GroupScreen } from '@/components/account/group-screen';
-import { firstParam } from '@/components/account/form-errors';
+import { deferred } from '@/components/deferred/deferred';
+import { firstParam } from '@/components/ui/route-params';
+
+const GroupScreen = deferred('GroupScreen');
 
 export default function Group() {
   const { groupId } = useLocalSearchParams<{ groupId?: string | string[] }>();

@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { firstParam } from '@/components/account/form-errors';
-import { ComplexFormScreen } from '@/components/library/complex-form';
+import { deferred } from '@/components/deferred/deferred';
+import { firstParam } from '@/components/ui/route-params';
+
+const ComplexFormScreen = deferred('ComplexFormScreen');
 
 export default function EditLibraryEntry() {
   const { complexId } = useLocalSearchParams<{ complexId: string }>();

@@ -1,8 +1,10 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
-import { firstParam } from '@/components/account/form-errors';
-import { ComplexDetailView } from '@/components/library/complex-detail';
-import { LibraryScreen } from '@/components/library/library-screen';
+import { deferred } from '@/components/deferred/deferred';
+import { firstParam } from '@/components/ui/route-params';
 import { useWideLayout } from '@/components/ui/use-wide-layout';
+
+const ComplexDetailView = deferred('ComplexDetailView');
+const LibraryScreen = deferred('LibraryScreen');
 
 /** /library/<id>: the entry; on a wide screen with the list beside it. */
 export default function LibraryEntry() {
