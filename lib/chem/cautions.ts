@@ -10,13 +10,14 @@ const withDeferral = (text: string): string => `${text}${DEFER}`;
 
 const PERCHLORATE_ORGANIC = withDeferral('Perchlorate salt with organic ligands: potentially explosive, especially when dry, heated or scraped; prepare small amounts only and prefer a non-oxidising anion (PF6⁻, BF4⁻, triflate).');
 const PERCHLORATE = withDeferral('Perchlorate salt: strong oxidiser; keep away from organic material and do not heat the dry solid.');
-const AIR_SENSITIVE_REDUCTANT: Record<string, string> = {
-  'Cr/2': withDeferral('Cr(II) is a strong reductant and very air-sensitive: handle under nitrogen or argon.'),
-  'V/2': withDeferral('V(II) is a strong reductant and air-sensitive: handle under an inert atmosphere.'),
-  'Ti/3': withDeferral('Ti(III) is air-sensitive: handle under an inert atmosphere.'),
-  'Eu/2': withDeferral('Eu(II) is air-sensitive: handle under an inert atmosphere.'),
-  'U/3': withDeferral('U(III) is air-sensitive and uranium is radioactive and toxic.'),
-};
+// metal → oxidation state → caution (nested maps: no "Cr/2" key string per formula).
+const AIR_SENSITIVE_REDUCTANT: ReadonlyMap<string, ReadonlyMap<number, string>> = new Map([
+  ['Cr', new Map([[2, withDeferral('Cr(II) is a strong reductant and very air-sensitive: handle under nitrogen or argon.')]])],
+  ['V', new Map([[2, withDeferral('V(II) is a strong reductant and air-sensitive: handle under an inert atmosphere.')]])],
+  ['Ti', new Map([[3, withDeferral('Ti(III) is air-sensitive: handle under an inert atmosphere.')]])],
+  ['Eu', new Map([[2, withDeferral('Eu(II) is air-sensitive: handle under an inert atmosphere.')]])],
+  ['U', new Map([[3, withDeferral('U(III) is air-sensitive and uranium is radioactive and toxic.')]])],
+]);
 const METAL_HAZARD: Record<string, string> = {
   Co: withDeferral('Cobalt compounds are skin and respiratory sensitisers and suspected carcinogens: avoid dust and skin contact.'),
   Ni: withDeferral('Nickel compounds are skin sensitisers and carcinogenic by inhalation: avoid dust and skin contact.'),
@@ -37,6 +38,8 @@ const METAL_HAZARD: Record<string, string> = {
   Am: withDeferral('Americium is radioactive: licensed facilities only.'),
   Pm: withDeferral('Promethium has no stable isotope: radioactive material rules apply.'),
 };
+const CYANIDE_COUNTER_ION = withDeferral('Cyanide: contact with acid releases highly toxic hydrogen cyanide (HCN) gas.');
+const AZIDE_COUNTER_ION = withDeferral('Azide: metal azides can be shock- and heat-sensitive explosives; acid releases toxic, explosive hydrazoic acid (HN3).');
 const CHROMIUM_VI = withDeferral('Cr(VI) compounds are carcinogenic, toxic and sensitising.');
 const OSMIUM_VIII = withDeferral('Os(VIII) (OsO4-type) is highly toxic and volatile and fixes tissue, including the eyes: fume hood only.');
 const MANGANESE_VII = withDeferral('Permanganate is a strong oxidiser; keep away from organic material.');
@@ -48,7 +51,8 @@ export function cautionsFor(parsed: Pick<ParsedFormula, 'metal' | 'ligands' | 'c
   for (const instance of parsed.ligands) {
     if ((instance.ligand.composition.C ?? 0) > 0 && instance.ligand.id !== 'CN' && instance.ligand.id !== 'CO') organicLigands = true;
   }
-  const perchlorate = parsed.counterIons.some((ion) => ion.formula === 'ClO4');
+  let perchlorate = false;
+  for (const ion of parsed.counterIons) if (ion.formula === 'ClO4') perchlorate = true;
   if (perchlorate) cautions.push(organicLigands ? PERCHLORATE_ORGANIC : PERCHLORATE);
   for (const instance of parsed.ligands) {
     for (const hazard of instance.ligand.hazards) {
@@ -57,10 +61,10 @@ export function cautionsFor(parsed: Pick<ParsedFormula, 'metal' | 'ligands' | 'c
     }
   }
   for (const ion of parsed.counterIons) {
-    if (ion.formula === 'CN') pushUnique(cautions, withDeferralCached('Cyanide: contact with acid releases highly toxic hydrogen cyanide (HCN) gas'));
-    if (ion.formula === 'N3') pushUnique(cautions, withDeferralCached('Azide: metal azides can be shock- and heat-sensitive explosives; acid releases toxic, explosive hydrazoic acid (HN3)'));
+    if (ion.formula === 'CN') pushUnique(cautions, CYANIDE_COUNTER_ION);
+    if (ion.formula === 'N3') pushUnique(cautions, AZIDE_COUNTER_ION);
   }
-  const reductant = AIR_SENSITIVE_REDUCTANT[`${parsed.metal}/${oxidationState}`];
+  const reductant = AIR_SENSITIVE_REDUCTANT.get(parsed.metal)?.get(oxidationState);
   if (reductant) cautions.push(reductant);
   if (parsed.metal === 'Cr' && oxidationState === 6) cautions.push(CHROMIUM_VI);
   if (parsed.metal === 'Os' && oxidationState === 8) cautions.push(OSMIUM_VIII);

@@ -2,10 +2,22 @@
  * The lability engine's entry point: formula in, Classification out.
  */
 import measuredRateData from '@/data/measured-rates.json';
-import { cautionsFor } from './cautions';
-import { coordinationNumber, predictGeometry, valenceElectronCount, settleFlexibleDenticity } from './electron-count';
-import { parseFormulaWithMolarMass, formatCharge } from './formula-parser';
-import {
+import * as cautionsModule from './cautions';
+import * as electronCounting from './electron-count';
+import * as formulaParser from './formula-parser';
+import * as ligandField from './ligand-field';
+import * as lability from './lability';
+import * as metalIons from './metal-ions';
+import * as numberFormat from './number-format';
+import { FormulaError, type Classification, type ClassifyOptions, type LigandInstance, type MeasuredRate } from './types';
+
+// Under tsx (the server, the bench, scripts) every module is compiled to CommonJS and each use of
+// an imported name becomes a call through a shared getter, a measurable cost in a function that
+// makes ~25 such calls per formula. The names are read once, here. (No import cycles reach classify.)
+const { cautionsFor } = cautionsModule;
+const { coordinationNumber, predictGeometry, valenceElectronCount, settleFlexibleDenticity } = electronCounting;
+const { parseFormulaWithMolarMass, formatCharge } = formulaParser;
+const {
   KJ_PER_MOL_PER_CM,
   activationEnergyDq,
   averageLigandFactor,
@@ -15,17 +27,10 @@ import {
   octahedralLfseDq,
   octahedralOccupancy,
   tetrahedralLfseDq,
-} from './ligand-field';
-import {
-  ONE_MINUTE_LOG_K,
-  confidenceFrom,
-  measuredLogKAt,
-  predictLogK,
-  scaleLogKWithoutEyring,
-  verdictFromLogK,
-} from './lability';
-import { electronConfiguration, ionLabel, ionicRadiusPm, metalElement, metalIon } from './metal-ions';
-import { FormulaError, type Classification, type ClassifyOptions, type LigandInstance, type MeasuredRate } from './types';
+} = ligandField;
+const { ONE_MINUTE_LOG_K, confidenceFrom, measuredLogKAt, predictLogK, scaleLogKWithoutEyring, verdictFromLogK } = lability;
+const { electronConfiguration, ionLabel, ionicRadiusPm, metalElement, metalIon } = metalIons;
+const { formatFixed } = numberFormat;
 
 interface MeasuredRecord {
   species: string;
@@ -47,10 +52,23 @@ function ligandSetKey(entries: [string, number][]): string {
     .join(',');
 }
 
-const measuredByKey: ReadonlyMap<string, { rate: MeasuredRate; species: string }> = new Map(
+interface MeasuredEntry {
+  metal: string;
+  oxidationState: number;
+  /** Ligand id → count, as in the record. */
+  ligandCounts: ReadonlyMap<string, number>;
+  rate: MeasuredRate;
+  species: string;
+}
+
+// One entry per distinct metal/oxidation state/ligand set (a later record with the same set wins).
+const measuredByKey: ReadonlyMap<string, MeasuredEntry> = new Map(
   (measuredRateData.rates as MeasuredRecord[]).map((record) => [
     `${record.metal}/${record.oxidationState}/${ligandSetKey(Object.entries(record.ligands))}`,
     {
+      metal: record.metal,
+      oxidationState: record.oxidationState,
+      ligandCounts: new Map(Object.entries(record.ligands)),
       species: record.species,
       rate: {
         kind: 'water-exchange',
@@ -64,21 +82,37 @@ const measuredByKey: ReadonlyMap<string, { rate: MeasuredRate; species: string }
   ]),
 );
 
-// metal → oxidation states with a measured rate: most formulas are ruled out without building a key.
-const measuredStatesByMetal: ReadonlyMap<string, ReadonlySet<number>> = (() => {
-  const byMetal = new Map<string, Set<number>>();
-  for (const record of measuredRateData.rates as MeasuredRecord[]) {
-    const states = byMetal.get(record.metal) ?? new Set<number>();
-    states.add(record.oxidationState);
-    byMetal.set(record.metal, states);
+// metal → oxidation state → measured entries: a formula is compared with the one or two entries
+// of its ion directly, without building a key string.
+const measuredByIon: ReadonlyMap<string, ReadonlyMap<number, readonly MeasuredEntry[]>> = (() => {
+  const byMetal = new Map<string, Map<number, MeasuredEntry[]>>();
+  for (const entry of measuredByKey.values()) {
+    const byState = byMetal.get(entry.metal) ?? new Map<number, MeasuredEntry[]>();
+    byState.set(entry.oxidationState, [...(byState.get(entry.oxidationState) ?? []), entry]);
+    byMetal.set(entry.metal, byState);
   }
   return byMetal;
 })();
 
-function findMeasured(metal: string, oxidationState: number, ligands: readonly LigandInstance[]): { rate: MeasuredRate; species: string } | undefined {
-  if (measuredStatesByMetal.get(metal)?.has(oxidationState) !== true) return undefined;
-  const entries: [string, number][] = ligands.map((instance) => [instance.ligand.id, instance.count]);
-  return measuredByKey.get(`${metal}/${oxidationState}/${ligandSetKey(entries)}`);
+/** Same ligand set: every instance has the record's count for its id, and every record id is present. */
+function sameLigandSet(ligands: readonly LigandInstance[], ligandCounts: ReadonlyMap<string, number>): boolean {
+  if (ligands.length !== ligandCounts.size) return false;
+  for (const instance of ligands) {
+    if (ligandCounts.get(instance.ligand.id) !== instance.count) return false;
+  }
+  for (const id of ligandCounts.keys()) {
+    if (!ligands.some((instance) => instance.ligand.id === id)) return false;
+  }
+  return true;
+}
+
+function findMeasured(metal: string, oxidationState: number, ligands: readonly LigandInstance[]): MeasuredEntry | undefined {
+  const entries = measuredByIon.get(metal)?.get(oxidationState);
+  if (entries === undefined) return undefined;
+  for (const entry of entries) {
+    if (sameLigandSet(ligands, entry.ligandCounts)) return entry;
+  }
+  return undefined;
 }
 
 // Rough metal factor (10³ cm⁻¹) for ions without a published g: Δo rises ~50 % from 3d to 4d and
@@ -102,7 +136,9 @@ const memoWithOptions = new Map<string, Classification>();
 // keys) do not fill it with objects that survive into the old generation and slow the collector.
 // "Seen once" is a bit set over a hash of the key rather than a set of strings: it keeps no string
 // alive. A hash collision only admits a formula one request early, which changes no result.
-const SEEN_BITS = 1 << 16;
+// 2²⁰ bits (128 KB): with up to SEEN_LIMIT keys marked, under 1 % of one-off formulas are admitted
+// by a collision (6 % with 2¹⁶ bits, each a deep copy that lives on in the memo).
+const SEEN_BITS = 1 << 20;
 const SEEN_LIMIT = 8192;
 const seenOnceBits = new Uint32Array(SEEN_BITS / 32);
 let seenOnceCount = 0;
@@ -212,20 +248,31 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   const cfaeKJ = cfae !== null && dqKJ !== null ? { dissociative: cfae.dissociative * dqKJ, associative: cfae.associative * dqKJ } : null;
   const jahnTeller = isDBlock ? jahnTellerKind(dElectrons, spin.spinState, geometry) : null;
   const electronCount = isDBlock ? valenceElectronCount(dElectrons, cn) : null;
-  const organometallic = ligands.some((instance) => instance.ligand.organometallic === true);
+  // One pass over the ligands for the flags the reasons and the model need.
+  let organometallic = false;
+  let hasNitrosyl = false;
+  let hasHapticLigand = false;
+  let ligandWithoutF = false;
+  for (const instance of ligands) {
+    const ligand = instance.ligand;
+    if (ligand.organometallic === true) organometallic = true;
+    if (ligand.id === 'NO') hasNitrosyl = true;
+    if (ligand.hapticity !== undefined) hasHapticLigand = true;
+    if (ligand.jorgensenF === null && (ligand.fEstimate ?? null) === null) ligandWithoutF = true;
+  }
   const { radiusPm, estimated: radiusEstimated } = ionicRadiusPm(element, oxidationState, spin.spinState);
 
   // --- electron counting reasons
   const shellText = electronShell === 'f' ? `f${fElectrons}` : electronShell === 'sp' ? (dElectrons === 10 ? 'd10 (main group)' : 'noble-gas core (main group)') : `d${dElectrons}`;
   reasons.push(`${label}, ${shellText}; charge ${formatCharge(parsed.complexCharge)}${parsed.counterIons.length > 0 ? ' (from the counter-ions)' : ''}; coordination number ${cn}, ${geometry}${geometrySource === 'given' ? ' (given)' : ''}`);
-  if (ligands.some((instance) => instance.ligand.id === 'NO')) reasons.push('nitrosyl counted as NO⁺ (linear, 2-electron donor) by convention');
-  if (ligands.some((instance) => instance.ligand.hapticity !== undefined)) reasons.push('η5-cyclopentadienyl counted as three coordination sites (6-electron donor) by convention');
+  if (hasNitrosyl) reasons.push('nitrosyl counted as NO⁺ (linear, 2-electron donor) by convention');
+  if (hasHapticLigand) reasons.push('η5-cyclopentadienyl counted as three coordination sites (6-electron donor) by convention');
   if (deltaO !== null) {
     const source = deltaO.gKind === 'aqua' ? 'g taken as the aqua ion’s Δo' : 'Jørgensen g';
-    reasons.push(`Δo ≈ f·g = ${deltaO.fAverage.toFixed(2)} × ${deltaO.g} × 10³ = ${deltaO.deltaOcm} cm⁻¹ (${source}${deltaO.fEstimated ? '; some f values are rough estimates' : ''})`);
+    reasons.push(`Δo ≈ f·g = ${formatFixed(deltaO.fAverage, 2)} × ${deltaO.g} × 10³ = ${deltaO.deltaOcm} cm⁻¹ (${source}${deltaO.fEstimated ? '; some f values are rough estimates' : ''})`);
     if (geometry === 'tetrahedral') reasons.push(`tetrahedral: Δt ≈ 4/9 Δo ≈ ${Math.round((deltaO.deltaOcm * 4) / 9)} cm⁻¹`);
   } else if (hasLigandField) {
-    reasons.push(`Δo not estimable: no published g for ${label}${ligands.some((i) => i.ligand.jorgensenF === null && (i.ligand.fEstimate ?? null) === null) ? ' or no f for a ligand' : ''}; a rough value is used for the rate`);
+    reasons.push(`Δo not estimable: no published g for ${label}${ligandWithoutF ? ' or no f for a ligand' : ''}; a rough value is used for the rate`);
   }
   if (spin.spinState !== null) {
     reasons.push(`${spin.spinState} spin: ${spin.basis}`);
@@ -264,7 +311,7 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     const { logK: measuredLogK, usedEyring } = measuredLogKAt(measuredMatch.rate, temperatureK);
     logK = measuredLogK;
     decidedBy = 'measured';
-    reasons.push(`measured k_ex = ${measuredMatch.rate.kPerSecond.toExponential(1)} s⁻¹ at 25 °C for ${measuredMatch.species} (${measuredMatch.rate.source}) decides; the model alone gives ~10^${predictedLogK.toFixed(1)} s⁻¹`);
+    reasons.push(`measured k_ex = ${measuredMatch.rate.kPerSecond.toExponential(1)} s⁻¹ at 25 °C for ${measuredMatch.species} (${measuredMatch.rate.source}) decides; the model alone gives ~10^${formatFixed(predictedLogK, 1)} s⁻¹`);
     if (Math.abs(temperatureK - 298.15) > 1e-9) {
       reasons.push(usedEyring ? `moved to ${temperatureC} °C with the measured Eyring ΔH‡ = ${measuredMatch.rate.deltaHActivationKJPerMol} kJ/mol` : `moved to ${temperatureC} °C assuming ΔS‡ = 0 (no activation parameters published here)`);
     }
@@ -274,7 +321,7 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   const verdict = verdictFromLogK(logK);
   const halfLifeSeconds = Math.LN2 / 10 ** logK;
   const confidence = confidenceFrom(logK, prediction.roughness, decidedBy === 'measured');
-  reasons.push(`${verdict}: k ≈ 10^${logK.toFixed(1)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${verdict === 'intermediate' ? 'close to' : logK > ONE_MINUTE_LOG_K ? 'faster than' : 'slower than'} the one-minute line)`);
+  reasons.push(`${verdict}: k ≈ 10^${formatFixed(logK, 1)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${verdict === 'intermediate' ? 'close to' : logK > ONE_MINUTE_LOG_K ? 'faster than' : 'slower than'} the one-minute line)`);
   reasons.push(KINETIC_SCALE_NOTE);
 
   const hints = hintsFor(metal, oxidationState, verdict, ligands, dElectrons, geometry);
@@ -355,7 +402,8 @@ const HINT_HEAT = 'Inert at room temperature: plan on heat, a long reflux or a c
 const HINT_INTERMEDIATE = 'Substitution takes minutes: allow time or warm gently.';
 const HINT_STABLE_NOT_INERT = 'Thermodynamic stability is not kinetic inertness: a large formation constant does not stop fast ligand exchange ([Ni(CN)4]²⁻ is very stable yet swaps cyanide quickly).';
 const HINT_INERT_NOT_STABLE = 'Kinetic inertness is not thermodynamic stability: an inert complex may survive conditions that would decompose it at equilibrium ([Co(NH3)6]³⁺ lasts for days in acid).';
-const REDOX_HINTS: Record<string, string[]> = {
+// metal → oxidation state → hints (nested maps: no "Co/3" key string per formula).
+const REDOX_HINTS: ReadonlyMap<string, ReadonlyMap<number, readonly string[]>> = byMetalAndState({
   'Co/3': [
     'Substitute on labile Co(II) first, then oxidise to Co(III) (air or H2O2, often with charcoal).',
     'Traces of Co(II) catalyse substitution on Co(III) through electron exchange (redox catalysis).',
@@ -370,12 +418,24 @@ const REDOX_HINTS: Record<string, string[]> = {
   'Pt/2': ['Use the trans effect to choose which ligand leaves, and allow hours at 40–80 °C.'],
   'Rh/3': ['Reducing agents (e.g. ethanol, traces of Rh(I)) catalyse substitution on Rh(III).'],
   'Fe/3': ['If Fe(III) is inert here, substitute on Fe(II) and oxidise.'],
-};
+});
+
+/** {"Co/3": value} → Co → 3 → value. */
+function byMetalAndState<T>(table: Record<string, T>): ReadonlyMap<string, ReadonlyMap<number, T>> {
+  const byMetal = new Map<string, Map<number, T>>();
+  for (const [key, value] of Object.entries(table)) {
+    const [metal = '', state = ''] = key.split('/');
+    const byState = byMetal.get(metal) ?? new Map<number, T>();
+    byState.set(Number(state), value);
+    byMetal.set(metal, byState);
+  }
+  return byMetal;
+}
 
 function hintsFor(metal: string, oxidationState: number, verdict: string, ligands: readonly LigandInstance[], dElectrons: number, geometry: string): string[] {
   const hints: string[] = [];
   if (verdict === 'inert') {
-    const redox = REDOX_HINTS[`${metal}/${oxidationState}`];
+    const redox = REDOX_HINTS.get(metal)?.get(oxidationState);
     if (redox) for (const hint of redox) hints.push(hint);
     hints.push(HINT_HEAT);
     if (metal === 'Co' && oxidationState === 3 && ligands.some((i) => i.ligand.id === 'NH3' || i.ligand.id === 'en')) hints.push(HINT_INERT_NOT_STABLE);

@@ -19,6 +19,21 @@ const elementBySymbol: ReadonlyMap<string, ElementRecord> = new Map(
   elementRecords.map((record) => [record.symbol, record]),
 );
 
+// Symbols by their character codes (first × 65536 + second, second 0 for a one-letter symbol):
+// the parser looks a symbol up where it is written instead of cutting a string out of the input.
+const symbolByCharCodes: ReadonlyMap<number, string> = new Map(
+  elementRecords.map((record) => [symbolCodeKey(record.symbol.charCodeAt(0), record.symbol.length > 1 ? record.symbol.charCodeAt(1) : 0), record.symbol]),
+);
+
+function symbolCodeKey(first: number, second: number): number {
+  return first * 65536 + second;
+}
+
+/** The element symbol made of these characters (`second` 0 for a one-letter symbol), case-sensitive. */
+export function elementSymbolFromCharCodes(first: number, second: number): string | undefined {
+  return symbolByCharCodes.get(symbolCodeKey(first, second));
+}
+
 export function elementRecord(symbol: string): ElementRecord | undefined {
   return elementBySymbol.get(symbol);
 }
@@ -56,18 +71,30 @@ export function addComposition(
   }
 }
 
-// Each catalogue composition ({C:2, H:8, N:2}) as a list of [symbol, count], made once per object:
-// iterating a short array is much cheaper than for-in over objects of many different shapes.
-const entriesByComposition = new WeakMap<Readonly<Record<string, number>>, readonly (readonly [string, number])[]>();
+/** One element of a composition, with its atomic weight (NaN for a symbol without one). */
+export interface CompositionTerm {
+  symbol: string;
+  count: number;
+  atomicWeight: number;
+}
 
-/** The composition's [symbol, count] pairs in key order (cached per composition object: do not mutate it afterwards). */
-export function compositionEntries(part: Readonly<Record<string, number>>): readonly (readonly [string, number])[] {
-  let entries = entriesByComposition.get(part);
-  if (entries === undefined) {
-    entries = Object.keys(part).map((symbol) => [symbol, part[symbol] ?? 0] as const);
-    entriesByComposition.set(part, entries);
+// Each catalogue composition ({C:2, H:8, N:2}) as a list of terms, made once per object: iterating
+// a short array is much cheaper than for-in over objects of many different shapes, and the weights
+// come without a look-up per formula.
+const termsByComposition = new WeakMap<Readonly<Record<string, number>>, readonly CompositionTerm[]>();
+
+/** The composition's terms in key order (cached per composition object: do not mutate it afterwards). */
+export function compositionTerms(part: Readonly<Record<string, number>>): readonly CompositionTerm[] {
+  let terms = termsByComposition.get(part);
+  if (terms === undefined) {
+    terms = Object.keys(part).map((symbol) => ({
+      symbol,
+      count: part[symbol] ?? 0,
+      atomicWeight: elementBySymbol.get(symbol)?.atomicWeight ?? Number.NaN,
+    }));
+    termsByComposition.set(part, terms);
   }
-  return entries;
+  return terms;
 }
 
 /** Hill-order formula string (C first, then H, then alphabetical), e.g. "C10H8CoN2". */

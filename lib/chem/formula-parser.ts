@@ -4,10 +4,16 @@
  * what is wrong there. The oxidation state follows from the charge balance
  * (counter-ions + complex charge + ligand charges).
  */
-import { atomicWeight, compositionEntries, isElementSymbol } from './elements';
-import { findLigand, ligandTable, ligandTokens, suggestLigandSpelling } from './ligands';
-import { electronConfiguration, isMetalSymbol, metalElement } from './metal-ions';
+import * as elements from './elements';
+import * as ligandsModule from './ligands';
+import * as metalIons from './metal-ions';
 import { FormulaError, type IonPart, type LigandDefinition, type LigandInstance, type ParsedFormula } from './types';
+
+// Read once: under tsx each use of an imported name is a getter call, which shows in the
+// parser's inner loops (see classify.ts).
+const { atomicWeight, compositionTerms, elementRecord, elementSymbolFromCharCodes } = elements;
+const { findLigand, ligandTable, suggestLigandSpelling } = ligandsModule;
+const { electronConfiguration, isMetalSymbol, metalElement } = metalIons;
 
 /** Parsed formula plus what classify() needs beyond the shared ParsedFormula shape. */
 export interface ParsedComplex extends ParsedFormula {
@@ -88,17 +94,42 @@ function lengthsByFirstChar(tokens: Iterable<string>): ReadonlyMap<string, reado
 }
 
 const cationLengths = lengthsByFirstChar(cationByFormula.keys());
-const anionLengths = lengthsByFirstChar(anionByFormula.keys());
-const ligandLengths = lengthsByFirstChar(ligandTokens());
+
+/** A catalogue spelling and what it stands for. */
+interface CatalogueToken<T> {
+  token: string;
+  value: T;
+}
+
+/**
+ * The table's spellings grouped by the code of their first character, longest first: the scanner
+ * tries each against the input in place (no substring to cut and hash), and a match hands back the
+ * table's own string and a ready-made result.
+ */
+function tokensByFirstChar<T>(table: ReadonlyMap<string, T>): ReadonlyMap<number, readonly CatalogueToken<T>[]> {
+  const byFirst = new Map<number, CatalogueToken<T>[]>();
+  for (const [token, value] of table) {
+    const list = byFirst.get(token.charCodeAt(0)) ?? [];
+    list.push({ token, value });
+    byFirst.set(token.charCodeAt(0), list);
+  }
+  for (const list of byFirst.values()) list.sort((a, b) => b.token.length - a.token.length);
+  return byFirst;
+}
+
+const cationTokens = tokensByFirstChar(cationByFormula);
+const anionTokens = tokensByFirstChar(anionByFormula);
+const ligandTokensByFirstChar = tokensByFirstChar(ligandTable);
 
 const MAX_FORMULA_LENGTH = 300;
 const WATER_COMPOSITION: Readonly<Record<string, number>> = { H: 2, O: 1 };
 
 // Scratch space for the composition, reused by every parse (parsing is synchronous): symbols in
-// order of first appearance and their totals. A formula has only a handful of elements, so a
-// linear search beats a Map, and the record is built once at the end.
+// order of first appearance, their totals and atomic weights. A formula has only a handful of
+// elements, so a linear search beats a Map, and the record is built once at the end.
 const scratchSymbols: string[] = [];
 const scratchCounts: number[] = [];
+const scratchWeights: number[] = [];
 let scratchLength = 0;
 
 /** The scratch totals as a composition record (keys in order of first appearance). */
@@ -108,28 +139,37 @@ function compositionFromScratch(): Record<string, number> {
   return composition;
 }
 
+/** The metal's atomic weight for the scratch (NaN if it has none: molarMassFromScratch then throws). */
+function metalAtomicWeight(symbol: string): number {
+  return elementRecord(symbol)?.atomicWeight ?? Number.NaN;
+}
+
 /** Molar mass (g/mol) of the scratch totals: the same sum, in the same order, as molarMassGPerMol(composition). */
 function molarMassFromScratch(): number {
   let total = 0;
   for (let index = 0; index < scratchLength; index++) {
     const count = scratchCounts[index] ?? 0;
-    if (count !== 0) total += atomicWeight(scratchSymbols[index] as string) * count;
+    if (count === 0) continue;
+    const weight = scratchWeights[index] ?? Number.NaN;
+    // NaN: a symbol without an atomic weight; atomicWeight() throws the usual error for it.
+    total += (Number.isNaN(weight) ? atomicWeight(scratchSymbols[index] as string) : weight) * count;
   }
   return total;
 }
 
 function addToScratch(part: Readonly<Record<string, number>>, times: number): void {
-  const entries = compositionEntries(part);
-  for (let entry = 0; entry < entries.length; entry++) {
-    const [symbol, count] = entries[entry] as readonly [string, number];
+  const terms = compositionTerms(part);
+  for (let termIndex = 0; termIndex < terms.length; termIndex++) {
+    const term = terms[termIndex] as elements.CompositionTerm;
     let index = 0;
-    while (index < scratchLength && scratchSymbols[index] !== symbol) index++;
+    while (index < scratchLength && scratchSymbols[index] !== term.symbol) index++;
     if (index === scratchLength) {
-      scratchSymbols[index] = symbol;
+      scratchSymbols[index] = term.symbol;
       scratchCounts[index] = 0;
+      scratchWeights[index] = term.atomicWeight;
       scratchLength++;
     }
-    scratchCounts[index] = (scratchCounts[index] ?? 0) + count * times;
+    scratchCounts[index] = (scratchCounts[index] ?? 0) + term.count * times;
   }
 }
 const MAX_COUNT = 99;
@@ -204,34 +244,53 @@ class FormulaScanner {
 
   /** Reads an optional count (ASCII or subscript digits); returns 1 when none is written. */
   readCount(what: string): number {
+    return this.readCountOf(what, false);
+  }
+
+  /** readCount after a catalogue token; the messages quote it ('NH3'), built only when one is needed. */
+  readTokenCount(token: string): number {
+    return this.readCountOf(token, true);
+  }
+
+  private readCountOf(what: string, quoted: boolean): number {
     const start = this.pos;
     let value = 0;
     let digits = 0;
-    while (digitValue(this.peek()) >= 0) {
-      value = value * 10 + digitValue(this.peek());
+    for (let digit = digitValue(this.peek()); digit >= 0; digit = digitValue(this.peek())) {
+      value = value * 10 + digit;
       digits++;
       this.pos++;
       if (digits > 3) this.fail(`Count at character ${start + 1} is too long`, start);
     }
     if (digits === 0) return 1;
-    if (value === 0) this.fail(`Count 0 for ${what} at character ${start + 1} makes no sense`, start);
-    if (value > MAX_COUNT) this.fail(`Count ${value} for ${what} at character ${start + 1} is too large`, start);
+    const subject = quoted ? `'${what}'` : what;
+    if (value === 0) this.fail(`Count 0 for ${subject} at character ${start + 1} makes no sense`, start);
+    if (value > MAX_COUNT) this.fail(`Count ${value} for ${subject} at character ${start + 1} is too large`, start);
     return value;
   }
 
-  /**
-   * Longest catalogue token starting at the cursor, without consuming it. `lengthsByFirstChar`
-   * lists, longest first, the token lengths that exist for each first character.
-   */
-  matchLongest<T>(table: ReadonlyMap<string, T>, lengthsByFirstChar: ReadonlyMap<string, readonly number[]>): { token: string; value: T } | null {
-    const lengths = lengthsByFirstChar.get(this.input[this.pos] ?? '');
-    if (lengths === undefined) return null;
+  /** Longest catalogue token starting at the cursor (before the trailing spaces), without consuming it. */
+  matchLongest<T>(tokens: ReadonlyMap<number, readonly CatalogueToken<T>[]>): CatalogueToken<T> | null {
+    if (this.pos >= this.end) return null;
+    const candidates = tokens.get(this.input.charCodeAt(this.pos));
+    if (candidates === undefined) return null;
     const available = this.end - this.pos;
-    for (const length of lengths) {
-      if (length > available) continue;
-      const token = this.input.substr(this.pos, length);
-      const value = table.get(token);
-      if (value !== undefined) return { token, value };
+    for (const candidate of candidates) {
+      if (candidate.token.length <= available && this.input.startsWith(candidate.token, this.pos)) return candidate;
+    }
+    return null;
+  }
+
+  /**
+   * The catalogue token written exactly from `start` to `end` (no spaces around it), or null. A
+   * null still leaves the trimmed text to be looked up: catalogue spellings never start or end with a space.
+   */
+  tokenSpanning<T>(tokens: ReadonlyMap<number, readonly CatalogueToken<T>[]>, start: number, end: number): CatalogueToken<T> | null {
+    const candidates = start < end ? tokens.get(this.input.charCodeAt(start)) : undefined;
+    if (candidates === undefined) return null;
+    const length = end - start;
+    for (const candidate of candidates) {
+      if (candidate.token.length === length && this.input.startsWith(candidate.token, start)) return candidate;
     }
     return null;
   }
@@ -259,32 +318,15 @@ class FormulaScanner {
     this.skipSpaces();
     const position = this.pos;
     if (this.peek() === '^') this.pos++;
-    let magnitude = 0;
-    let digits = 0;
-    let sign = 0;
-    const readDigits = (): void => {
-      for (;;) {
-        const ch = this.peek();
-        const ascii = digitValue(ch);
-        const superscript = ch === undefined ? undefined : SUPERSCRIPT_DIGITS.get(ch);
-        const value = ascii >= 0 ? ascii : superscript ?? -1;
-        if (value < 0) return;
-        magnitude = magnitude * 10 + value;
-        digits++;
-        this.pos++;
-        if (digits > 2) this.fail(`Charge at character ${position + 1} is too large`, position);
-      }
-    };
-    if (isPlus(this.peek()) || isMinus(this.peek())) {
-      sign = isPlus(this.peek()) ? 1 : -1;
-      this.pos++;
-      readDigits();
-    } else {
-      readDigits();
-      if (digits > 0 && (isPlus(this.peek()) || isMinus(this.peek()))) {
-        sign = isPlus(this.peek()) ? 1 : -1;
-        this.pos++;
-      }
+    // Sign first ("+3") or digits first ("3+"); no closure here: tsx names every closure it creates.
+    let sign = signOf(this.peek());
+    if (sign !== 0) this.pos++;
+    const digitsStart = this.pos;
+    let magnitude = this.readChargeDigits(position);
+    const digits = this.pos - digitsStart;
+    if (sign === 0 && digits > 0) {
+      sign = signOf(this.peek());
+      if (sign !== 0) this.pos++;
     }
     if (sign === 0) {
       this.pos = save;
@@ -294,6 +336,28 @@ class FormulaScanner {
     if (magnitude === 0) this.fail(`Charge at character ${position + 1}: write a neutral complex without a charge`, position);
     return { charge: sign * magnitude, position };
   }
+
+  /** Reads the digits (ASCII, subscript or superscript) of a charge; each digit is one UTF-16 unit. */
+  private readChargeDigits(chargePosition: number): number {
+    let magnitude = 0;
+    let digits = 0;
+    for (;;) {
+      const ch = this.peek();
+      const ascii = digitValue(ch);
+      const superscript = ch === undefined ? undefined : SUPERSCRIPT_DIGITS.get(ch);
+      const value = ascii >= 0 ? ascii : superscript ?? -1;
+      if (value < 0) return magnitude;
+      magnitude = magnitude * 10 + value;
+      digits++;
+      this.pos++;
+      if (digits > 2) this.fail(`Charge at character ${chargePosition + 1} is too large`, chargePosition);
+    }
+  }
+}
+
+/** 1 for a plus sign, −1 for a minus sign, 0 otherwise. */
+function signOf(ch: string | undefined): number {
+  return isPlus(ch) ? 1 : isMinus(ch) ? -1 : 0;
 }
 
 interface InnerSphere {
@@ -313,12 +377,13 @@ function readMetal(scanner: FormulaScanner): { metal: string; position: number }
     );
   }
   const second = scanner.peek(1);
-  const two = isLower(second) ? `${first}${second}` : null;
-  let symbol: string | null = null;
-  if (two !== null && isElementSymbol(two)) symbol = two;
-  else if (isElementSymbol(first)) symbol = first;
-  if (symbol === null) {
-    scanner.fail(`Unknown element '${two ?? first}' at character ${position + 1} (symbols are case-sensitive)`, position);
+  const hasSecondLetter = isLower(second);
+  // Two letters when the second is lower case and they make a symbol, else the first letter alone.
+  const firstCode = scanner.input.charCodeAt(position);
+  let symbol = hasSecondLetter ? elementSymbolFromCharCodes(firstCode, scanner.input.charCodeAt(position + 1)) : undefined;
+  if (symbol === undefined) symbol = elementSymbolFromCharCodes(firstCode, 0);
+  if (symbol === undefined) {
+    scanner.fail(`Unknown element '${hasSecondLetter ? `${first}${second}` : first}' at character ${position + 1} (symbols are case-sensitive)`, position);
   }
   const element = metalElement(symbol);
   if (element === undefined) {
@@ -379,17 +444,18 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
     if (ch === '(') {
       const close = scanner.closingParenthesis(position);
       if (close < 0) scanner.fail(`Unclosed '(' opened at character ${position + 1}`, position);
-      const token = scanner.input.slice(position + 1, close).trim();
+      const known = scanner.tokenSpanning(ligandTokensByFirstChar, position + 1, close);
+      const token = known?.token ?? scanner.input.slice(position + 1, close).trim();
       if (token.length === 0) scanner.fail(`Empty parentheses at character ${position + 1}`, position);
-      const ligand = findLigand(token);
+      const ligand = known?.value ?? findLigand(token);
       if (!ligand) scanner.fail(unknownLigandMessage(token, position + 1), position + 1);
       scanner.pos = close + 1;
-      const count = scanner.readCount(`'${token}'`);
+      const count = scanner.readTokenCount(token);
       addLigand(ligands, ligand, token, count, position + 1);
       continue;
     }
     if (!bracketed && (isPlus(ch) || isMinus(ch) || ch === '^' || HYDRATE_SEPARATORS.has(ch) || SUPERSCRIPT_DIGITS.has(ch))) break;
-    const match = scanner.matchLongest(ligandTable, ligandLengths);
+    const match = scanner.matchLongest(ligandTokensByFirstChar);
     if (match === null) {
       let end = position + 1;
       while (end < scanner.end && (isLower(scanner.input[end]) || digitValue(scanner.input[end]) >= 0)) end++;
@@ -401,7 +467,7 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
       scanner.fail(unknownLigandMessage(token, position), position);
     }
     scanner.pos += match.token.length;
-    const count = scanner.readCount(`'${match.token}'`);
+    const count = scanner.readTokenCount(match.token);
     addLigand(ligands, match.value, match.token, count, position);
   }
   if (ligands.length === 0) {
@@ -431,12 +497,13 @@ function readIons(
     if (ch === '(') {
       const close = scanner.closingParenthesis(position);
       if (close < 0) scanner.fail(`Unclosed '(' opened at character ${position + 1}`, position);
-      token = scanner.input.slice(position + 1, close).trim();
-      definition = table.get(token);
+      const known = scanner.tokenSpanning(table === cationByFormula ? cationTokens : anionTokens, position + 1, close);
+      token = known?.token ?? scanner.input.slice(position + 1, close).trim();
+      definition = known?.value ?? table.get(token);
       if (!definition) scanner.fail(`Unknown ${kind} '${token}' at character ${position + 1 + 1}`, position + 1);
       scanner.pos = close + 1;
     } else {
-      const match = scanner.matchLongest(table, table === cationByFormula ? cationLengths : anionLengths);
+      const match = scanner.matchLongest(table === cationByFormula ? cationTokens : anionTokens);
       if (match === null) {
         let end = position + 1;
         while (end < scanner.end && (isLower(scanner.input[end]) || digitValue(scanner.input[end]) >= 0)) end++;
@@ -453,9 +520,19 @@ function readIons(
       definition = match.value;
       scanner.pos += token.length;
     }
-    const count = scanner.readCount(`'${token}'`);
+    const count = scanner.readTokenCount(token);
     ions.push({ formula: definition.formula, charge: definition.charge, count, composition: definition.composition });
   }
+}
+
+/** Cations run up to the complex's '['. */
+function isComplexStart(ch: string): boolean {
+  return ch === '[';
+}
+
+/** Anions run up to a hydrate separator or a written charge. */
+function endsAnions(ch: string): boolean {
+  return HYDRATE_SEPARATORS.has(ch) || isPlus(ch) || isMinus(ch) || ch === '^' || digitValue(ch) >= 0 || SUPERSCRIPT_DIGITS.has(ch);
 }
 
 function readHydrate(scanner: FormulaScanner): number {
@@ -496,7 +573,7 @@ function sumIonCharge(ions: readonly IonPart[]): number {
  * Parses one coordination formula. Throws FormulaError (never anything else for string input).
  */
 const ISOMER_DESCRIPTOR = /^(?:cis|trans|fac|mer|rac|[ΔΛδλ])-\s*/i;
-const ISOMER_DESCRIPTOR_FIRST: ReadonlySet<string> = new Set([...'cCtTfFmMrRΔΛδλ']);
+const ISOMER_DESCRIPTOR_FIRST_CODES: ReadonlySet<number> = new Set([...'cCtTfFmMrRΔΛδλ'].map((ch) => ch.charCodeAt(0)));
 
 /**
  * Salts written without brackets, e.g. KMnO4 or Na2WO4·2H2O: a counter-cation prefix followed by a
@@ -609,7 +686,7 @@ function parseCore(input: string): ParsedCore {
   // Isomer descriptors (cis-, trans-, fac-, mer-, Δ-, Λ-) name a stereoisomer; the engine's answer
   // does not depend on them, so they are read and skipped.
   // Only a formula starting with a descriptor's first letter is worth the regular expression.
-  const descriptor = ISOMER_DESCRIPTOR_FIRST.has(input[scanner.pos] ?? '') ? ISOMER_DESCRIPTOR.exec(input.slice(scanner.pos)) : null;
+  const descriptor = ISOMER_DESCRIPTOR_FIRST_CODES.has(input.charCodeAt(scanner.pos)) ? ISOMER_DESCRIPTOR.exec(input.slice(scanner.pos)) : null;
   if (descriptor) scanner.pos += descriptor[0].length;
   if (input.indexOf('[') < 0) {
     const salt = unbracketedSalt(input, scanner.pos);
@@ -656,7 +733,7 @@ function parseCore(input: string): ParsedCore {
     inner = readInnerSphere(scanner, false, start);
     written = scanner.readCharge();
   } else {
-    cations = readIons(scanner, cationByFormula, 'cation', (ch) => ch === '[');
+    cations = readIons(scanner, cationByFormula, 'cation', isComplexStart);
     const openPosition = scanner.pos;
     scanner.pos++; // '['
     inner = readInnerSphere(scanner, true, openPosition);
@@ -674,7 +751,7 @@ function parseCore(input: string): ParsedCore {
         scanner,
         anionByFormula,
         'anion',
-        (ch) => HYDRATE_SEPARATORS.has(ch) || isPlus(ch) || isMinus(ch) || ch === '^' || digitValue(ch) >= 0 || SUPERSCRIPT_DIGITS.has(ch),
+        endsAnions,
       );
       if (anions.length === 0) anionPosition = -1;
       // A charge written after the counter-ions is checked against them below.
@@ -734,6 +811,7 @@ function parseCore(input: string): ParsedCore {
   // Complex ion(s) first (metal, then ligands), then counter-ions, then water: the key order of the record.
   scratchSymbols[0] = inner.metal;
   scratchCounts[0] = complexCount;
+  scratchWeights[0] = metalAtomicWeight(inner.metal);
   scratchLength = 1;
   for (const instance of inner.ligands) addToScratch(instance.ligand.composition, instance.count * complexCount);
   for (const ion of counterIons) addToScratch(ion.composition, ion.count);

@@ -8,7 +8,11 @@
  * there); residuals within ±1.1 log units (see tests/lib/chem/lability.test.ts). Square-planar d8,
  * 18-electron organometallics and f-block ions use the separate, rougher rules below.
  */
+import * as numberFormat from './number-format';
 import type { Confidence, Geometry, LigandInstance, MeasuredRate, SpinState, Verdict } from './types';
+
+// Read once: under tsx each use of an imported name is a getter call (see classify.ts).
+const { formatFixed } = numberFormat;
 
 /** Taube's one-minute criterion: t½ < 60 s ⇔ k > ln2/60 s⁻¹ (Taube, Chem. Rev. 1952, 50, 69). */
 export const ONE_MINUTE_LOG_K = Math.log10(Math.LN2 / 60);
@@ -95,8 +99,13 @@ function chelateTerm(ligands: readonly LigandInstance[]): number {
   return Math.max(CHELATE_CAP, PER_CHELATE_TOOTH * extraTeeth);
 }
 
+function hasLigand(ligands: readonly LigandInstance[], id: string): boolean {
+  for (const instance of ligands) if (instance.ligand.id === id) return true;
+  return false;
+}
+
 function signed(value: number): string {
-  return `${value >= 0 ? '+' : '−'}${Math.abs(value).toFixed(1)}`;
+  return `${value >= 0 ? '+' : '−'}${formatFixed(Math.abs(value), 1)}`;
 }
 
 export function predictLogK(input: LabilityInput): LabilityPrediction {
@@ -141,8 +150,8 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
   let logK = chargeDensityTerm(input.oxidationState, input.radiusPm);
   const zEffective = Math.max(1, Math.min(input.oxidationState, 3));
   const density = (zEffective * zEffective) / input.radiusPm;
-  if (input.oxidationState <= 2) reasons.push(`only ${zText}: low charge density (z²/r = ${(density * 100).toFixed(1)} per 100 pm)`);
-  else if (density > 0.12) reasons.push(`${zText} on a small ion: high charge density holds the ligands (z²/r = ${(density * 100).toFixed(1)} per 100 pm)`);
+  if (input.oxidationState <= 2) reasons.push(`only ${zText}: low charge density (z²/r = ${formatFixed(density * 100, 1)} per 100 pm)`);
+  else if (density > 0.12) reasons.push(`${zText} on a small ion: high charge density holds the ligands (z²/r = ${formatFixed(density * 100, 1)} per 100 pm)`);
   else reasons.push(`${zText}, radius ${input.radiusPm} pm: moderate charge density`);
   if (input.oxidationState > 3) reasons.push(`formal oxidation state ${input.oxidationState}: bonds are largely covalent, charge term capped at 3+`);
 
@@ -190,11 +199,11 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
           const cfaeKJ = cfaeDq * (input.deltaOcm / 10) * KJ_PER_MOL_PER_CM;
           const change = -(CFAE_FRACTION * cfaeKJ) / RT_LN10_KJ;
           logK += change;
-          reasons.push(`crystal-field activation energy ${cfaeDq.toFixed(2)} Dq ≈ ${Math.round(cfaeKJ)} kJ/mol with Δo ≈ ${Math.round(input.deltaOcm)} cm⁻¹ (${signed(change)} log units)`);
+          reasons.push(`crystal-field activation energy ${formatFixed(cfaeDq, 2)} Dq ≈ ${Math.round(cfaeKJ)} kJ/mol with Δo ≈ ${Math.round(input.deltaOcm)} cm⁻¹ (${signed(change)} log units)`);
           if (input.deltaORough) roughness += 1;
         } else {
           roughness += 1;
-          reasons.push(`crystal-field activation energy ${cfaeDq.toFixed(2)} Dq, but no Δo estimate to put it in kJ/mol`);
+          reasons.push(`crystal-field activation energy ${formatFixed(cfaeDq, 2)} Dq, but no Δo estimate to put it in kJ/mol`);
         }
       }
     }
@@ -208,7 +217,7 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
     }
   }
 
-  if (input.oxidationState >= 3 && input.ligands.some((instance) => instance.ligand.id === 'OH')) {
+  if (input.oxidationState >= 3 && hasLigand(input.ligands, 'OH')) {
     logK += HYDROXO_CONJUGATE_BASE;
     reasons.push('hydroxo ligand: π-donation labilises the other ligands (conjugate-base effect)');
   }

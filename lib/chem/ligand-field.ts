@@ -2,9 +2,12 @@
  * Ligand field: Jørgensen Δo = f·g, spin state with a calibrated pairing rule, LFSE and the
  * Basolo–Pearson crystal-field activation energies (CFAE).
  */
-import { ligandFieldFactor } from './ligands';
+import * as ligandsModule from './ligands';
 import type { MetalElement, MetalIon } from './metal-ions';
 import type { Geometry, LigandInstance, SpinState } from './types';
+
+// Read once: under tsx each use of an imported name is a getter call (see classify.ts).
+const { ligandFieldFactor } = ligandsModule;
 
 /** 1 cm⁻¹ = 0.01196266 kJ/mol (CODATA conversion, hc·N_A). */
 export const KJ_PER_MOL_PER_CM = 0.01196266;
@@ -108,7 +111,8 @@ const ACTIVATION_TABLE: readonly Readonly<Record<SpinState, ActivationEnergyDq>>
 export function activationEnergyDq(dElectrons: number, spin: SpinState): ActivationEnergyDq {
   const row = ACTIVATION_TABLE[dElectrons];
   if (!row) throw new RangeError(`d electron count ${dElectrons} is outside 0–10`);
-  return { ...row[spin] };
+  const values = row[spin];
+  return { dissociative: values.dissociative, associative: values.associative };
 }
 
 export interface DeltaOEstimate {
@@ -203,6 +207,11 @@ export interface SpinDecision {
 
 const STRONG_PI_ACCEPTOR_IDS = new Set(['CN', 'CO', 'NO']);
 
+/** A decision with no spin state to report (a module-level function: tsx names every closure it creates). */
+function noSpinChoice(basis: string): SpinDecision {
+  return { spinState: null, nearSpinCrossover: false, hasChoice: false, basis, pairingEnergyCm: null };
+}
+
 export function decideSpin(params: {
   dElectrons: number;
   electronShell: 'd' | 'f' | 'sp';
@@ -214,16 +223,15 @@ export function decideSpin(params: {
   deltaO: DeltaOEstimate | null;
 }): SpinDecision {
   const { dElectrons: d, electronShell, element, ion, geometry, ligands, deltaO, oxidationState } = params;
-  const none = (basis: string): SpinDecision => ({ spinState: null, nearSpinCrossover: false, hasChoice: false, basis, pairingEnergyCm: null });
-  if (electronShell !== 'd' || d === 0 || d === 10) return none('no spin choice (d0, d10 or not a d-block ion)');
+  if (electronShell !== 'd' || d === 0 || d === 10) return noSpinChoice('no spin choice (d0, d10 or not a d-block ion)');
   if (geometry === 'tetrahedral') {
     return { spinState: 'high', nearSpinCrossover: false, hasChoice: d >= 3 && d <= 6, basis: 'tetrahedral: Δt ≈ 4/9 Δo is far below any pairing energy, so high spin', pairingEnergyCm: null };
   }
   if (geometry === 'square-planar') {
     if (d === 8) return { spinState: 'low', nearSpinCrossover: false, hasChoice: true, basis: 'square-planar d8: the empty x²−y² orbital lies far above, diamagnetic (low spin)', pairingEnergyCm: null };
-    return none('square planar, no spin choice for this d count');
+    return noSpinChoice('square planar, no spin choice for this d count');
   }
-  if (d < 4 || d > 7) return none(`d${d}: only one spin state in an octahedral field`);
+  if (d < 4 || d > 7) return noSpinChoice(`d${d}: only one spin state in an octahedral field`);
   if (element.series === '4d' || element.series === '5d') {
     return { spinState: 'low', nearSpinCrossover: false, hasChoice: true, basis: `${element.series} metal: large Δo and small pairing energy, always low spin`, pairingEnergyCm: null };
   }

@@ -125,6 +125,8 @@ export function romanNumeral(value: number): string {
   return value < 0 ? `−${text}` : text;
 }
 
+const ROUGH_RADIUS_BY_CHARGE_PM: Readonly<Record<number, number>> = { 1: 100, 2: 78, 3: 65, 4: 60, 5: 56, 6: 52 };
+
 /**
  * Effective ionic radius (pm) for the charge-density term. Shannon (1976) CN6 where tabulated,
  * spin-specific where Shannon gives both; otherwise a rough estimate by series and charge
@@ -146,8 +148,7 @@ export function ionicRadiusPm(
     return { radiusPm: 103.2 - 1.2 * (element.atomicNumber - 57), estimated: true };
   }
   const charge = Math.max(1, Math.min(oxidationState, 6));
-  const byCharge: Record<number, number> = { 1: 100, 2: 78, 3: 65, 4: 60, 5: 56, 6: 52 };
-  const base = byCharge[charge] ?? 60;
+  const base = ROUGH_RADIUS_BY_CHARGE_PM[charge] ?? 60;
   const rowAdd = element.series === '4d' || element.series === '5d' ? 5 : element.series === '5f' ? 25 : 0;
   return { radiusPm: base + rowAdd, estimated: true };
 }
