@@ -6,6 +6,7 @@ import { ActivityIndicator, StyleSheet, TextInput, View } from 'react-native';
 import { ErrorBlock, LoadingBlock, StaleNotice } from '@/components/account/query-states';
 import { TextLink } from '@/components/account/auth-frame';
 import { Button } from '@/components/ui/button';
+import { groupedInteger } from '@/components/ui/format';
 import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, radius, spacing } from '@/components/ui/theme';
@@ -90,6 +91,8 @@ function LibraryBrowser({ access, selectedId, onSelect }: { access: Member; sele
 
   const loaded = useMemo(() => query.data?.pages.flatMap((page) => page.items) ?? [], [query.data]);
   const total = query.data?.pages.at(-1)?.total ?? 0;
+  // Past 1 000 matches the server stops counting: "1,000+ entries".
+  const totalLabel = `${groupedInteger(total)}${query.data?.pages.at(-1)?.totalIsLowerBound ? '+' : ''}`;
   // Until the server has answered for exactly what is typed, narrow the loaded page at once (fuzzy).
   const waitingForServer = typed.trim() !== settled.trim() || query.isPlaceholderData;
   const localText = waitingForServer ? typed.trim() : '';
@@ -146,7 +149,7 @@ function LibraryBrowser({ access, selectedId, onSelect }: { access: Member; sele
           <AppText variant="caption" tone="muted" testID="library-count">
             {localText
               ? `${shown.length} of ${loaded.length} loaded entries match — searching the whole library…`
-              : `${loaded.length} of ${total} ${total === 1 ? 'entry' : 'entries'}`}
+              : `${loaded.length} of ${totalLabel} ${totalLabel === '1' ? 'entry' : 'entries'}`}
           </AppText>
           {query.isFetching && !query.isFetchingNextPage ? <ActivityIndicator size="small" color={colors.accent} /> : null}
         </View>
@@ -214,7 +217,7 @@ function LibraryBrowser({ access, selectedId, onSelect }: { access: Member; sele
                 {query.isFetchingNextPage ? (
                   <LoadingBlock label="Loading more…" testID="library-loading-more" />
                 ) : (
-                  <Button label={`Load more (${loaded.length} of ${total})`} kind="quiet" onPress={loadMore} testID="library-load-more" />
+                  <Button label={`Load more (${loaded.length} of ${totalLabel})`} kind="quiet" onPress={loadMore} testID="library-load-more" />
                 )}
               </View>
             ) : null

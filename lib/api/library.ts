@@ -273,7 +273,7 @@ export function useComplexesQuery(filters: ComplexFilters, enabled = true) {
     queryKey: complexKeys.list(filters),
     queryFn: ({ pageParam, signal }) => fetchComplexes(filters, pageParam, signal),
     initialPageParam: 1,
-    getNextPageParam: (last) => (last.page * last.pageSize < last.total ? last.page + 1 : undefined),
+    getNextPageParam: (last) => (last.totalIsLowerBound || last.page * last.pageSize < last.total ? last.page + 1 : undefined),
     placeholderData: keepPreviousData,
     retry: retryUnlessClientError,
     enabled,

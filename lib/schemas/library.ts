@@ -445,7 +445,10 @@ export type ComplexSearchQuery = z.infer<typeof complexSearchQuerySchema>;
 
 export const complexListResponseSchema = z.object({
   items: z.array(complexListItemSchema),
+  /** Exact up to 1 000 matches (or the end of the page asked for); beyond that a lower bound. */
   total: z.number().int(),
+  /** True when there are more matches than `total` (the server stopped counting). */
+  totalIsLowerBound: z.boolean().default(false),
   page: z.number().int(),
   pageSize: z.number().int(),
 });

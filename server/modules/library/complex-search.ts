@@ -27,14 +27,25 @@ import { membershipsOf, type MembershipInfo } from './library-access';
  * When that finds nothing and a token is 3+ characters, the search runs once more with pg_trgm word
  * similarity for those tokens (`tok <% search_text`), so a typo ("chromium amine") still finds
  * the entry. Rank (0–1) is the mean over tokens: 1 for a metal or a whole word, 0.9 for the start
- * of a word, 0.7 inside a word (word similarity in the typo pass) — cheap string tests, because
- * every match is ranked and counted (word similarity costs ~35 µs a row: seconds at 100 000).
+ * of a word, 0.7 inside a word (word similarity in the typo pass) — cheap string tests.
  * Filters combine with AND. Order: rank desc then id (with text), name then id (without).
  * Visibility is part of the SQL (see library-access.ts): viewers get approved snapshots only.
  *
- * Speed: the WHERE and the ranked columns all live in `complex_search_cover` (migration
- * 20261230), so matching, ranking and counting are an index-only scan; only the page's rows are
- * read from the table.
+ * Totals are exact up to SEARCH_COUNT_CAP (1 000) matches, or up to the end of the page asked
+ * for if that is deeper; past it the reply says `totalIsLowerBound` (the list reads "1,000+").
+ * So no search has to visit every match, and the page is read in an order an index delivers:
+ * - without text, one walk of `complex_search_by_name` (group, lower(name), id), index-only,
+ *   stopping after countLimit + 1 matches, gives the count and the page;
+ * - with text, the strict rank takes few values (one per mix of tiers, rankLevels). Level by
+ *   level, highest first, a probe of ≤ countLimit + 1 rows counts the level (and returns its
+ *   smallest ids when it is small: a rare or empty level is found by index, e.g. the whole-word
+ *   tier by `complex_search_words_gin`); a larger level is walked in id order on
+ *   `complex_search_by_id` and stops when the page is full. Two or more text words make more,
+ *   mostly small, levels: a capped count comes first, and few matches are simply all ranked.
+ * - the typo pass and 3+ text words rank every match and sort (the `single-pass` strategy,
+ *   which tests and the bench also use as the reference for the same results).
+ * Only the page's rows (≤ 100) are then read from the table (pageOf). Indexes: migrations
+ * 20261230 (`complex_search_cover`, `is_published`) and 20261231.
  */
 
 interface Row {
@@ -65,7 +76,6 @@ interface Row {
   /** Raw rows: MikroORM's pg driver returns timestamps as strings. */
   updated_at: Date | string;
   rank: number | null;
-  total: string | number;
 }
 
 /** A piece of SQL with its bindings, in order. */
@@ -81,7 +91,9 @@ function joinFragments(parts: readonly Fragment[], separator: string): Fragment 
 }
 
 const csv = (ids: readonly string[]) => ids.join(',');
-const inGroups = (ids: readonly string[]) => frag(`c.group_id = any(string_to_array(?, ',')::uuid[])`, csv(ids));
+// One group (the usual case) as an equality, so that b-trees led by group_id can deliver their order.
+const inGroups = (ids: readonly string[]) =>
+  ids.length === 1 ? frag('c.group_id = ?::uuid', ids[0]) : frag(`c.group_id = any(string_to_array(?, ',')::uuid[])`, csv(ids));
 
 /**
  * "This reader sees the working copy" and "sees this entry at all", written per role so that a
@@ -187,7 +199,22 @@ function termSql(term: SearchTerm, fuzzy: boolean): { where: Fragment; score: Fr
   };
 }
 
-export async function searchComplexes(em: EntityManager, userId: string, query: ComplexSearchQuery): Promise<ComplexListResponse> {
+/** Totals are exact up to this many matches (or the end of the page asked for, if deeper); above it the reply says `totalIsLowerBound`. */
+export const SEARCH_COUNT_CAP = 1000;
+
+/**
+ * How the page is found. `auto` (the service): index-ordered plans when there are many matches;
+ * `single-pass`: every match ranked, then sorted — the reference plan (tests compare the two) and
+ * the bench's plain unindexed baseline. Both give the same entries, order, ranks and totals.
+ */
+export type SearchStrategy = 'auto' | 'single-pass';
+
+export async function searchComplexes(
+  em: EntityManager,
+  userId: string,
+  query: ComplexSearchQuery,
+  options: { strategy?: SearchStrategy } = {},
+): Promise<ComplexListResponse> {
   const all = await membershipsOf(em, userId);
   let memberships = [...all.values()];
   if (query.groupId) {
@@ -195,15 +222,83 @@ export async function searchComplexes(em: EntityManager, userId: string, query: 
     if (!one) throw new AppError('NOT_FOUND', 'That group was not found.');
     memberships = [one];
   }
-  if (memberships.length === 0) return { items: [], total: 0, page: query.page, pageSize: query.pageSize };
+  if (memberships.length === 0) return { items: [], total: 0, totalIsLowerBound: false, page: query.page, pageSize: query.pageSize };
 
   const terms = searchTerms(query.q ?? '');
-  const strict = await runSearch(em, userId, memberships, query, terms, false);
+  const strategy = options.strategy ?? 'auto';
+  const strict = await runSearch(em, userId, memberships, query, terms, false, strategy);
   // Nothing matched exactly: let substring terms match by word similarity (typos), once.
   if (strict.total === 0 && terms.some((term) => term.kind === 'substring')) {
-    return runSearch(em, userId, memberships, query, terms, true);
+    return runSearch(em, userId, memberships, query, terms, true, strategy);
   }
   return strict;
+}
+
+/** One term's share of the rank, as a condition that holds exactly when the term scores `score`. */
+interface Tier {
+  score: number;
+  where: Fragment;
+}
+
+/** A rank value with the condition that selects exactly the matches that have it. */
+interface RankLevel {
+  rank: number;
+  where: Fragment;
+}
+
+/** Above this many tier combinations (three or more text words) the single pass is used. */
+const MAX_RANK_COMBINATIONS = 9;
+/** Up to this many rank levels (one text word) the level probes also count; beyond, a count comes first. */
+const FEW_RANK_LEVELS = 3;
+
+/**
+ * The conditions behind termSql's strict score tiers, split apart; together with the other
+ * filters each one selects exactly the matches where the term scores `score`. "t is a whole
+ * word" is written as `t = any word of search_text` — the same test as termSql's four LIKEs for
+ * a token without spaces — because the words GIN index (migration 20261231) answers it and its
+ * statistics estimate it, so a rare or empty top tier costs an index probe, not a long walk.
+ */
+function tiersOf(term: SearchTerm): Tier[] {
+  if (term.kind === 'metal') return [{ score: 1.0, where: frag('c.metal = ?', term.symbol) }];
+  const t = term.text;
+  const wholeWord = frag(`string_to_array(c.search_text, ' ') @> array[?]::text[]`, t);
+  const wordStart = frag(`(c.search_text like ? or c.search_text like ?)`, `${t}%`, `% ${t}%`);
+  const tiers: Tier[] = [
+    { score: 1.0, where: wholeWord },
+    { score: 0.9, where: frag(`(${wordStart.sql} and not ${wholeWord.sql})`, ...wordStart.params, ...wholeWord.params) },
+  ];
+  if (term.kind === 'substring') {
+    tiers.push({ score: 0.7, where: frag(`(c.search_text like ? and not ${wordStart.sql})`, `%${t}%`, ...wordStart.params) });
+  }
+  return tiers;
+}
+
+/**
+ * The rank values a strict text search can produce, highest first, each with its condition. The
+ * rank is computed here as PostgreSQL computes termSql's expression (float8 sum in term order,
+ * divided by the term count, rounded to real), so that combinations with equal ranks share a level.
+ */
+function rankLevels(terms: readonly SearchTerm[]): RankLevel[] | null {
+  let combinations: { scores: number[]; where: Fragment[] }[] = [{ scores: [], where: [] }];
+  for (const term of terms) {
+    const tiers = tiersOf(term);
+    if (combinations.length * tiers.length > MAX_RANK_COMBINATIONS) return null;
+    combinations = combinations.flatMap((c) =>
+      tiers.map((tier) => ({ scores: [...c.scores, tier.score], where: [...c.where, tier.where] })),
+    );
+  }
+  const byRank = new Map<number, Fragment[]>();
+  for (const c of combinations) {
+    const rank = Math.fround(c.scores.reduce((sum, score) => sum + score) / terms.length);
+    const all = joinFragments(c.where, ' and ');
+    byRank.set(rank, [...(byRank.get(rank) ?? []), frag(`(${all.sql})`, ...all.params)]);
+  }
+  return [...byRank.entries()]
+    .sort((a, b) => b[0] - a[0])
+    .map(([rank, parts]) => {
+      const either = joinFragments(parts, ' or ');
+      return { rank, where: frag(`(${either.sql})`, ...either.params) };
+    });
 }
 
 async function runSearch(
@@ -213,64 +308,143 @@ async function runSearch(
   query: ComplexSearchQuery,
   terms: readonly SearchTerm[],
   fuzzy: boolean,
+  strategy: SearchStrategy,
 ): Promise<ComplexListResponse> {
   const vis = visibility(memberships, userId);
   const effectiveStatus = frag(`(case when ${vis.full.sql} then c.status else 'approved' end)`, ...vis.full.params);
-  const where: Fragment[] = [inGroups(memberships.map((m) => m.groupId)), vis.visible];
+  // Scope and visibility, then the filters; the text terms separately, because a rank level's
+  // condition (rankLevels) stands in for them.
+  const filters: Fragment[] = [inGroups(memberships.map((m) => m.groupId)), vis.visible];
+  if (query.metal) filters.push(frag('c.metal = ?', query.metal));
+  if (query.oxidationState !== undefined) filters.push(frag('c.oxidation_state = ?', query.oxidationState));
+  if (query.dCount !== undefined) filters.push(frag('c.d_electrons = ?', query.dCount));
+  if (query.verdict) filters.push(frag('c.verdict = ?', query.verdict));
+  if (query.ligand) filters.push(frag('c.ligand_ids @> array[?]::text[]', query.ligand));
+  if (query.measurementKind) filters.push(frag('c.measurement_kinds @> array[?]::text[]', query.measurementKind));
+  if (query.hasCitation !== undefined) filters.push(frag('c.has_citation = ?', query.hasCitation));
+  if (query.status) filters.push(frag(`${effectiveStatus.sql} = ?`, ...effectiveStatus.params, query.status));
+  const filterCondition = joinFragments(filters, ' and ');
 
   let rank = frag('null::real');
+  const textWhere: Fragment[] = [];
   if (terms.length > 0) {
     const parts = terms.map((term) => termSql(term, fuzzy));
-    where.push(...parts.map((p) => p.where));
+    textWhere.push(...parts.map((p) => p.where));
     const sum = joinFragments(parts.map((p) => p.score), ' + ');
     rank = frag(`((${sum.sql}) / ${terms.length})::real`, ...sum.params);
   }
-  if (query.metal) where.push(frag('c.metal = ?', query.metal));
-  if (query.oxidationState !== undefined) where.push(frag('c.oxidation_state = ?', query.oxidationState));
-  if (query.dCount !== undefined) where.push(frag('c.d_electrons = ?', query.dCount));
-  if (query.verdict) where.push(frag('c.verdict = ?', query.verdict));
-  if (query.ligand) where.push(frag('c.ligand_ids @> array[?]::text[]', query.ligand));
-  if (query.measurementKind) where.push(frag('c.measurement_kinds @> array[?]::text[]', query.measurementKind));
-  if (query.hasCitation !== undefined) where.push(frag('c.has_citation = ?', query.hasCitation));
-  if (query.status) where.push(frag(`${effectiveStatus.sql} = ?`, ...effectiveStatus.params, query.status));
-  const condition = joinFragments(where, ' and ');
+  const condition = joinFragments([...filters, ...textWhere], ' and ');
 
-  // With text the order is by rank: the name's lower case is only worth computing without text.
-  const sortKey = terms.length > 0 ? 'null::text' : 'lower(c.name)';
-  const order = terms.length > 0 ? 'rank desc, id asc' : 'sort_name asc, id asc';
-  const outerOrder = terms.length > 0 ? 'p.rank desc, p.id asc' : 'p.sort_name asc, p.id asc';
   const offset = (query.page - 1) * query.pageSize;
-  // Rank, visibility and order key once per match (materialised CTE, read from the covering
-  // index); counting and the page come from it; the heavier columns (snapshot, measurement
-  // count, author) only for the page's rows.
+  // Totals are counted up to the cap (or the end of this page), not to the last match.
+  const countLimit = Math.max(SEARCH_COUNT_CAP, offset + query.pageSize);
+  const answer = (matches: number, ids: readonly string[]) =>
+    pageOf(em, ids, vis.full, rank).then((items) => ({
+      items,
+      total: Math.min(matches, countLimit),
+      totalIsLowerBound: matches > countLimit,
+      page: query.page,
+      pageSize: query.pageSize,
+    }));
+
+  if (terms.length === 0) {
+    // Name then id, the order complex_search_by_name holds: one walk that stops after countLimit + 1
+    // matches gives both the count and the page (its first rows).
+    const [walk] = await em.execute<{ n: string | number; ids: string[] | null }[]>(
+      `with walk as materialized (
+         select c.id, row_number() over (order by lower(c.name) asc, c.id asc) as n
+           from complex c where ${condition.sql}
+          order by lower(c.name) asc, c.id asc limit ?)
+       select (select count(*) from walk) as n,
+              array(select w.id::text from walk w where w.n > ? order by w.n limit ?) as ids`,
+      [...condition.params, countLimit + 1, offset, query.pageSize],
+    );
+    return answer(Number(walk?.n ?? 0), walk?.ids ?? []);
+  }
+
+  const countUpTo = async (limit: number) => {
+    // `limit` stops the scan: at most `limit` matches are visited.
+    const [row] = await em.execute<{ n: string | number }[]>(
+      `select count(*) as n from (select 1 from complex c where ${condition.sql} limit ?) x`,
+      [...condition.params, limit],
+    );
+    return Number(row?.n ?? 0);
+  };
+
+  const levels = !fuzzy && strategy === 'auto' ? rankLevels(terms) : null;
+  // One text word (three levels at most): the level probes below count as they go. More words
+  // make more levels, most of them small: count first, and rank every match when there are few.
+  let counted: number | null = null;
+  if (levels && levels.length > FEW_RANK_LEVELS) counted = await countUpTo(countLimit + 1);
+  if (levels && (counted === null || counted > countLimit)) {
+    // Rank level by rank level, highest first (levels partition the matches). Each level is
+    // probed for up to countLimit + 1 rows in any order: a limit above the planner's estimate
+    // makes it take its cheapest whole plan (an index for a rare or empty level) or an
+    // early-stopping walk (a common one); a small limit would tempt it to walk the whole group in
+    // id order for a level with (nearly) no rows. A level that ends within the probe is complete
+    // and its smallest ids come back at once; only a larger one is then walked in id order from
+    // complex_search_by_id, up to the end of the page. Without a count beforehand, the probes'
+    // sizes add up to the total: the loop stops once the page is full and the sum is past the
+    // count limit (or every level is counted).
+    const wanted = offset + query.pageSize;
+    const found: string[] = [];
+    let matches = 0;
+    for (const level of levels) {
+      if (found.length >= wanted && (counted !== null || matches > countLimit)) break;
+      const needed = Math.max(0, wanted - found.length);
+      const levelCondition = frag(`${filterCondition.sql} and ${level.where.sql}`, ...filterCondition.params, ...level.where.params);
+      const [probe] = await em.execute<{ n: string | number; ids: string[] | null }[]>(
+        `select count(*) as n, (array_agg(x.id::text order by x.id))[1:?] as ids
+           from (select c.id from complex c where ${levelCondition.sql} limit ?) x`,
+        [needed, ...levelCondition.params, countLimit + 1],
+      );
+      const size = Number(probe?.n ?? 0);
+      matches += size;
+      if (needed === 0) continue;
+      if (size <= countLimit) {
+        found.push(...(probe?.ids ?? []));
+      } else {
+        const rows = await em.execute<{ id: string }[]>(
+          `select c.id from complex c where ${levelCondition.sql} order by c.id asc limit ?`,
+          [...levelCondition.params, needed],
+        );
+        found.push(...rows.map((r) => r.id));
+      }
+    }
+    return answer(counted ?? matches, found.slice(offset, wanted));
+  }
+
+  // Few matches of several words, the fuzzy pass, many words, or the reference strategy: count
+  // up to the limit, then rank every match and sort.
+  const matches = counted ?? (await countUpTo(countLimit + 1));
+  if (matches <= offset) return answer(matches, []);
+  const rows = await em.execute<{ id: string }[]>(
+    `select h.id from (select c.id, ${rank.sql} as rank from complex c where ${condition.sql}) h
+      order by h.rank desc, h.id asc limit ? offset ?`,
+    [...rank.params, ...condition.params, query.pageSize, offset],
+  );
+  return answer(matches, rows.map((r) => r.id));
+}
+
+/** The list items for the page's ids, in that order: snapshot, measurement count, author and rank for these rows only. */
+async function pageOf(em: EntityManager, ids: readonly string[], fullView: Fragment, rank: Fragment): Promise<ComplexListItem[]> {
+  if (ids.length === 0) return [];
   const sql = `
-    with hits as materialized (
-      select c.id, ${rank.sql} as rank, ${vis.full.sql} as full_view, ${sortKey} as sort_name
-        from complex c
-       where ${condition.sql}
-    ), page as (
-      select * from hits order by ${order} limit ? offset ?
-    )
     select c.id, c.group_id, c.formula, c.name, c.status, c.metal, c.oxidation_state, c.d_electrons, c.spin_state,
            c.verdict, c.ligand_ids, c.measurement_kinds, c.has_citation, c.version, c.updated_at, c.created_by_id,
-           p.full_view,
-           case when p.full_view then null else c.approved_snapshot end as approved_snapshot,
+           v.full_view,
+           case when v.full_view then null else c.approved_snapshot end as approved_snapshot,
            (c.approved_snapshot is not null) as has_approved,
            (select count(*) from measurement m where m.complex_id = c.id) as measurement_count,
            u.display_name as created_by_name,
-           p.rank,
-           (select count(*) from hits) as total
-      from page p
+           v.rank
+      from unnest(string_to_array(?, ',')::uuid[]) with ordinality as p(id, ord)
       join complex c on c.id = p.id
+      cross join lateral (select ${fullView.sql} as full_view, ${rank.sql} as rank) v
       left join app_user u on u.id = c.created_by_id
-     order by ${outerOrder}`;
-  const rows = await em.execute<Row[]>(sql, [...rank.params, ...vis.full.params, ...condition.params, query.pageSize, offset]);
-  let total = rows[0] ? Number(rows[0].total) : 0;
-  if (rows.length === 0 && query.page > 1) {
-    const counted = await em.execute<{ n: string }[]>(`select count(*) as n from complex c where ${condition.sql}`, condition.params);
-    total = Number(counted[0]?.n ?? 0);
-  }
-  return { items: rows.map(toListItem), total, page: query.page, pageSize: query.pageSize };
+     order by p.ord`;
+  const rows = await em.execute<Row[]>(sql, [csv(ids), ...fullView.params, ...rank.params]);
+  return rows.map(toListItem);
 }
 
 function toListItem(row: Row): ComplexListItem {
@@ -330,7 +504,7 @@ export async function reviewQueue(em: EntityManager, userId: string): Promise<Re
   }
   const names = new Map(memberships.map((m) => [m.groupId, m.groupName]));
   const rows = await em.execute<(Row & { approved_version: number | null })[]>(
-    `select c.*, true as full_view, (c.approved_snapshot is not null) as has_approved, null::real as rank, 0 as total,
+    `select c.*, true as full_view, (c.approved_snapshot is not null) as has_approved, null::real as rank,
             (select count(*) from measurement m where m.complex_id = c.id) as measurement_count,
             u.display_name as created_by_name, s.display_name as submitted_by_name
        from complex c

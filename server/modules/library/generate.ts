@@ -24,6 +24,9 @@ export async function generateSyntheticEntries(em: EntityManager, options: Gener
   });
   const status = options.status ?? 'approved';
   await em.transactional(async (tem) => {
+    // Throwaway clusters commit asynchronously; VACUUM cannot mark a page all-visible until the
+    // inserting commit is on disk, so this one commit waits for it (see the VACUUM below).
+    await tem.execute('set local synchronous_commit = on');
     await tem.execute(
       `with t as (
          select (ordinality - 1)::int as i, value as v from jsonb_array_elements(?::jsonb) with ordinality

@@ -54,8 +54,8 @@ export function listItem(overrides: Partial<ComplexListItem> = {}): ComplexListI
   });
 }
 
-export function listResponse(items: ComplexListItem[], total = items.length, page = 1, pageSize = 20) {
-  return complexListResponseSchema.parse({ items, total, page, pageSize });
+export function listResponse(items: ComplexListItem[], total = items.length, page = 1, pageSize = 20, totalIsLowerBound = false) {
+  return complexListResponseSchema.parse({ items, total, totalIsLowerBound, page, pageSize });
 }
 
 export function detail(overrides: Partial<ComplexDetail> = {}): ComplexDetail {

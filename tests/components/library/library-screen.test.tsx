@@ -47,6 +47,37 @@ describe('LibraryScreen', () => {
     expect(onSelect).toHaveBeenCalledWith('c-co-ammine');
   });
 
+  it('past the server’s count cap the heading says "1,000+ entries" and more can be loaded', async () => {
+    // Server pages of one entry; the server stopped counting at 1 000.
+    const page1 = listResponse([chromium], 1000, 1, 1, true);
+    const page2 = listResponse([cobalt], 1000, 2, 1, true);
+    mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes': (() => {
+        let n = 0;
+        return () => ({ status: 200, body: n++ === 0 ? page1 : page2 });
+      })(),
+    });
+    renderLibrary();
+    const loadMore = await screen.findByTestId('library-load-more');
+    expect(screen.getByTestId('library-count')).toHaveTextContent('1 of 1,000+ entries');
+    expect(loadMore).toHaveTextContent('Load more (1 of 1,000+)');
+    fireEvent.press(loadMore);
+    expect(await screen.findByTestId('library-item-1')).toHaveTextContent(/hexaamminecobalt/);
+    expect(screen.getByTestId('library-count')).toHaveTextContent('2 of 1,000+ entries');
+  });
+
+  it('an exact total of a thousand or more is written with a separator and no plus', async () => {
+    mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes': { status: 200, body: listResponse([chromium, cobalt], 1001, 51, 20) },
+    });
+    renderLibrary();
+    expect(await screen.findByTestId('library-item-1')).toBeTruthy();
+    expect(screen.getByTestId('library-count')).toHaveTextContent('2 of 1,001 entries');
+    expect(screen.queryByTestId('library-load-more')).toBeNull();
+  });
+
   it('narrows the loaded page at once while the server search is still pending', async () => {
     const { calls } = mockFetch({
       'GET /api/auth/me': { status: 200, body: contributorMe },
