@@ -80,10 +80,10 @@ function SignedIn({ me }: { me: MeResponse }) {
           <View style={styles.column}>
             <GroupsCard />
             <SessionsCard />
+            <PasswordCard />
           </View>
           <View style={styles.column}>
             <ProfileCard user={me.user} />
-            <PasswordCard />
             <MailPreferencesCard me={me} />
             <SignOutCard />
           </View>
