@@ -9,6 +9,7 @@ import * as ligandField from './ligand-field';
 import * as lability from './lability';
 import * as metalIons from './metal-ions';
 import * as numberFormat from './number-format';
+import type { ElectronConfiguration, MetalElement } from './metal-ions';
 import { FormulaError, type Classification, type ClassifyOptions, type LigandInstance, type MeasuredRate } from './types';
 
 // Under tsx (the server, the bench, scripts) every module is compiled to CommonJS and each use of
@@ -29,8 +30,8 @@ const {
   tetrahedralLfseDq,
 } = ligandField;
 const { ONE_MINUTE_LOG_K, confidenceFrom, measuredLogKAt, predictLogK, scaleLogKWithoutEyring, verdictFromLogK } = lability;
-const { electronConfiguration, ionLabel, ionicRadiusPm, metalElement, metalIon } = metalIons;
-const { formatFixed } = numberFormat;
+const { ionLabel, ionicRadiusPm, metalIon } = metalIons;
+const { formatFixed, formatPrecision2 } = numberFormat;
 
 interface MeasuredRecord {
   species: string;
@@ -101,9 +102,21 @@ function sameLigandSet(ligands: readonly LigandInstance[], ligandCounts: Readonl
     if (ligandCounts.get(instance.ligand.id) !== instance.count) return false;
   }
   for (const id of ligandCounts.keys()) {
-    if (!ligands.some((instance) => instance.ligand.id === id)) return false;
+    if (!hasLigandWhere(ligands, id, id, 0)) return false;
   }
   return true;
+}
+
+/**
+ * Whether a ligand has id `first` or `second`, or at least `minimumDenticity` teeth (0: ignored).
+ * A loop rather than some(arrow): an arrow in a per-formula function is a new closure every call.
+ */
+function hasLigandWhere(ligands: readonly LigandInstance[], first: string, second: string, minimumDenticity: number): boolean {
+  for (const instance of ligands) {
+    const ligand = instance.ligand;
+    if (ligand.id === first || ligand.id === second || (minimumDenticity > 0 && ligand.denticity >= minimumDenticity)) return true;
+  }
+  return false;
 }
 
 function findMeasured(metal: string, oxidationState: number, ligands: readonly LigandInstance[]): MeasuredEntry | undefined {
@@ -205,14 +218,12 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   const temperatureK = temperatureC + 273.15;
   const { metal, oxidationState } = parsed;
   const ligands = settleFlexibleDenticity(parsed.ligands);
-  const element = metalElement(metal);
-  const configuration = element ? electronConfiguration(element, oxidationState) : null;
+  const { element, configuration } = parsed;
   if (!element || !configuration) {
     throw new FormulaError(`Cannot count electrons for ${metal} in oxidation state ${oxidationState}`, formula, 0);
   }
   const { dElectrons, fElectrons, electronShell } = configuration;
   const reasons: string[] = [];
-  const label = ionLabel(metal, oxidationState);
 
   const cn = coordinationNumber(ligands);
   const predictedGeometry = predictGeometry({ coordinationNumber: cn, dElectrons, electronShell, series: element.series, metal, oxidationState, ligands });
@@ -260,19 +271,17 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     if (ligand.hapticity !== undefined) hasHapticLigand = true;
     if (ligand.jorgensenF === null && (ligand.fEstimate ?? null) === null) ligandWithoutF = true;
   }
-  const { radiusPm, estimated: radiusEstimated } = ionicRadiusPm(element, oxidationState, spin.spinState);
+  const { radiusPm, estimated: radiusEstimated } = ionicRadiusPm(element, oxidationState, spin.spinState, ion);
 
   // --- electron counting reasons
-  const shellText = electronShell === 'f' ? `f${fElectrons}` : electronShell === 'sp' ? (dElectrons === 10 ? 'd10 (main group)' : 'noble-gas core (main group)') : `d${dElectrons}`;
-  reasons.push(`${label}, ${shellText}; charge ${formatCharge(parsed.complexCharge)}${parsed.counterIons.length > 0 ? ' (from the counter-ions)' : ''}; coordination number ${cn}, ${geometry}${geometrySource === 'given' ? ' (given)' : ''}`);
+  reasons.push(summaryReason(element, oxidationState, configuration, parsed.complexCharge, parsed.counterIons.length > 0, cn, geometry, geometrySource === 'given'));
   if (hasNitrosyl) reasons.push('nitrosyl counted as NO⁺ (linear, 2-electron donor) by convention');
   if (hasHapticLigand) reasons.push('η5-cyclopentadienyl counted as three coordination sites (6-electron donor) by convention');
   if (deltaO !== null) {
-    const source = deltaO.gKind === 'aqua' ? 'g taken as the aqua ion’s Δo' : 'Jørgensen g';
-    reasons.push(`Δo ≈ f·g = ${formatFixed(deltaO.fAverage, 2)} × ${deltaO.g} × 10³ = ${deltaO.deltaOcm} cm⁻¹ (${source}${deltaO.fEstimated ? '; some f values are rough estimates' : ''})`);
+    reasons.push(deltaOReason(deltaO.fAverage, deltaO.g, deltaO.gKind === 'aqua', deltaO.fEstimated, deltaO.deltaOcm));
     if (geometry === 'tetrahedral') reasons.push(`tetrahedral: Δt ≈ 4/9 Δo ≈ ${Math.round((deltaO.deltaOcm * 4) / 9)} cm⁻¹`);
   } else if (hasLigandField) {
-    reasons.push(`Δo not estimable: no published g for ${label}${ligandWithoutF ? ' or no f for a ligand' : ''}; a rough value is used for the rate`);
+    reasons.push(`Δo not estimable: no published g for ${ionLabel(metal, oxidationState)}${ligandWithoutF ? ' or no f for a ligand' : ''}; a rough value is used for the rate`);
   }
   if (spin.spinState !== null) {
     reasons.push(`${spin.spinState} spin: ${spin.basis}`);
@@ -318,10 +327,9 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   } else if (Math.abs(temperatureK - 298.15) > 1e-9) {
     reasons.push(`moved to ${temperatureC} °C assuming the whole barrier is enthalpic (ΔS‡ = 0): a rough correction`);
   }
-  const verdict = verdictFromLogK(logK);
-  const halfLifeSeconds = Math.LN2 / 10 ** logK;
+  const { verdict, halfLifeSeconds, reason: rateReason } = rateAt(logK);
   const confidence = confidenceFrom(logK, prediction.roughness, decidedBy === 'measured');
-  reasons.push(`${verdict}: k ≈ 10^${formatFixed(logK, 1)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${verdict === 'intermediate' ? 'close to' : logK > ONE_MINUTE_LOG_K ? 'faster than' : 'slower than'} the one-minute line)`);
+  reasons.push(rateReason);
   reasons.push(KINETIC_SCALE_NOTE);
 
   const hints = hintsFor(metal, oxidationState, verdict, ligands, dElectrons, geometry);
@@ -343,13 +351,7 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     coordinationNumber: cn,
     complexCharge: parsed.complexCharge,
     molarMassGPerMol: Math.round(parsed.molarMassGPerMol * 1000) / 1000,
-    ligands: ligands.map((instance) => ({
-      id: instance.ligand.id,
-      name: instance.ligand.name,
-      count: instance.count,
-      donorAtoms: instance.ligand.donorAtoms,
-      charge: instance.ligand.charge,
-    })),
+    ligands: ligandSummaries(ligands),
     nearSpinCrossover: spin.nearSpinCrossover,
     deltaOcm,
     lfseDq,
@@ -371,6 +373,15 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   };
 }
 
+/** The result's ligand list (a loop: no closure per formula). */
+function ligandSummaries(ligands: readonly LigandInstance[]): Classification['ligands'] {
+  const summaries: Classification['ligands'] = [];
+  for (const instance of ligands) {
+    summaries.push({ id: instance.ligand.id, name: instance.ligand.name, count: instance.count, donorAtoms: instance.ligand.donorAtoms, charge: instance.ligand.charge });
+  }
+  return summaries;
+}
+
 export type ClassifyManyResult = Classification | { formula: string; error: string; position: number };
 
 export function classifyMany(formulas: readonly string[], options?: ClassifyOptions): ClassifyManyResult[] {
@@ -387,15 +398,105 @@ export function classifyMany(formulas: readonly string[], options?: ClassifyOpti
   return results;
 }
 
+function buildSummaryReason(element: MetalElement, oxidationState: number, configuration: ElectronConfiguration, complexCharge: number, fromCounterIons: boolean, cn: number, geometry: string, given: boolean): string {
+  const { dElectrons, fElectrons, electronShell } = configuration;
+  const shellText = electronShell === 'f' ? `f${fElectrons}` : electronShell === 'sp' ? (dElectrons === 10 ? 'd10 (main group)' : 'noble-gas core (main group)') : `d${dElectrons}`;
+  return `${ionLabel(element.symbol, oxidationState)}, ${shellText}; charge ${formatCharge(complexCharge)}${fromCounterIons ? ' (from the counter-ions)' : ''}; coordination number ${cn}, ${geometry}${given ? ' (given)' : ''}`;
+}
+
+// The first reason depends on the ion (its configuration follows from element and oxidation
+// state), the charge, its source, the coordination number and the geometry, which distinct formulas
+// share: a bounded memo keyed by those small integers packed into one saves building a ten-part
+// string per formula. Values outside the packed ranges are built every time.
+const SUMMARY_MEMO_LIMIT = 4096;
+const summaryReasons = new Map<number, string>();
+// Geometry → index for the key (a scan: identical strings compare by pointer, cheaper than a hash).
+const GEOMETRY_KEYS: readonly string[] = ['octahedral', 'tetrahedral', 'square-planar', 'linear', 'trigonal-planar', 'trigonal-bipyramidal', 'square-pyramidal', 'pentagonal-bipyramidal', 'square-antiprismatic', 'tricapped-trigonal-prismatic', 'other'];
+
+function summaryReason(element: MetalElement, oxidationState: number, configuration: ElectronConfiguration, complexCharge: number, fromCounterIons: boolean, cn: number, geometry: string, given: boolean): string {
+  const geometryIndex = GEOMETRY_KEYS.indexOf(geometry);
+  const inRange = geometryIndex >= 0 && element.atomicNumber < 128 && oxidationState >= -8 && oxidationState < 24 && Number.isInteger(complexCharge) && complexCharge >= -32 && complexCharge < 32 && cn >= 0 && cn < 32;
+  if (!inRange) return buildSummaryReason(element, oxidationState, configuration, complexCharge, fromCounterIons, cn, geometry, given);
+  // Z (7 bits) · oxidation state + 8 (5) · charge + 32 (6) · counter-ions (1) · CN (5) · given (1) · geometry (4): 29 bits, a small integer.
+  const key = (((((element.atomicNumber * 32 + oxidationState + 8) * 64 + complexCharge + 32) * 2 + (fromCounterIons ? 1 : 0)) * 32 + cn) * 2 + (given ? 1 : 0)) * 16 + geometryIndex;
+  let text = summaryReasons.get(key);
+  if (text === undefined) {
+    text = buildSummaryReason(element, oxidationState, configuration, complexCharge, fromCounterIons, cn, geometry, given);
+    if (summaryReasons.size >= SUMMARY_MEMO_LIMIT) summaryReasons.clear();
+    summaryReasons.set(key, text);
+  }
+  return text;
+}
+
+// The Δo reason is a pure function of f(avg), g, the kind of g and whether f is estimated (Δo is
+// round(f·g·1000)); distinct formulas share far fewer of these than they are many: a bounded memo
+// (f → g → [jørgensen, jørgensen + estimated f, aqua, aqua + estimated f]) saves building the text.
+const DELTA_O_MEMO_LIMIT = 4096;
+const deltaOReasons = new Map<number, Map<number, (string | undefined)[]>>();
+let deltaOReasonCount = 0;
+
+function deltaOReason(fAverage: number, g: number, aquaG: boolean, fEstimated: boolean, deltaOcm: number): string {
+  let byG = deltaOReasons.get(fAverage);
+  if (byG === undefined) {
+    if (deltaOReasonCount >= DELTA_O_MEMO_LIMIT) {
+      deltaOReasons.clear();
+      deltaOReasonCount = 0;
+    }
+    byG = new Map();
+    deltaOReasons.set(fAverage, byG);
+  }
+  let texts = byG.get(g);
+  if (texts === undefined) {
+    texts = [undefined, undefined, undefined, undefined];
+    byG.set(g, texts);
+  }
+  const slot = (aquaG ? 2 : 0) + (fEstimated ? 1 : 0);
+  let text = texts[slot];
+  if (text === undefined) {
+    const source = aquaG ? 'g taken as the aqua ion’s Δo' : 'Jørgensen g';
+    text = `Δo ≈ f·g = ${formatFixed(fAverage, 2)} × ${g} × 10³ = ${deltaOcm} cm⁻¹ (${source}${fEstimated ? '; some f values are rough estimates' : ''})`;
+    texts[slot] = text;
+    deltaOReasonCount++;
+  }
+  return text;
+}
+
+interface RateText {
+  verdict: Classification['verdict'];
+  halfLifeSeconds: number;
+  reason: string;
+}
+
+// The verdict, half-life and rate reason are a pure function of log k, and the model gives only
+// a few thousand distinct values (20 000 distinct bench formulas: ~2 000): a bounded memo saves the
+// power, the formatting and the string per formula. (A Map treats −0 and 0 as one key; both give
+// the same verdict, half-life and text.)
+const RATE_MEMO_LIMIT = 4096;
+const rateByLogK = new Map<number, RateText>();
+
+function rateAt(logK: number): RateText {
+  let rate = rateByLogK.get(logK);
+  if (rate === undefined) {
+    const verdict = verdictFromLogK(logK);
+    const halfLifeSeconds = Math.LN2 / 10 ** logK;
+    const reason = `${verdict}: k ≈ 10^${formatFixed(logK, 1)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${verdict === 'intermediate' ? 'close to' : logK > ONE_MINUTE_LOG_K ? 'faster than' : 'slower than'} the one-minute line)`;
+    rate = { verdict, halfLifeSeconds, reason };
+    if (rateByLogK.size >= RATE_MEMO_LIMIT) rateByLogK.clear();
+    rateByLogK.set(logK, rate);
+  }
+  return rate;
+}
+
+// formatPrecision2 is toPrecision(2) without the runtime call (proved equal in number-format.test.ts).
 function formatDuration(seconds: number): string {
   if (!Number.isFinite(seconds)) return 'forever';
-  if (seconds < 1e-3) return `${(seconds * 1e6).toPrecision(2)} µs`;
-  if (seconds < 1) return `${(seconds * 1e3).toPrecision(2)} ms`;
-  if (seconds < 120) return `${seconds.toPrecision(2)} s`;
-  if (seconds < 7200) return `${(seconds / 60).toPrecision(2)} min`;
-  if (seconds < 172800) return `${(seconds / 3600).toPrecision(2)} h`;
-  if (seconds < 3.15e7 * 2) return `${(seconds / 86400).toPrecision(2)} days`;
-  return `${(seconds / 3.15e7).toPrecision(2)} years`;
+  if (seconds < 1e-3) return `${formatPrecision2(seconds * 1e6)} µs`;
+  if (seconds < 1) return `${formatPrecision2(seconds * 1e3)} ms`;
+  if (seconds < 120) return `${formatPrecision2(seconds)} s`;
+  if (seconds < 7200) return `${formatPrecision2(seconds / 60)} min`;
+  if (seconds < 172800) return `${formatPrecision2(seconds / 3600)} h`;
+  if (seconds < 3.15e7 * 2) return `${formatPrecision2(seconds / 86400)} days`;
+  return `${formatPrecision2(seconds / 3.15e7)} years`;
 }
 
 const HINT_HEAT = 'Inert at room temperature: plan on heat, a long reflux or a catalyst rather than waiting.';
@@ -438,10 +539,10 @@ function hintsFor(metal: string, oxidationState: number, verdict: string, ligand
     const redox = REDOX_HINTS.get(metal)?.get(oxidationState);
     if (redox) for (const hint of redox) hints.push(hint);
     hints.push(HINT_HEAT);
-    if (metal === 'Co' && oxidationState === 3 && ligands.some((i) => i.ligand.id === 'NH3' || i.ligand.id === 'en')) hints.push(HINT_INERT_NOT_STABLE);
+    if (metal === 'Co' && oxidationState === 3 && hasLigandWhere(ligands, 'NH3', 'en', 0)) hints.push(HINT_INERT_NOT_STABLE);
   } else if (verdict === 'intermediate') {
     hints.push(HINT_INTERMEDIATE);
-  } else if (ligands.some((i) => i.ligand.id === 'CN' || i.ligand.denticity >= 4) || (geometry === 'square-planar' && dElectrons === 8)) {
+  } else if (hasLigandWhere(ligands, 'CN', 'CN', 4) || (geometry === 'square-planar' && dElectrons === 8)) {
     hints.push(HINT_STABLE_NOT_INERT);
   }
   return hints;

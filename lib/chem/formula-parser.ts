@@ -263,9 +263,9 @@ class FormulaScanner {
       if (digits > 3) this.fail(`Count at character ${start + 1} is too long`, start);
     }
     if (digits === 0) return 1;
-    const subject = quoted ? `'${what}'` : what;
-    if (value === 0) this.fail(`Count 0 for ${subject} at character ${start + 1} makes no sense`, start);
-    if (value > MAX_COUNT) this.fail(`Count ${value} for ${subject} at character ${start + 1} is too large`, start);
+    // The quoted subject is built only for an error: most ligands and ions carry a valid count.
+    if (value === 0) this.fail(`Count 0 for ${quoted ? `'${what}'` : what} at character ${start + 1} makes no sense`, start);
+    if (value > MAX_COUNT) this.fail(`Count ${value} for ${quoted ? `'${what}'` : what} at character ${start + 1} is too large`, start);
     return value;
   }
 
@@ -362,11 +362,12 @@ function signOf(ch: string | undefined): number {
 
 interface InnerSphere {
   metal: string;
+  element: metalIons.MetalElement;
   metalPosition: number;
   ligands: LigandInstance[];
 }
 
-function readMetal(scanner: FormulaScanner): { metal: string; position: number } {
+function readMetal(scanner: FormulaScanner): { metal: string; element: metalIons.MetalElement; position: number } {
   const position = scanner.pos;
   const first = scanner.peek() ?? '';
   if (!isUpper(first)) {
@@ -406,7 +407,7 @@ function readMetal(scanner: FormulaScanner): { metal: string; position: number }
       );
     }
   }
-  return { metal: symbol, position };
+  return { metal: symbol, element, position };
 }
 
 function unknownLigandMessage(token: string, position: number): string {
@@ -428,7 +429,7 @@ function addLigand(ligands: LigandInstance[], ligand: LigandDefinition, written:
 /** Reads metal and ligands up to `stop` (']' inside brackets; charge/end for a bare entity). */
 function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPosition: number): InnerSphere {
   scanner.skipSpaces();
-  const { metal, position: metalPosition } = readMetal(scanner);
+  const { metal, element, position: metalPosition } = readMetal(scanner);
   const ligands: LigandInstance[] = [];
   for (;;) {
     scanner.skipSpaces();
@@ -476,7 +477,7 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
       metalPosition,
     );
   }
-  return { metal, metalPosition, ligands };
+  return { metal, element, metalPosition, ligands };
 }
 
 /** Reads a run of counter-ions (cations before '[' or anions after ']'). */
@@ -660,7 +661,11 @@ export function parseFormula(input: string): ParsedComplex {
  * summed straight from the parser's totals, without building the record (building records with
  * ever-different element keys is the slowest part of a parse). Same errors as parseFormula.
  */
-export function parseFormulaWithMolarMass(input: string): ParsedCore & { molarMassGPerMol: number } {
+export function parseFormulaWithMolarMass(input: string): ParsedCore & {
+  molarMassGPerMol: number;
+  element: metalIons.MetalElement;
+  configuration: metalIons.ElectronConfiguration;
+} {
   const core = parseCore(input);
   return {
     input: core.input,
@@ -673,8 +678,16 @@ export function parseFormulaWithMolarMass(input: string): ParsedCore & { molarMa
     oxidationState: core.oxidationState,
     writtenCharge: core.writtenCharge,
     molarMassGPerMol: molarMassFromScratch(),
+    // The charge balance already looked these up: the classifier need not do it again.
+    element: lastElement as metalIons.MetalElement,
+    configuration: lastConfiguration as metalIons.ElectronConfiguration,
   };
 }
+
+// The metal and its electron configuration from the last successful parseCore (like the scratch
+// totals: parsing is synchronous, and a nested parse of an unbracketed salt sets the same values).
+let lastElement: metalIons.MetalElement | null = null;
+let lastConfiguration: metalIons.ElectronConfiguration | null = null;
 
 function parseCore(input: string): ParsedCore {
   if (typeof input !== 'string') throw new FormulaError('The formula must be text', String(input), 0);
@@ -798,8 +811,8 @@ function parseCore(input: string): ParsedCore {
   let ligandCharge = 0;
   for (const instance of inner.ligands) ligandCharge += instance.ligand.charge * instance.count;
   const oxidationState = complexCharge - ligandCharge;
-  const element = metalElement(inner.metal);
-  const configuration = element ? electronConfiguration(element, oxidationState) : null;
+  const element = inner.element;
+  const configuration = electronConfiguration(element, oxidationState);
   if (!configuration) {
     const position = written?.position ?? inner.metalPosition;
     scanner.fail(
@@ -807,6 +820,9 @@ function parseCore(input: string): ParsedCore {
       position,
     );
   }
+
+  lastElement = element;
+  lastConfiguration = configuration;
 
   // Complex ion(s) first (metal, then ligands), then counter-ions, then water: the key order of the record.
   scratchSymbols[0] = inner.metal;

@@ -108,6 +108,37 @@ function signed(value: number): string {
   return `${value >= 0 ? '+' : '−'}${formatFixed(Math.abs(value), 1)}`;
 }
 
+// The charge-density reason depends on the ion alone (charge and radius), which distinct formulas
+// share: a bounded memo (oxidation state → radius → text) saves building it per formula.
+const CHARGE_DENSITY_MEMO_LIMIT = 1024;
+const chargeDensityReasons = new Map<number, Map<number, string>>();
+let chargeDensityReasonCount = 0;
+
+function chargeDensityReason(oxidationState: number, radiusPm: number, zText: string): string {
+  let byRadius = chargeDensityReasons.get(oxidationState);
+  if (byRadius === undefined) {
+    byRadius = new Map();
+    chargeDensityReasons.set(oxidationState, byRadius);
+  }
+  let text = byRadius.get(radiusPm);
+  if (text === undefined) {
+    const zEffective = Math.max(1, Math.min(oxidationState, 3));
+    const density = (zEffective * zEffective) / radiusPm;
+    if (oxidationState <= 2) text = `only ${zText}: low charge density (z²/r = ${formatFixed(density * 100, 1)} per 100 pm)`;
+    else if (density > 0.12) text = `${zText} on a small ion: high charge density holds the ligands (z²/r = ${formatFixed(density * 100, 1)} per 100 pm)`;
+    else text = `${zText}, radius ${radiusPm} pm: moderate charge density`;
+    if (chargeDensityReasonCount >= CHARGE_DENSITY_MEMO_LIMIT) {
+      chargeDensityReasons.clear();
+      chargeDensityReasonCount = 0;
+      byRadius = new Map();
+      chargeDensityReasons.set(oxidationState, byRadius);
+    }
+    byRadius.set(radiusPm, text);
+    chargeDensityReasonCount++;
+  }
+  return text;
+}
+
 export function predictLogK(input: LabilityInput): LabilityPrediction {
   const reasons: string[] = [];
   let roughness = input.radiusEstimated ? 1 : 0;
@@ -148,11 +179,7 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
 
   // 3. Charge density (all other ions).
   let logK = chargeDensityTerm(input.oxidationState, input.radiusPm);
-  const zEffective = Math.max(1, Math.min(input.oxidationState, 3));
-  const density = (zEffective * zEffective) / input.radiusPm;
-  if (input.oxidationState <= 2) reasons.push(`only ${zText}: low charge density (z²/r = ${formatFixed(density * 100, 1)} per 100 pm)`);
-  else if (density > 0.12) reasons.push(`${zText} on a small ion: high charge density holds the ligands (z²/r = ${formatFixed(density * 100, 1)} per 100 pm)`);
-  else reasons.push(`${zText}, radius ${input.radiusPm} pm: moderate charge density`);
+  reasons.push(chargeDensityReason(input.oxidationState, input.radiusPm, zText));
   if (input.oxidationState > 3) reasons.push(`formal oxidation state ${input.oxidationState}: bonds are largely covalent, charge term capped at 3+`);
 
   if (input.electronShell === 'f') {

@@ -136,8 +136,9 @@ export function ionicRadiusPm(
   element: MetalElement,
   oxidationState: number,
   spinState: 'high' | 'low' | null,
+  // The caller's own metalIon(element.symbol, oxidationState), when it has one: no second look-up.
+  ion: MetalIon | undefined = ionsByElement.get(element.symbol)?.get(oxidationState),
 ): { radiusPm: number; estimated: boolean } {
-  const ion = ionsByElement.get(element.symbol)?.get(oxidationState);
   if (ion) {
     const bySpin = spinState === 'low' ? ion.ionicRadiusLowSpinPm : ion.ionicRadiusHighSpinPm;
     const radius = bySpin ?? ion.ionicRadiusPm ?? ion.ionicRadiusHighSpinPm ?? ion.ionicRadiusLowSpinPm;

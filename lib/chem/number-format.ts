@@ -28,3 +28,37 @@ export function formatFixed(value: number, digits: 1 | 2): string {
   const sign = value < 0 ? '-' : '';
   return `${sign}${integerPart}.${digits === 2 && decimals < 10 ? '0' : ''}${decimals}`;
 }
+
+// 10^m, exact as doubles (m ≤ 22), so x × 10^m is rounded once.
+const POWERS_OF_TEN = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7];
+// Fixed-notation prefixes of toPrecision(2) for x × 10^m in [10, 100): "0.", "0.0", … "0.00000".
+const LEADING_ZEROS = ['', '', '0.', '0.0', '0.00', '0.000', '0.0000', '0.00000'];
+// x × 10^m is within 2⁻⁵³ relative (< 1.2e−14 absolute below 100) of the exact product: a
+// fraction this close to ½, or a product this close to a decade boundary, is left to toPrecision.
+const PRECISION_MARGIN = 1e-9;
+
+/**
+ * Exactly `value.toPrecision(2)`. toPrecision is a runtime call (~0.3 µs in V8) and every
+ * classification formats a half-life with it: this does the same rounding (nearest, ties up on
+ * the exact value) for 1e−6 ≤ value < 99.5, where toPrecision writes fixed notation, and leaves
+ * near-ties, decade boundaries, other magnitudes, negatives, NaN and infinities to toPrecision.
+ */
+export function formatPrecision2(value: number): string {
+  if (!(value >= 1e-6 && value < 100)) return value.toPrecision(2);
+  // Smallest m with value × 10^m ≥ 10: two significant digits are then the integer part.
+  let power = 0;
+  let scaled = value;
+  while (scaled < 10) {
+    power++;
+    if (power >= POWERS_OF_TEN.length) return value.toPrecision(2);
+    scaled = value * (POWERS_OF_TEN[power] as number);
+  }
+  if (scaled < 10 + PRECISION_MARGIN || scaled > 99.5 - PRECISION_MARGIN) return value.toPrecision(2);
+  const whole = Math.floor(scaled);
+  const fraction = scaled - whole;
+  if (Math.abs(fraction - 0.5) < PRECISION_MARGIN) return value.toPrecision(2);
+  const digits = fraction > 0.5 ? whole + 1 : whole;
+  if (power === 0) return `${digits}`;
+  if (power === 1) return `${Math.floor(digits / 10)}.${digits % 10}`;
+  return `${LEADING_ZEROS[power] as string}${digits}`;
+}
