@@ -13,6 +13,8 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import autocannon from 'autocannon';
+import { classifyRequestSchema } from '@/lib/schemas/chem';
+import { classify } from '@/server/modules/chem/chem.service';
 import { distinctFormulas } from './formula-set';
 import { median } from './stats';
 
@@ -161,7 +163,30 @@ export async function drain(baseUrl: string, quickMs = 25): Promise<number> {
   return performance.now() - started;
 }
 
+/**
+ * What the classify handler itself costs, without HTTP: JSON.parse, the shared schema, the engine
+ * and JSON.stringify of the answer, in this process over the same bodies the load generator sends
+ * (after a warm-up pass). The rest of classify's server CPU per request is HTTP's.
+ */
+export function handlerMicrosPerRequest(bodies: readonly string[]): number {
+  const once = () => {
+    for (const body of bodies) {
+      try {
+        JSON.stringify(classify(classifyRequestSchema.parse(JSON.parse(body))));
+      } catch {
+        // A formula the engine refuses is answered 400 by the server: its cost is counted all the same.
+      }
+    }
+  };
+  once();
+  const started = performance.now();
+  once();
+  return Math.round(((performance.now() - started) * 1000) / bodies.length);
+}
+
 export interface HttpResult {
+  /** classify's handler alone, in process (µs per request): see handlerMicrosPerRequest. */
+  classifyHandlerMicros: number;
   byConnections: Record<
     string,
     {
@@ -180,11 +205,12 @@ export interface HttpResult {
 
 export async function runHttpBench(baseUrl: string, options: HttpOptions = defaultHttpOptions, log: (line: string) => void = () => {}): Promise<HttpResult> {
   const list = endpoints();
+  const singles = list.find((endpoint) => endpoint.name === 'classify')?.spec.bodies ?? [];
   // A short warm-up of every endpoint (JIT, connection pools, the database pool).
   for (const endpoint of list) {
     await measure(baseUrl, endpoint, 10, 1);
   }
-  const result: HttpResult = { byConnections: {} };
+  const result: HttpResult = { classifyHandlerMicros: handlerMicrosPerRequest(singles), byConnections: {} };
   for (const connections of options.connections) {
     const runs = new Map<EndpointName, EndpointFigures[]>();
     for (let round = 0; round < options.rounds; round++) {

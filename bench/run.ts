@@ -179,6 +179,12 @@ async function main() {
           verdict: `${figures.classifyVsLiveByServerCpu.toFixed(2)}× if the server alone were the limit`,
         });
         rows.push({
+          figure: `http ${connections} conn: of classify's extra CPU, the handler's own work`,
+          target: '(why)',
+          measured: `${http.classifyHandlerMicros} of ${classify.serverCpuMicrosPerRequest - live.serverCpuMicrosPerRequest} µs`,
+          verdict: 'parse + schema + engine + serialise, in process; the rest is HTTP (POST body, larger answer)',
+        });
+        rows.push({
           figure: `http ${connections} conn: vs /bench/ping (no middleware)`,
           target: '(reference)',
           measured: `classify ${figures.classifyVsPing.toFixed(2)}×, live ${figures.liveVsPing.toFixed(2)}× (ping ${Math.round(ping.requestsPerSecond)} req/s)`,
