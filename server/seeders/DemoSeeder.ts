@@ -49,6 +49,7 @@ async function seedDemoPeople(em: EntityManager): Promise<void> {
     fenwick: em.create(ResearchGroup, { id: randomUUID(), name: DEMO_GROUPS.fenwick }),
   };
   const passwordHash = await hashPassword(DEMO_PASSWORD);
+  const memberships: { groupId: string; userId: string; role: (typeof demoAccounts)[number]['role'] }[] = [];
   for (const account of demoAccounts) {
     if (await em.findOne(User, { email: account.email })) continue;
     const user = em.create(User, {
@@ -58,6 +59,10 @@ async function seedDemoPeople(em: EntityManager): Promise<void> {
       passwordHash,
       emailVerifiedAt: new Date(),
     });
-    em.create(GroupMembership, { groupId: groups[account.group].id, userId: user.id, role: account.role });
+    memberships.push({ groupId: groups[account.group].id, userId: user.id, role: account.role });
   }
+  // Memberships refer to groups and users by plain id columns (no ORM relation), so the unit of
+  // work does not know to insert those first: it did not on an older database. Write them first.
+  await em.flush();
+  for (const membership of memberships) em.create(GroupMembership, membership);
 }
