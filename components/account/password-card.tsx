@@ -10,6 +10,7 @@ import { FormError } from '@/components/ui/form-error';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { spacing } from '@/components/ui/theme';
 import { applyServerErrors } from './form-errors';
+import { NewPasswordFields } from './new-password-fields';
 import { PASSWORD_RULES } from './sign-up-screen';
 
 const EMPTY: ChangePasswordForm = { currentPassword: '', newPassword: '', confirmPassword: '' };
@@ -48,25 +49,13 @@ export function PasswordCard() {
           textContentType="password"
           testID="password-current"
         />
-        <FormTextField
+        <NewPasswordFields
           control={control}
           name="newPassword"
-          label="New password"
+          confirmName="confirmPassword"
           hint={PASSWORD_RULES}
-          secureTextEntry
-          autoComplete="new-password"
-          textContentType="newPassword"
-          testID="password-new"
-        />
-        <FormTextField
-          control={control}
-          name="confirmPassword"
-          label="New password, again"
           onSubmitEditing={() => void submit()}
-          secureTextEntry
-          autoComplete="new-password"
-          textContentType="newPassword"
-          testID="password-confirm"
+          testID="password-new"
         />
         <FormError message={formError} testID="password-error" />
         <FormError message={done} tone="done" testID="password-done" />

@@ -9,10 +9,10 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { AppText } from '@/components/ui/text';
-import { FormTextField } from '@/components/ui/form-text-field';
 import { spacing } from '@/components/ui/theme';
 import { AuthFrame, LinkRow, TextLink } from './auth-frame';
 import { applyServerErrors } from './form-errors';
+import { NewPasswordFields } from './new-password-fields';
 import { PASSWORD_RULES } from './sign-up-screen';
 
 const LINK_SPENT =
@@ -73,25 +73,7 @@ export function ResetPasswordScreen({ token }: { token: string }) {
   return (
     <AuthFrame title="Choose a new password" intro={PASSWORD_RULES} testID="reset-screen">
       <View style={styles.form}>
-        <FormTextField
-          control={control}
-          name="password"
-          label="New password"
-          secureTextEntry
-          autoComplete="new-password"
-          textContentType="newPassword"
-          testID="reset-password"
-        />
-        <FormTextField
-          control={control}
-          name="confirmPassword"
-          label="New password, again"
-          onSubmitEditing={() => void submit()}
-          secureTextEntry
-          autoComplete="new-password"
-          textContentType="newPassword"
-          testID="reset-password-confirm"
-        />
+        <NewPasswordFields control={control} name="password" confirmName="confirmPassword" onSubmitEditing={() => void submit()} testID="reset-password" />
         <FormError message={formError?.message} testID="reset-form-error">
           {formError?.linkSpent ? <TextLink href="/forgot-password" testID="reset-request-new">Ask for a new link</TextLink> : null}
         </FormError>

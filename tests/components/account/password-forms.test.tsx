@@ -69,7 +69,7 @@ describe('PasswordCard (signed in)', () => {
   const fill = (current: string, next: string, again: string) => {
     fireEvent.changeText(screen.getByTestId('password-current'), current);
     fireEvent.changeText(screen.getByTestId('password-new'), next);
-    fireEvent.changeText(screen.getByTestId('password-confirm'), again);
+    fireEvent.changeText(screen.getByTestId('password-new-confirm'), again);
     fireEvent.press(screen.getByTestId('password-submit'));
   };
 
@@ -77,7 +77,7 @@ describe('PasswordCard (signed in)', () => {
     const { fetchMock } = mockFetch({});
     renderWithQueries(<PasswordCard />);
     fill('the current one', 'labile aqua complex', 'labile aqua complx');
-    expect(await screen.findByTestId('password-confirm-error')).toHaveTextContent(/The two passwords differ/);
+    expect(await screen.findByTestId('password-new-confirm-error')).toHaveTextContent(/The two passwords differ/);
     expect(fetchMock).not.toHaveBeenCalled();
   });
 
