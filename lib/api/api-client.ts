@@ -27,12 +27,15 @@ export async function apiRequest<T>(
   }
   const payload: unknown = await response.json().catch(() => null);
   if (!response.ok) {
-    const parsed = apiErrorBodySchema.safeParse(payload);
-    if (parsed.success) {
-      const { code, message, fields } = parsed.data.error;
-      throw new ApiError(response.status, code, message, fields ?? {});
-    }
-    throw new ApiError(response.status, 'INTERNAL', `The server answered ${response.status}.`);
+    throw apiErrorFrom(response.status, payload);
   }
   return schema.parse(payload);
+}
+
+/** The ApiError for a refused answer: its error body when it has the one shape, else a generic one. */
+export function apiErrorFrom(status: number, payload: unknown): ApiError {
+  const parsed = apiErrorBodySchema.safeParse(payload);
+  if (!parsed.success) return new ApiError(status, 'INTERNAL', `The server answered ${status}.`);
+  const { code, message, fields } = parsed.data.error;
+  return new ApiError(status, code, message, fields ?? {});
 }

@@ -1,6 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { apiErrorBodySchema } from '@/lib/schemas/errors';
 import {
   attachmentListSchema,
   attachmentSchema,
@@ -16,7 +15,7 @@ import {
   type MailPreferences,
   type UpdateMailPreferencesInput,
 } from '@/lib/schemas/exchange';
-import { ApiError, apiRequest } from './api-client';
+import { ApiError, apiErrorFrom, apiRequest } from './api-client';
 import { normaliseFilters, retryUnlessClientError, type ComplexFilters } from './library';
 
 /**
@@ -75,12 +74,7 @@ async function sendRaw<T>(
       const { code, message, fields, issues } = refused.data.error;
       throw new FileRefusedError(response.status, code, message, fields ?? {}, issues ?? []);
     }
-    const parsed = apiErrorBodySchema.safeParse(payload);
-    if (parsed.success) {
-      const { code, message, fields } = parsed.data.error;
-      throw new ApiError(response.status, code, message, fields ?? {});
-    }
-    throw new ApiError(response.status, 'INTERNAL', `The server answered ${response.status}.`);
+    throw apiErrorFrom(response.status, payload);
   }
   return schema.parse(payload);
 }

@@ -7,7 +7,6 @@ import {
   type QueryClient,
 } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { apiErrorBodySchema } from '@/lib/schemas/errors';
 import {
   complexDetailSchema,
   complexListResponseSchema,
@@ -29,7 +28,7 @@ import {
   type UpdateComplexInput,
   type UpdateMeasurementInput,
 } from '@/lib/schemas/library';
-import { ApiError, apiRequest } from './api-client';
+import { ApiError, apiErrorFrom, apiRequest } from './api-client';
 
 /**
  * The curated library (issue 6): typed calls for /api/complexes, /api/review-queue and /api/ligands,
@@ -121,12 +120,7 @@ async function versionedRequest<T>(path: string, schema: z.ZodType<T>, init: { m
       const stale = staleVersionErrorSchema.safeParse(payload);
       if (stale.success) throw new StaleVersionError(stale.data.error.message, stale.data.error.current);
     }
-    const parsed = apiErrorBodySchema.safeParse(payload);
-    if (parsed.success) {
-      const { code, message, fields } = parsed.data.error;
-      throw new ApiError(response.status, code, message, fields ?? {});
-    }
-    throw new ApiError(response.status, 'INTERNAL', `The server answered ${response.status}.`);
+    throw apiErrorFrom(response.status, payload);
   }
   return schema.parse(payload);
 }
