@@ -27,6 +27,8 @@ async function waitForHealth(baseUrl: string, server: ChildProcess, timeoutMs = 
   throw new Error('The server did not become healthy in time.');
 }
 
+const onlySpecs = process.argv.slice(2);
+
 async function main() {
   const webDir = path.join(root, 'dist');
   await ensureWebBuild(root, webDir, (line) => console.log(`[e2e] ${line}`));
@@ -51,6 +53,8 @@ async function main() {
     const specs = fs
       .readdirSync(__dirname)
       .filter((file) => file.endsWith('.e2e.ts'))
+      // `npm run test:e2e -- check library` runs only the specs whose names contain those words.
+      .filter((file) => onlySpecs.length === 0 || onlySpecs.some((word) => file.includes(word)))
       .sort()
       .map((file) => path.join('tests/e2e', file));
     const runner = spawn(process.execPath, [require.resolve('tsx/cli'), '--test', '--test-concurrency=1', ...specs], {
