@@ -8,8 +8,22 @@ import { startPrivateCluster } from '@/server/db/cluster';
  * `npm test`: a throwaway PostgreSQL cluster (unless DATABASE_URL is given), then jest with the
  * given arguments; the cluster is removed afterwards, also when tests fail or the run is interrupted.
  */
+/**
+ * The package scripts pass `--selectProjects a b c` first; jest reads every word after it as a project
+ * name, so `npm test -- tests/lib/chem/route.test.ts` would select no file and run everything. Put
+ * the script's project list last, and drop it when the caller chooses projects.
+ */
+function withProjectsLast(args: string[]): string[] {
+  if (args[0] !== '--selectProjects') return args;
+  let end = 1;
+  while (end < args.length && !args[end]!.startsWith('-') && !args[end]!.includes('/') && !args[end]!.includes('.')) end += 1;
+  const defaults = args.slice(0, end);
+  const rest = args.slice(end);
+  return rest.includes('--selectProjects') ? rest : [...rest, ...defaults];
+}
+
 async function main() {
-  const jestArgs = process.argv.slice(2);
+  const jestArgs = withProjectsLast(process.argv.slice(2));
   let cleanup = async () => {};
   const env = { ...process.env };
   if (!env.DATABASE_URL) {
