@@ -1,5 +1,5 @@
 /**
- * `npm run bench`: engine, HTTP, library search, CSV import and web figures (issue 8). Writes
+ * `npm run bench`: engine, HTTP, library search, CSV import and web figures. Writes
  * bench-results/bench-<time>.json and latest.json (git-ignored) and prints a table of target,
  * measured, met / short by how much.
  *

@@ -1,5 +1,5 @@
 /**
- * Section 3: library search at 100 000 generated entries (issue 8). A throwaway cluster, the
+ * Section 3: library search at 100 000 generated entries. A throwaway cluster, the
  * real migrations, server/modules/library/generate.ts, then each typical search ~40 times through
  * the real service (searchComplexes) for p50/p95 — and the same searches with index and bitmap
  * scans switched off in the session (an unindexed scan of the same SQL), in the same run, for the
@@ -22,7 +22,7 @@ import { percentile, round } from './stats';
 export const SEARCH_TARGET_P95_MS = 25;
 export const SEARCH_TARGET_RATIO = 20;
 
-/** The three typical searches of issue 8. */
+/** The three typical searches the bench times. */
 export const typicalSearches: Record<string, Record<string, string>> = {
   'text "Co amm"': { q: 'Co amm' },
   '"ammine" metal=Co verdict=inert': { q: 'ammine', metal: 'Co', verdict: 'inert' },

@@ -19,7 +19,7 @@ import { ApiError, apiErrorFrom, apiRequest } from './api-client';
 import { normaliseFilters, retryUnlessClientError, type ComplexFilters } from './library';
 
 /**
- * Library exchange (issue 7): CSV import jobs, export links, DOI look-up, attachments and e-mail
+ * Library exchange: CSV import jobs, export links, DOI look-up, attachments and e-mail
  * preferences. Files go up as the raw request body (never JSON, never a multipart form), so uploads
  * use fetch directly; every answer is parsed with the shared schemas.
  */

@@ -31,7 +31,7 @@ import {
 import { ApiError, apiErrorFrom, apiRequest } from './api-client';
 
 /**
- * The curated library (issue 6): typed calls for /api/complexes, /api/review-queue and /api/ligands,
+ * The curated library: typed calls for /api/complexes, /api/review-queue and /api/ligands,
  * their query keys, and the hooks the screens use. Every change invalidates the lists, the entry, its
  * history and the review queue; a 409 on a stale version arrives as StaleVersionError with the entry
  * as it is now (never a silent overwrite).

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { complexSearchQuerySchema, doiSchema } from './library';
 
 /**
- * Library exchange (issue 7): CSV import/export, citation export (BibTeX, RIS), DOI look-up,
+ * Library exchange: CSV import/export, citation export (BibTeX, RIS), DOI look-up,
  * attachments and e-mail preferences. One zod schema per DTO, shared by the server and the app.
  * Wire format: string ids, ISO date strings.
  */

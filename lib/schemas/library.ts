@@ -3,7 +3,7 @@ import { classificationSchema, MAX_FORMULA_LENGTH } from './chem';
 import { roleSchema } from './groups';
 
 /**
- * The curated complex library (issue 6): entries, measurements, citations, ligands, revisions,
+ * The curated complex library: entries, measurements, citations, ligands, revisions,
  * reviews and search. One zod schema per request/response DTO, shared by the server (request
  * parsing), the app's forms (zodResolver) and the API client (response parsing).
  * Wire format: string ids (UUIDs), ISO date strings. Only additive changes from here on.

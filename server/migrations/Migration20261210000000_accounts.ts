@@ -1,7 +1,7 @@
 import { Migration } from '@mikro-orm/migrations';
 
 /**
- * Accounts, sessions, groups and roles (issue 5): users with Argon2id hashes, lucia sessions
+ * Accounts, sessions, groups and roles: users with Argon2id hashes, lucia sessions
  * (stored by the SHA-256 of their id), single-use e-mail tokens (stored hashed), sign-in
  * throttling counters shared by every server process, groups with memberships and invitations,
  * a generic audit trail, and the development mail sink's outbox.

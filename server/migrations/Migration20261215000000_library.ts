@@ -1,7 +1,7 @@
 import { Migration } from '@mikro-orm/migrations';
 
 /**
- * The curated complex library (issue 6): citations (de-duplicated by DOI within a group), the
+ * The curated complex library: citations (de-duplicated by DOI within a group), the
  * group's own ligand additions, complexes with the engine's derived fields stored for search,
  * measurements, revisions (full JSON snapshots) and reviews.
  *

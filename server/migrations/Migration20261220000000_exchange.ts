@@ -1,7 +1,7 @@
 import { Migration } from '@mikro-orm/migrations';
 
 /**
- * Library exchange (issue 7): CSV import jobs (progress shared through PostgreSQL, so any server
+ * Library exchange: CSV import jobs (progress shared through PostgreSQL, so any server
  * process can answer the poll), attachments (metadata here, bytes in the object store) and
  * per-person e-mail preferences for review events.
  */

@@ -1,7 +1,7 @@
 import { Migration } from '@mikro-orm/migrations';
 
 /**
- * Library search at 100 000 entries (issue 8).
+ * Library search at 100 000 entries.
  *
  * `is_published` (generated, so every writer keeps it right without knowing of it): the entry has
  * an approved snapshot and is not retired, which is what a viewer may see.

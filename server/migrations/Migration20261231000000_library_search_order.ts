@@ -1,7 +1,7 @@
 import { Migration } from '@mikro-orm/migrations';
 
 /**
- * Library search pages without visiting every match (issue 8, section 3).
+ * Library search pages without visiting every match.
  *
  * The search counts only up to a cap and reads a page in an order an index delivers, so that a
  * page of a 10 000-match search reads ~ the page's share of the index, not all matches:

@@ -12,7 +12,7 @@ import { seedDemoLibrary } from '@/server/modules/library/demo-library';
 export const DEMO_SEED_KEY = 'demo-seed';
 /** Its own marker, so a database seeded before accounts existed still gets the lab's people once. */
 export const DEMO_PEOPLE_SEED_KEY = 'demo-seed-people';
-/** The lab's library (issue 6) has its own marker too, for databases seeded before the library existed. */
+/** The lab's library has its own marker too, for databases seeded before the library existed. */
 export const DEMO_LIBRARY_SEED_KEY = 'demo-seed-library';
 
 /**

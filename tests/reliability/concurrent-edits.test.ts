@@ -8,7 +8,7 @@ import { queryRows } from './helpers/database-state';
 import { HttpClient } from './helpers/http-client';
 
 /**
- * Issue 9.4 — many clients change the same entry from the same version at the same moment:
+ * Many clients change the same entry from the same version at the same moment:
  * exactly one wins, every other one gets 409 with the current version (and the entry as it is),
  * and the stored entry is the winner's (no lost update, one revision for the one change).
  */

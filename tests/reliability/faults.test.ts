@@ -9,7 +9,7 @@ import { standInWebDir, startServerProcess, type ServerProcess } from './helpers
 import { startThrowawayCluster, type ThrowawayCluster } from './helpers/throwaway-cluster';
 
 /**
- * Issue 9.3 — faults against the REAL server process over a PostgreSQL of this file's own:
+ * Faults against the REAL server process over a PostgreSQL of this file's own:
  * PostgreSQL stopped in the middle of a load run (503 in the error shape, no hang, no crash,
  * recovery by itself — timed), and SIGKILL of the server in the middle of review transitions and
  * of a CSV import (after a restart nothing is half written and the audit trail matches the

@@ -11,7 +11,7 @@ import { HttpClient, type HttpResult } from './helpers/http-client';
 import { isWriteRoute, KNOWN_WRITE_ROUTES, listApiRoutes, routeKey, type ApiRoute } from './helpers/route-inventory';
 
 /**
- * Issue 9.1 — hostile input on EVERY write route (POST/PATCH/PUT/DELETE under /api, read from the
+ * Hostile input on EVERY write route (POST/PATCH/PUT/DELETE under /api, read from the
  * Express router itself, so a new route is covered without editing this file): malformed JSON,
  * wrong types, huge strings, deep nesting, oversize bodies, hostile path ids and query strings.
  * Each must get a 4xx in the one error shape, quickly, and nothing may be written (the whole

@@ -13,7 +13,7 @@ import { createTestDatabase } from '../setup/test-database';
 import { Browser, setCookieLine, TEST_HOST, TEST_ORIGIN } from '../server/auth-helpers';
 
 /**
- * Issue 9.5 — the authorisation matrix of the accounts tests extended to every library and exchange
+ * The authorisation matrix of the accounts tests extended to every library and exchange
  * route (each route × admin, curator, contributor, viewer, a member of another group, signed out,
  * with the exact status), then session cookie flags, the CSRF origin check, no account
  * enumeration, security headers (CSP that the exported web app satisfies), uploads that cannot

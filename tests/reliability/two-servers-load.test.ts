@@ -10,7 +10,7 @@ import { standInWebDir, startServerProcess, type ServerProcess } from './helpers
 import { startThrowawayCluster, type ThrowawayCluster } from './helpers/throwaway-cluster';
 
 /**
- * Issue 9.2 and 9.6 — two REAL server processes (tsx server/index.ts) over one PostgreSQL, 200
+ * Two REAL server processes (tsx server/index.ts) over one PostgreSQL, 200
  * concurrent connections spread over both for RELIABILITY_LOAD_SECONDS (default 15 s to keep the
  * suite within CI's few minutes on 2 cores; 30 s when run by hand with RELIABILITY_LOAD_SECONDS=30):
  * reads, searches, filters, classifications, creates and versioned edits by six signed-in people.

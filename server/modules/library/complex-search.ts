@@ -17,7 +17,7 @@ import { searchTokens } from './derive';
 import { membershipsOf, type MembershipInfo } from './library-access';
 
 /**
- * Server-side search over the groups the person belongs to (issue 8: 100 000 entries).
+ * Server-side search over the groups the person belongs to (100 000 entries).
  *
  * Text: every query token must match (AND), each in the cheapest way that is still right:
  * - a metal's symbol as written ("Co", case-sensitive, so "CO" stays carbonyl) or an element name

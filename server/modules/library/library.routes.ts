@@ -36,7 +36,7 @@ const versionQuerySchema = z.object({ version: z.coerce.number().int().min(1).op
 const groupQuerySchema = z.object({ groupId: z.uuid('groupId must be a group id.').optional() }).strict();
 
 /**
- * The curated library (issue 6). Every route needs a session; the group comes from the entry
+ * The curated library. Every route needs a session; the group comes from the entry
  * (or `groupId`, defaulting to the person's only group) and membership + role are checked by the
  * services (library-access.ts) or by requireGroupRole for /groups/:groupId/… routes.
  */
