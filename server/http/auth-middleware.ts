@@ -4,8 +4,6 @@ import { verifyRequestOrigin } from 'oslo/request';
 import { roleAtLeast, type Role } from '@/lib/schemas/groups';
 import type { AccountsContext } from '@/server/modules/auth/auth-context';
 import { SESSION_COOKIE_NAME } from '@/server/modules/auth/lucia';
-import { ResearchGroup } from '@/server/modules/groups/group.entity';
-import { GroupMembership } from '@/server/modules/groups/membership.entity';
 import { AppError } from './errors';
 
 /**
@@ -111,13 +109,11 @@ export const requireAuth: RequestHandler = async (req, res, next) => {
   next();
 };
 
-async function loadMembership(res: Response, groupId: unknown, userId: string): Promise<MembershipState | null> {
+/** The membership read with the session (one statement per request, see lucia.ts). */
+function membershipIn(auth: AuthState, groupId: unknown): MembershipState | null {
   if (!isUuid(groupId)) return null;
-  const em = accountsOf(res).orm.em.fork();
-  const membership = await em.findOne(GroupMembership, { groupId, userId });
-  if (!membership) return null;
-  const group = await em.findOne(ResearchGroup, { id: groupId });
-  return group ? { groupId, groupName: group.name, role: membership.role } : null;
+  const wanted = groupId.toLowerCase();
+  return auth.user.memberships.find((m) => m.groupId === wanted) ?? null;
 }
 
 /** Signed in, a member of `:groupId`, with at least `minRole`. */
@@ -125,7 +121,7 @@ export function requireGroupRole(minRole: Role): RequestHandler {
   return async (req: Request, res: Response, next: NextFunction) => {
     const auth = await resolveAuth(req, res);
     if (!auth) throw new AppError('UNAUTHENTICATED', 'Sign in to continue.');
-    const membership = await loadMembership(res, req.params.groupId, auth.user.id);
+    const membership = membershipIn(auth, req.params.groupId);
     if (!membership) throw new AppError('NOT_FOUND', 'That group was not found.');
     if (!roleAtLeast(membership.role, minRole)) {
       throw new AppError('FORBIDDEN', `This needs the ${minRole} role or higher in this group; you are a ${membership.role}.`);

@@ -80,7 +80,7 @@ export function authRoutes(ctx: AccountsContext): Router {
 
   router.get('/auth/me', requireAuth, async (_req, res) => {
     res.setHeader('Cache-Control', 'no-store');
-    res.json(await auth.getMe(em(), getAuth(res).user.id));
+    res.json(auth.meFromSession(getAuth(res).user));
   });
 
   router.patch('/auth/me', requireAuth, async (req, res) => {

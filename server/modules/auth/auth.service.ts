@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/core';
+import type { User as SessionUser } from 'lucia';
 import type {
   MeResponse,
   PasswordChangeInput,
@@ -267,6 +268,14 @@ export async function getMe(em: EntityManager, userId: string): Promise<MeRespon
     memberships: memberships
       .map((m) => ({ groupId: m.groupId, groupName: nameOf.get(m.groupId) ?? '', role: m.role }))
       .sort((a, b) => a.groupName.localeCompare(b.groupName)),
+  };
+}
+
+/** The same answer as getMe, from what the session lookup already read (no query). */
+export function meFromSession(user: SessionUser): MeResponse {
+  return {
+    user: { id: user.id, email: user.email, displayName: user.displayName },
+    memberships: [...user.memberships].sort((a, b) => a.groupName.localeCompare(b.groupName)),
   };
 }
 

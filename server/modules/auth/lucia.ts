@@ -1,7 +1,7 @@
 import { Lucia, TimeSpan, type Adapter, type DatabaseSession, type DatabaseUser } from 'lucia';
+import type { Role } from '@/lib/schemas/groups';
 import type { Orm } from '@/server/db/orm';
 import { hashSecret } from './tokens';
-import { User } from './user.entity';
 import { UserSession } from './user-session.entity';
 
 export const SESSION_COOKIE_NAME = 'sphereline_session';
@@ -12,10 +12,44 @@ interface SessionAttributes {
   ip: string | null;
 }
 
+/** A group the signed-in person belongs to, read with the session so group routes need no query. */
+export interface SessionMembership {
+  groupId: string;
+  groupName: string;
+  role: Role;
+}
+
 interface UserAttributes {
   email: string;
   displayName: string;
+  memberships: SessionMembership[];
 }
+
+interface SessionLookupRow {
+  user_id: string;
+  expires_at: Date;
+  created_at: Date;
+  user_agent: string | null;
+  ip: string | null;
+  email: string;
+  display_name: string;
+  memberships: SessionMembership[];
+}
+
+/**
+ * The session, its person and the person's groups in one statement: every signed-in request
+ * starts here, so it costs one round trip, not four.
+ */
+const SESSION_LOOKUP_SQL = `
+  select s.user_id, s.expires_at, s.created_at, s.user_agent, s.ip, u.email, u.display_name,
+    coalesce((
+      select json_agg(json_build_object('groupId', m.group_id, 'groupName', g.name, 'role', m.role)
+                      order by g.name, m.group_id)
+      from group_membership m join research_group g on g.id = m.group_id
+      where m.user_id = s.user_id
+    ), '[]'::json) as memberships
+  from user_session s join app_user u on u.id = s.user_id
+  where s.id = ?`;
 
 /**
  * lucia v3 adapter over MikroORM (PLATFORM trap 11). Session ids are stored as their SHA-256:
@@ -26,17 +60,17 @@ export class MikroOrmSessionAdapter implements Adapter {
   constructor(private readonly orm: Orm) {}
 
   async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
-    const em = this.orm.em.fork();
-    const row = await em.findOne(UserSession, { id: hashSecret(sessionId) });
+    const rows: SessionLookupRow[] = await this.orm.em.getConnection().execute(SESSION_LOOKUP_SQL, [hashSecret(sessionId)]);
+    const row = rows[0];
     if (!row) return [null, null];
-    const user = await em.findOne(User, { id: row.userId });
     const session: DatabaseSession = {
       id: sessionId,
-      userId: row.userId,
-      expiresAt: row.expiresAt,
-      attributes: { createdAt: row.createdAt, userAgent: row.userAgent ?? null, ip: row.ip ?? null },
+      userId: row.user_id,
+      expiresAt: new Date(row.expires_at),
+      attributes: { createdAt: new Date(row.created_at), userAgent: row.user_agent, ip: row.ip },
     };
-    return [session, user ? { id: user.id, attributes: { email: user.email, displayName: user.displayName } } : null];
+    const attributes: UserAttributes = { email: row.email, displayName: row.display_name, memberships: row.memberships };
+    return [session, { id: row.user_id, attributes }];
   }
 
   /** Returns the hashed ids (the public handles); lucia's own getUserSessions is not used. */
@@ -93,7 +127,11 @@ export function createLucia(orm: Orm) {
       attributes: { sameSite: 'lax', path: '/', secure: false },
     },
     getSessionAttributes: (attributes) => attributes,
-    getUserAttributes: (attributes) => ({ email: attributes.email, displayName: attributes.displayName }),
+    getUserAttributes: (attributes) => ({
+      email: attributes.email,
+      displayName: attributes.displayName,
+      memberships: attributes.memberships,
+    }),
   });
 }
 
