@@ -83,6 +83,16 @@ describe('the signed-in path', () => {
     expect(denied).toHaveLength(1);
   });
 
+  it('a library search reads the groups from the session, not again', async () => {
+    let status = 0;
+    const sql = await statementsOf(async () => {
+      status = (await curator.get(`/api/complexes?groupId=${groupId}&q=ammine`)).status;
+    });
+    expect(status).toBe(200);
+    expect(sql.filter((s) => /from "group_membership"/.test(s) && !/json_agg/.test(s))).toEqual([]);
+    expect(sql.filter((s) => /from "research_group"/.test(s) && !/json_agg/.test(s))).toEqual([]);
+  });
+
   it('the sliding expiry is written once when half the lifetime has passed, then not again', async () => {
     const em = t.orm.em.fork();
     const handle = hashSecret(curator.cookie ?? '');

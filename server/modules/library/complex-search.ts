@@ -213,9 +213,12 @@ export async function searchComplexes(
   em: EntityManager,
   userId: string,
   query: ComplexSearchQuery,
-  options: { strategy?: SearchStrategy } = {},
+  options: { strategy?: SearchStrategy; memberships?: readonly MembershipInfo[] } = {},
 ): Promise<ComplexListResponse> {
-  const all = await membershipsOf(em, userId);
+  // The session lookup already read the person's groups; other callers (bench, CLI) ask here.
+  const all = options.memberships
+    ? new Map(options.memberships.map((m) => [m.groupId, m]))
+    : await membershipsOf(em, userId);
   let memberships = [...all.values()];
   if (query.groupId) {
     const one = all.get(query.groupId);

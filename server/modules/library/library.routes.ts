@@ -47,7 +47,8 @@ export function libraryRoutes(orm: Orm): Router {
 
   router.get('/complexes', requireAuth, async (req, res) => {
     const query = parseWith(complexSearchQuerySchema, req.query, 'query');
-    res.json(await searchComplexes(em(), actor(res).userId, query));
+    const { user } = getAuth(res);
+    res.json(await searchComplexes(em(), user.id, query, { memberships: user.memberships }));
   });
 
   router.post('/complexes', requireAuth, async (req, res) => {
