@@ -1,5 +1,3 @@
-import fs from 'node:fs';
-import path from 'node:path';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { Orm } from './db/orm';
@@ -8,6 +6,7 @@ import { attachAccounts, originCheck } from './http/auth-middleware';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { requestLog } from './http/request-log';
 import { rejectUnstorableText } from './http/unstorable-text';
+import { serveWebApp } from './web/serve-web-app';
 import { defaultAuthSettings, type AccountsContext, type AuthSettings } from './modules/auth/auth-context';
 import { authRoutes } from './modules/auth/auth.routes';
 import { createLucia } from './modules/auth/lucia';
@@ -111,22 +110,4 @@ export function createApp({ orm, webDir, logRequests = false, ...options }: AppO
   if (webDir) serveWebApp(app, webDir);
   app.use(errorHandler);
   return app;
-}
-
-function serveWebApp(app: Express, webDir: string) {
-  app.use(express.static(webDir, { index: false, maxAge: '1h' }));
-  const indexFile = path.join(webDir, 'index.html');
-  // Client routes (/check, /library/…): the app's HTML, which routes in the browser.
-  app.use((req, res, next) => {
-    if (req.method !== 'GET' && req.method !== 'HEAD') return next();
-    if (!fs.existsSync(indexFile)) {
-      res
-        .status(503)
-        .type('text/plain')
-        .send('The web app has not been built yet: run `npm run build:web` (npm start does it for you).');
-      return;
-    }
-    res.setHeader('Cache-Control', 'no-cache');
-    res.sendFile(indexFile);
-  });
 }

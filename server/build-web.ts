@@ -1,10 +1,13 @@
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
+import { precompressWebApp } from './web/compress';
 
 /** Sources whose change makes the exported web app stale. */
 const SOURCES = ['app', 'components', 'lib', 'data', 'assets', 'app.json', 'package-lock.json', 'babel.config.js'];
 const STAMP = '.sphereline-build.json';
+/** Bumped when the build's output changes shape (2: pre-compressed copies), so older builds are redone. */
+const BUILD_FORMAT = 2;
 
 function newestMtimeMs(entry: string): number {
   if (!fs.existsSync(entry)) return 0;
@@ -18,7 +21,8 @@ function newestMtimeMs(entry: string): number {
 export function webBuildIsFresh(root: string, webDir: string): boolean {
   const stampFile = path.join(webDir, STAMP);
   if (!fs.existsSync(stampFile) || !fs.existsSync(path.join(webDir, 'index.html'))) return false;
-  const { sourcesMtimeMs } = JSON.parse(fs.readFileSync(stampFile, 'utf8')) as { sourcesMtimeMs: number };
+  const { sourcesMtimeMs, format } = JSON.parse(fs.readFileSync(stampFile, 'utf8')) as { sourcesMtimeMs: number; format?: number };
+  if (format !== BUILD_FORMAT) return false;
   const current = Math.max(...SOURCES.map((s) => newestMtimeMs(path.join(root, s))));
   return current <= sourcesMtimeMs;
 }
@@ -46,8 +50,13 @@ export async function buildWeb(root: string, webDir: string, log: (line: string)
       code === 0 ? resolve() : reject(new Error(`Web export failed (exit ${code}):\n${output.slice(-4000)}`)),
     );
   });
-  fs.writeFileSync(path.join(webDir, STAMP), JSON.stringify({ sourcesMtimeMs, builtAt: new Date().toISOString() }));
-  log(`Web app built in ${((Date.now() - started) / 1000).toFixed(1)} s.`);
+  const compressed = precompressWebApp(webDir);
+  fs.writeFileSync(path.join(webDir, STAMP), JSON.stringify({ sourcesMtimeMs, format: BUILD_FORMAT, builtAt: new Date().toISOString() }));
+  const kb = (bytes: number) => `${Math.round(bytes / 1024)} KB`;
+  log(
+    `Web app built in ${((Date.now() - started) / 1000).toFixed(1)} s; ${compressed.files} files pre-compressed ` +
+      `(${kb(compressed.rawBytes)} → brotli ${kb(compressed.brotliBytes)}, gzip ${kb(compressed.gzipBytes)}).`,
+  );
 }
 
 export async function ensureWebBuild(root: string, webDir: string, log?: (line: string) => void) {
