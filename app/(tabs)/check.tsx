@@ -1,6 +1,7 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { useCallback } from 'react';
 import { CheckScreen } from '@/components/check/check-screen';
+import { formulaFromAddress } from '@/components/check/formula-from-address';
 
 /** /check?formula=<urlencoded> opens with the result shown; typing keeps the address shareable. */
 export default function Check() {
@@ -10,5 +11,5 @@ export default function Check() {
     (settled: string) => router.setParams({ formula: settled || undefined }),
     [router],
   );
-  return <CheckScreen initialFormula={typeof formula === 'string' ? formula : ''} onFormulaSettled={keepInAddress} />;
+  return <CheckScreen initialFormula={formulaFromAddress(typeof formula === 'string' ? formula : undefined)} onFormulaSettled={keepInAddress} />;
 }

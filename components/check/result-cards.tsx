@@ -49,6 +49,15 @@ export function IdentityCard({ result }: { result: Classification }) {
   return (
     <Card title="Identity" testID="identity-card">
       <FormulaText formula={result.formula} variant="title" />
+      {result.readings?.map((reading) => (
+        <View key={`${reading.kind}:${reading.species}`} style={styles.readAs} testID="read-as">
+          <AppText variant="label" tone="soft">{reading.kind === 'name' ? 'Stands for' : reading.kind === 'solid' ? 'Read as the solid’s complex' : 'Read as the species in water'}</AppText>
+          <FormulaText formula={reading.species} />
+        </View>
+      ))}
+      {result.warnings?.map((warning) => (
+        <AppText key={warning} tone="danger" testID="formula-warning">{warning}</AppText>
+      ))}
       <KeyValueGrid
         items={[
           { label: 'Metal', value: `${result.metal}(${roman(result.oxidationState)})` },
@@ -141,6 +150,7 @@ export function CautionsCard({ result }: { result: Classification }) {
 
 const styles = StyleSheet.create({
   verdictHead: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, flexWrap: 'wrap' },
+  readAs: { flexDirection: 'row', alignItems: 'baseline', gap: spacing.sm, flexWrap: 'wrap' },
   measured: {
     borderLeftWidth: 3,
     borderLeftColor: colors.accent,

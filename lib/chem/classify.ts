@@ -192,6 +192,8 @@ function copyClassification(source: Classification): Classification {
     activationEnergyDq: source.activationEnergyDq && { ...source.activationEnergyDq },
     activationEnergyKJPerMol: source.activationEnergyKJPerMol && { ...source.activationEnergyKJPerMol },
     measured: source.measured && { ...source.measured },
+    ...(source.readings ? { readings: source.readings.map((reading) => ({ ...reading })) } : {}),
+    ...(source.warnings ? { warnings: source.warnings.slice() } : {}),
   };
 }
 
@@ -273,6 +275,9 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   }
   const { radiusPm, estimated: radiusEstimated } = ionicRadiusPm(element, oxidationState, spin.spinState, ion);
 
+  // --- how the formula was read (trivial name, salt or hydrate), and what had to be assumed
+  for (const reading of parsed.readings) reasons.push(reading.text);
+  for (const warning of parsed.warnings) reasons.push(warning);
   // --- electron counting reasons
   reasons.push(summaryReason(element, oxidationState, configuration, parsed.complexCharge, parsed.counterIons.length > 0, cn, geometry, geometrySource === 'given'));
   if (hasNitrosyl) reasons.push('nitrosyl counted as NO⁺ (linear, 2-electron donor) by convention');
@@ -370,7 +375,13 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     predictedLogKPerSecond: Math.round(predictedLogK * 100) / 100,
     unpairedElectrons: occupancy && hasLigandField && (geometry === 'octahedral') ? occupancy.unpaired : null,
     valenceElectronCount: electronCount ?? undefined,
+    ...(parsed.readings.length > 0 ? { readings: parsed.readings.map(readingSummary) } : {}),
+    ...(parsed.warnings.length > 0 ? { warnings: parsed.warnings.slice() } : {}),
   };
+}
+
+function readingSummary(reading: { kind: 'name' | 'dissolved' | 'solid'; species: string; text: string }): NonNullable<Classification['readings']>[number] {
+  return { kind: reading.kind, species: reading.species, text: reading.text };
 }
 
 /** The result's ligand list (a loop: no closure per formula). */

@@ -4,10 +4,12 @@
  * what is wrong there. The oxidation state follows from the charge balance
  * (counter-ions + complex charge + ligand charges).
  */
+import saltReadingData from '@/data/salt-readings.json';
+import trivialNameData from '@/data/trivial-names.json';
 import * as elements from './elements';
 import * as ligandsModule from './ligands';
 import * as metalIons from './metal-ions';
-import { FormulaError, type IonPart, type LigandDefinition, type LigandInstance, type ParsedFormula } from './types';
+import { FormulaError, type Checked, type FormulaReading, type IonPart, type LigandDefinition, type LigandInstance, type ParsedFormula } from './types';
 
 // Read once: under tsx each use of an imported name is a getter call, which shows in the
 // parser's inner loops (see classify.ts).
@@ -20,6 +22,8 @@ export interface ParsedComplex extends ParsedFormula {
   oxidationState: number;
   /** Charge written by the user (null if it came from the counter-ions or defaulted to 0). */
   writtenCharge: number | null;
+  readings: FormulaReading[];
+  warnings: string[];
 }
 
 interface CounterIonDefinition {
@@ -179,6 +183,31 @@ const SUPERSCRIPT_DIGITS: ReadonlyMap<string, number> = new Map(
 );
 const SUBSCRIPT_DIGIT_BASE = 0x2080; // ₀
 
+/**
+ * Maps what the app itself prints and what people paste to the characters the scanner reads, one
+ * UTF-16 unit for one, so every position still points into the formula as written: subscript digits
+ * to ASCII (NH₃ → NH3), superscript digits after η, κ or μ to ASCII (η⁵-C5H5), the micro sign to μ,
+ * Unicode hyphens to '-', and primes and curly apostrophes to "'" (2,2′-bpy). Superscript digits
+ * elsewhere stay: they are a charge.
+ */
+export function normalizeFormula(input: string): string {
+  let out = '';
+  let changed = false;
+  for (let index = 0; index < input.length; index++) {
+    const ch = input[index] as string;
+    const code = ch.charCodeAt(0);
+    let mapped = ch;
+    if (code >= SUBSCRIPT_DIGIT_BASE && code <= SUBSCRIPT_DIGIT_BASE + 9) mapped = String.fromCharCode(48 + code - SUBSCRIPT_DIGIT_BASE);
+    else if (ch === 'µ') mapped = 'μ';
+    else if (ch === '‐' || ch === '‑') mapped = '-';
+    else if (ch === '′' || ch === '’' || ch === 'ʼ') mapped = "'";
+    else if (SUPERSCRIPT_DIGITS.has(ch) && /[ηκμ]/.test(input[index - 1] ?? '')) mapped = String(SUPERSCRIPT_DIGITS.get(ch));
+    if (mapped !== ch) changed = true;
+    out += mapped;
+  }
+  return changed ? out : input;
+}
+
 function digitValue(ch: string | undefined): number {
   if (ch === undefined) return -1;
   const code = ch.charCodeAt(0);
@@ -211,12 +240,16 @@ export function formatCharge(charge: number): string {
 }
 
 class FormulaScanner {
+  /** The formula with Unicode subscripts and look-alike characters mapped one to one (see normalizeFormula). */
   readonly input: string;
+  /** The formula as written (errors quote it). */
+  readonly original: string;
   readonly end: number;
   pos: number;
 
-  constructor(input: string) {
+  constructor(input: string, original: string = input) {
     this.input = input;
+    this.original = original;
     let end = input.length;
     while (end > 0 && isSpace(input[end - 1])) end--;
     this.end = end;
@@ -226,7 +259,7 @@ class FormulaScanner {
   }
 
   fail(message: string, position: number): never {
-    throw new FormulaError(message, this.input, Math.max(0, Math.min(position, this.input.length)));
+    throw new FormulaError(message, this.original, Math.max(0, Math.min(position, this.input.length)));
   }
 
   peek(offset = 0): string | undefined {
@@ -455,13 +488,16 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
       addLigand(ligands, ligand, token, count, position + 1);
       continue;
     }
-    if (!bracketed && (isPlus(ch) || isMinus(ch) || ch === '^' || HYDRATE_SEPARATORS.has(ch) || SUPERSCRIPT_DIGITS.has(ch))) break;
+    const chargeOrHydrate = isPlus(ch) || isMinus(ch) || ch === '^' || HYDRATE_SEPARATORS.has(ch) || SUPERSCRIPT_DIGITS.has(ch);
+    if (!bracketed && chargeOrHydrate) break;
+    if (chargeOrHydrate) missingBracket(scanner, openPosition, position);
     const match = scanner.matchLongest(ligandTokensByFirstChar);
     if (match === null) {
       let end = position + 1;
       while (end < scanner.end && (isLower(scanner.input[end]) || digitValue(scanner.input[end]) >= 0)) end++;
       const token = scanner.input.slice(position, end);
       if (digitValue(ch) >= 0 && !bracketed) break;
+      if (digitValue(ch) >= 0 && (isPlus(scanner.input[end]) || isMinus(scanner.input[end]))) missingBracket(scanner, openPosition, position);
       if (digitValue(ch) >= 0) {
         scanner.fail(`Unexpected number '${token}' at character ${position + 1}: a count must follow a ligand`, position);
       }
@@ -478,6 +514,20 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
     );
   }
   return { metal, element, metalPosition, ligands };
+}
+
+/**
+ * A charge or hydrate met inside '[…]': the ']' is missing. Digits just before a sign were read as
+ * a ligand count, but they may be the charge ("Cl2+"): the ']' is then missing before them.
+ */
+function missingBracket(scanner: FormulaScanner, openPosition: number, at: number): never {
+  const input = scanner.input;
+  let start = at;
+  if (isPlus(input[at]) || isMinus(input[at])) while (start > 0 && digitValue(input[start - 1]) >= 0) start--;
+  let end = at;
+  while (end < scanner.end && !isSpace(input[end]) && input[end] !== ']') end++;
+  const what = HYDRATE_SEPARATORS.has(input[at] ?? '') ? `the water of crystallisation '${input.slice(at, end)}'` : `the charge '${input.slice(start, end)}'`;
+  scanner.fail(`Missing ']' at character ${start + 1}: the '[' opened at character ${openPosition + 1} must be closed before ${what}`, start);
 }
 
 /** Reads a run of counter-ions (cations before '[' or anions after ']'). */
@@ -622,10 +672,10 @@ function unbracketedSalt(input: string, from: number): { start: number; end: num
 }
 
 /** Parses "KMnO4" as "K[MnO4]", reporting positions in the formula as the user wrote it. */
-function parseUnbracketedSalt(input: string, salt: { start: number; end: number }): ParsedComplex {
-  const bracketed = `${input.slice(0, salt.start)}[${input.slice(salt.start, salt.end)}]${input.slice(salt.end)}`;
+function parseUnbracketedSalt(input: string, text: string, salt: { start: number; end: number }): ParsedCore {
+  const bracketed = `${text.slice(0, salt.start)}[${text.slice(salt.start, salt.end)}]${text.slice(salt.end)}`;
   try {
-    return { ...parseFormula(bracketed), input };
+    return { ...parseCore(bracketed), input };
   } catch (error) {
     if (!(error instanceof FormulaError)) throw error;
     const toWritten = (position: number) =>
@@ -653,6 +703,8 @@ export function parseFormula(input: string): ParsedComplex {
     composition: compositionFromScratch(),
     oxidationState: core.oxidationState,
     writtenCharge: core.writtenCharge,
+    readings: core.readings,
+    warnings: core.warnings,
   };
 }
 
@@ -677,11 +729,274 @@ export function parseFormulaWithMolarMass(input: string): ParsedCore & {
     hydrateWaters: core.hydrateWaters,
     oxidationState: core.oxidationState,
     writtenCharge: core.writtenCharge,
+    readings: core.readings,
+    warnings: core.warnings,
     molarMassGPerMol: molarMassFromScratch(),
     // The charge balance already looked these up: the classifier need not do it again.
     element: lastElement as metalIons.MetalElement,
     configuration: lastConfiguration as metalIons.ElectronConfiguration,
   };
+}
+
+const NO_READINGS: FormulaReading[] = Object.freeze([]) as unknown as FormulaReading[];
+const NO_WARNINGS: string[] = Object.freeze([]) as unknown as string[];
+
+/** A ligand that takes back-bonding (CO, phosphines, alkenes, Cp…): such complexes are often truly zero-valent. */
+function hasBackBondingLigand(ligands: readonly LigandInstance[]): boolean {
+  for (const instance of ligands) {
+    if (instance.ligand.bondingClass === 'pi-acceptor' || instance.ligand.organometallic === true) return true;
+  }
+  return false;
+}
+
+// ---------------------------------------------------------------- trivial names
+
+interface TrivialNameRecord {
+  name: string;
+  aliases: string[];
+  formula: string;
+  source: string;
+  checked: Checked;
+}
+
+/** Lower case, one kind of apostrophe, single spaces: "Zeise’s  Salt" → "zeise's salt". */
+function nameKey(text: string): string {
+  return text.trim().toLowerCase().replace(/[’‘`´′]/g, "'").replace(/\s+/g, ' ');
+}
+
+const trivialNames: readonly TrivialNameRecord[] = trivialNameData.names as unknown as TrivialNameRecord[];
+const trivialNameByKey: ReadonlyMap<string, TrivialNameRecord> = (() => {
+  const byKey = new Map<string, TrivialNameRecord>();
+  for (const record of trivialNames) for (const name of [record.name, ...record.aliases]) byKey.set(nameKey(name), record);
+  return byKey;
+})();
+
+/** The trivial names the parser knows, with the formula each stands for. */
+export function trivialNameTable(): readonly { name: string; aliases: readonly string[]; formula: string; source: string; checked: Checked }[] {
+  return trivialNames;
+}
+
+// A name has a space, an apostrophe or only lower-case letters; a formula starts with a capital (or '(' / a descriptor).
+function readTrivialName(text: string, input: string): ParsedCore | null {
+  const key = nameKey(text);
+  if (key.length < 4) return null;
+  const record = trivialNameByKey.get(key);
+  if (record === undefined) return null;
+  const core = parseCore(record.formula);
+  const reading: FormulaReading = {
+    kind: 'name',
+    written: input.trim(),
+    species: record.formula,
+    text: `Read '${input.trim()}' as ${record.formula}`,
+    source: record.source,
+    checked: record.checked,
+  };
+  return { ...core, input, readings: [reading, ...core.readings] };
+}
+
+// ---------------------------------------------------------------- plain salts, hydrates, alums
+
+interface AquaIonRecord {
+  metal: string;
+  oxidationState: number;
+  waters: number;
+  source: string;
+  checked: Checked;
+}
+
+interface SaltSolidRecord {
+  formula: string;
+  metal: string;
+  oxidationState: number;
+  anions: Record<string, number>;
+  waters: number;
+  reading: 'solid' | 'dissolved' | 'mixture';
+  species: string | null;
+  text: string;
+  source: string;
+  checked: Checked;
+}
+
+const aquaIons: readonly AquaIonRecord[] = saltReadingData.aquaIons as unknown as AquaIonRecord[];
+const saltSolids: readonly SaltSolidRecord[] = saltReadingData.solids as unknown as SaltSolidRecord[];
+
+function aquaIonOf(metal: string, oxidationState: number): AquaIonRecord | undefined {
+  for (const record of aquaIons) if (record.metal === metal && record.oxidationState === oxidationState) return record;
+  return undefined;
+}
+
+/** The aqua ions the salt reader knows (metal, oxidation state, waters). */
+export function aquaIonTable(): readonly AquaIonRecord[] {
+  return aquaIons;
+}
+
+// Anions that stay outside the first sphere of an aqua ion in dilute solution (common practice);
+// cyanide, thiocyanate, nitrite, hydroxide, oxalate, carbonate… bind, and those salts are read as written.
+const AQUA_SALT_ANIONS: ReadonlySet<string> = new Set(['F', 'Cl', 'Br', 'I', 'NO3', 'ClO4', 'SO4', 'HSO4', 'BF4', 'PF6', 'OTf', 'CF3SO3', 'OTs', 'OAc', 'CH3COO']);
+const HALIDES: ReadonlySet<string> = new Set(['F', 'Cl', 'Br', 'I']);
+
+interface SaltUnit {
+  kind: 'cation' | 'metal';
+  symbol: string;
+  charge: number;
+  count: number;
+  composition: Record<string, number>;
+}
+
+/** Metal symbol at `pos` (two letters first), or null. */
+function metalSymbolAt(text: string, pos: number): string | null {
+  const two = text.slice(pos, pos + 2);
+  if (two.length === 2 && isLower(two[1]) && isMetalSymbol(two)) return two;
+  const one = text.slice(pos, pos + 1);
+  return isUpper(one) && isMetalSymbol(one) ? one : null;
+}
+
+/** Count digits at `pos`: [value, next position]; 1 when none. */
+function countAt(text: string, pos: number): [number, number] {
+  let value = 0;
+  let next = pos;
+  while (digitValue(text[next]) >= 0 && next - pos < 3) value = value * 10 + digitValue(text[next++]);
+  return next === pos ? [1, pos] : [value, next];
+}
+
+/**
+ * Plain salts, hydrates, alums and double salts written without brackets — CoCl2·6H2O,
+ * KCr(SO4)2·12H2O, (NH4)2Fe(SO4)2·6H2O — read as the species they give in water (the aqua ion),
+ * or as the complex their solid holds when that is what a fresh solution contains (CrCl3·6H2O).
+ * Returns null when the formula is not such a salt (KMnO4, K2[PtCl4] written as K2PtCl4, TiCl4…):
+ * the other readers take it. The molar mass stays that of the salt as written.
+ */
+function readPlainSalt(scanner: FormulaScanner): ParsedCore | null {
+  const text = scanner.input;
+  const start = scanner.pos;
+  let pos = start;
+  const units: SaltUnit[] = [];
+  for (;;) {
+    if (text[pos] === '(') {
+      const close = text.indexOf(')', pos);
+      const cation = close > pos ? cationByFormula.get(text.slice(pos + 1, close)) : undefined;
+      if (cation === undefined) break;
+      const [count, next] = countAt(text, close + 1);
+      units.push({ kind: 'cation', symbol: cation.formula, charge: cation.charge, count, composition: cation.composition });
+      pos = next;
+      continue;
+    }
+    const cationMatch = scanner.input[pos] === 'H' ? null : matchAt(text, pos, cationTokens);
+    const metal = metalSymbolAt(text, pos);
+    if (cationMatch === null && metal === null) break;
+    const token = cationMatch !== null && (metal === null || cationMatch.token.length >= metal.length) ? cationMatch.token : (metal as string);
+    const [count, next] = countAt(text, pos + token.length);
+    const definition = cationByFormula.get(token);
+    units.push(
+      definition !== undefined
+        ? { kind: 'cation', symbol: token, charge: definition.charge, count, composition: definition.composition }
+        : { kind: 'metal', symbol: token, charge: 0, count, composition: { [token]: 1 } },
+    );
+    pos = next;
+  }
+  const centre = units[units.length - 1];
+  if (centre === undefined) return null;
+  const element = metalElement(centre.symbol);
+  if (element === undefined) return null;
+  const cations = units.slice(0, -1);
+  for (const unit of cations) if (unit.kind !== 'cation') return null;
+
+  const anions: IonPart[] = [];
+  while (pos < scanner.end && !HYDRATE_SEPARATORS.has(text[pos] ?? '') && !isSpace(text[pos])) {
+    let definition: CounterIonDefinition | undefined;
+    let after: number;
+    if (text[pos] === '(') {
+      const close = text.indexOf(')', pos);
+      definition = close > pos ? anionByFormula.get(text.slice(pos + 1, close)) : undefined;
+      after = close + 1;
+    } else {
+      const match = matchAt(text, pos, anionTokens);
+      definition = match?.value;
+      after = pos + (match?.token.length ?? 0);
+    }
+    if (definition === undefined || !AQUA_SALT_ANIONS.has(definition.formula)) return null;
+    const [count, next] = countAt(text, after);
+    anions.push({ formula: definition.formula, charge: definition.charge, count, composition: definition.composition });
+    pos = next;
+  }
+  if (anions.length === 0) return null;
+  // With counter-cations, halides make a halometallate (K2PtCl4 is K2[PtCl4]): not a double salt.
+  if (cations.length > 0 && anions.every((anion) => HALIDES.has(anion.formula))) return null;
+  const rest = new FormulaScanner(text, scanner.original);
+  rest.pos = pos;
+  const waters = readHydrate(rest);
+  rest.skipSpaces();
+  if (!rest.atEnd()) return null;
+
+  let positive = 0;
+  for (const unit of cations) positive += unit.charge * unit.count;
+  let negative = 0;
+  for (const anion of anions) negative += -anion.charge * anion.count;
+  const metalCharge = negative - positive;
+  if (metalCharge <= 0 || metalCharge % centre.count !== 0) return null;
+  const oxidationState = metalCharge / centre.count;
+
+  const anionCounts: Record<string, number> = {};
+  for (const anion of anions) anionCounts[anion.formula] = (anionCounts[anion.formula] ?? 0) + anion.count;
+  const solid = cations.length === 0 ? findSaltSolid(element.symbol, oxidationState, anionCounts, waters) : undefined;
+  const written = scanner.original.trim();
+  let species: string;
+  let reading: FormulaReading;
+  if (solid !== undefined) {
+    if (solid.reading === 'mixture' || solid.species === null) scanner.fail(solid.text, start);
+    species = solid.species;
+    reading = { kind: solid.reading, written, species, text: solid.text, source: solid.source, checked: solid.checked };
+  } else {
+    const aqua = aquaIonOf(element.symbol, oxidationState);
+    if (aqua === undefined) return null;
+    species = `[${element.symbol}(H2O)${aqua.waters}]${formatCharge(oxidationState)}`;
+    reading = {
+      kind: 'dissolved',
+      written,
+      species,
+      text: `Read as the species in water: ${written} dissolves to ${species}`,
+      source: aqua.source,
+      checked: aqua.checked,
+    };
+  }
+  const core = parseCore(species);
+  if (reading.kind === 'solid') return { ...core, input: scanner.original, readings: [reading] };
+
+  // The classified species is the aqua ion; the counter-ions, waters and molar mass stay the salt's.
+  const counterIons: IonPart[] = [];
+  for (const unit of cations) counterIons.push({ formula: unit.symbol, charge: unit.charge, count: unit.count, composition: unit.composition });
+  for (const anion of anions) counterIons.push(anion);
+  scratchSymbols[0] = element.symbol;
+  scratchCounts[0] = centre.count;
+  scratchWeights[0] = metalAtomicWeight(element.symbol);
+  scratchLength = 1;
+  for (const ion of counterIons) addToScratch(ion.composition, ion.count);
+  if (waters > 0) addToScratch(WATER_COMPOSITION, waters);
+  return {
+    ...core,
+    input: scanner.original,
+    complexCount: centre.count,
+    counterIons,
+    hydrateWaters: waters,
+    readings: [reading],
+  };
+}
+
+function findSaltSolid(metal: string, oxidationState: number, anions: Record<string, number>, waters: number): SaltSolidRecord | undefined {
+  for (const record of saltSolids) {
+    if (record.metal !== metal || record.oxidationState !== oxidationState || record.waters !== waters) continue;
+    const keys = Object.keys(record.anions);
+    if (keys.length === Object.keys(anions).length && keys.every((key) => anions[key] === record.anions[key])) return record;
+  }
+  return undefined;
+}
+
+/** Longest catalogue token at `pos` in `text`, or null. */
+function matchAt<T>(text: string, pos: number, tokens: ReadonlyMap<number, readonly CatalogueToken<T>[]>): CatalogueToken<T> | null {
+  const candidates = tokens.get(text.charCodeAt(pos));
+  if (candidates === undefined) return null;
+  for (const candidate of candidates) if (text.startsWith(candidate.token, pos)) return candidate;
+  return null;
 }
 
 // The metal and its electron configuration from the last successful parseCore (like the scratch
@@ -694,19 +1009,26 @@ function parseCore(input: string): ParsedCore {
   if (input.length > MAX_FORMULA_LENGTH) {
     throw new FormulaError(`Formula is too long (more than ${MAX_FORMULA_LENGTH} characters)`, input, MAX_FORMULA_LENGTH);
   }
-  const scanner: FormulaScanner = new FormulaScanner(input);
+  const text = normalizeFormula(input);
+  const scanner: FormulaScanner = new FormulaScanner(text, input);
   if (scanner.atEnd()) scanner.fail('The formula is empty', 0);
+  if (text.indexOf('[') < 0) {
+    const named = readTrivialName(text, input);
+    if (named !== null) return named;
+  }
   // Isomer descriptors (cis-, trans-, fac-, mer-, Δ-, Λ-) name a stereoisomer; the engine's answer
   // does not depend on them, so they are read and skipped.
   // Only a formula starting with a descriptor's first letter is worth the regular expression.
-  const descriptor = ISOMER_DESCRIPTOR_FIRST_CODES.has(input.charCodeAt(scanner.pos)) ? ISOMER_DESCRIPTOR.exec(input.slice(scanner.pos)) : null;
+  const descriptor = ISOMER_DESCRIPTOR_FIRST_CODES.has(text.charCodeAt(scanner.pos)) ? ISOMER_DESCRIPTOR.exec(text.slice(scanner.pos)) : null;
   if (descriptor) scanner.pos += descriptor[0].length;
-  if (input.indexOf('[') < 0) {
-    const salt = unbracketedSalt(input, scanner.pos);
-    if (salt) return parseUnbracketedSalt(input, salt);
+  if (text.indexOf('[') < 0) {
+    const plain = readPlainSalt(scanner);
+    if (plain !== null) return plain;
+    const salt = unbracketedSalt(text, scanner.pos);
+    if (salt) return parseUnbracketedSalt(input, text, salt);
   }
 
-  const bracketIndex = input.indexOf('[');
+  const bracketIndex = text.indexOf('[');
   let cations: IonPart[] = [];
   let inner: InnerSphere;
   let complexCount = 1;
@@ -717,7 +1039,7 @@ function parseCore(input: string): ParsedCore {
   if (bracketIndex < 0) {
     // No brackets: accept a bare entity such as "Cr(H2O)6 3+"; reject a bare ion such as "Fe3+".
     const start = scanner.pos;
-    if (input.indexOf(']') >= 0) scanner.fail(`Unmatched ']' at character ${input.indexOf(']') + 1}`, input.indexOf(']'));
+    if (text.indexOf(']') >= 0) scanner.fail(`Unmatched ']' at character ${text.indexOf(']') + 1}`, text.indexOf(']'));
     const first = scanner.peek();
     const two = isLower(scanner.peek(1)) ? `${first}${scanner.peek(1)}` : '';
     const symbol = two !== '' && isMetalSymbol(two) ? two : first !== undefined && isMetalSymbol(first) ? first : null;
@@ -728,12 +1050,12 @@ function parseCore(input: string): ParsedCore {
       );
     }
     const after = start + symbol.length;
-    const next = input[after];
+    const next = text[after];
     const bareIon = next === undefined || isSpace(next) || isPlus(next) || isMinus(next) || digitValue(next) >= 0 || next === '^' || SUPERSCRIPT_DIGITS.has(next);
     if (bareIon && next !== undefined && digitValue(next) >= 0) {
       // "Fe3+" (charge) versus "Fe2Cl6"-type; both are outside what we classify.
       scanner.fail(
-        `A bare metal ion '${input.slice(start).trim()}' has no ligands: write the complex in brackets, e.g. [${symbol}(H2O)6]${input.slice(after).trim()}`,
+        `A bare metal ion '${text.slice(start).trim()}' has no ligands: write the complex in brackets, e.g. [${symbol}(H2O)6]${text.slice(after).trim()}`,
         start,
       );
     }
@@ -824,6 +1146,15 @@ function parseCore(input: string): ParsedCore {
   lastElement = element;
   lastConfiguration = configuration;
 
+  const warnings: string[] = [];
+  if (written === null && counterIons.length === 0 && complexCharge === 0 && oxidationState === 0 && !hasBackBondingLigand(inner.ligands)) {
+    // [Fe(H2O)6] with no charge: a zero-valent metal with only σ/π-donor ligands is almost always a typing slip.
+    const entity = bracketIndex < 0 ? text.slice(inner.metalPosition, scanner.end).trim() : text.slice(bracketIndex, text.indexOf(']', bracketIndex) + 1);
+    warnings.push(
+      `No charge or counter-ions written: ${entity} was taken as neutral, which makes ${inner.metal}(0); if you meant an ion, add its charge, e.g. ${entity}2+ or ${entity}3+`,
+    );
+  }
+
   // Complex ion(s) first (metal, then ligands), then counter-ions, then water: the key order of the record.
   scratchSymbols[0] = inner.metal;
   scratchCounts[0] = complexCount;
@@ -843,5 +1174,7 @@ function parseCore(input: string): ParsedCore {
     hydrateWaters,
     oxidationState,
     writtenCharge: written?.charge ?? null,
+    readings: NO_READINGS,
+    warnings: warnings.length === 0 ? NO_WARNINGS : warnings,
   };
 }

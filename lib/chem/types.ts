@@ -70,6 +70,30 @@ export interface LigandDefinition {
   hapticity?: number;
   /** Metal–carbon bonded ligand (CO, Cp, Me): the 18-electron rule applies. */
   organometallic?: boolean;
+  /** Ring ligand: 'macrocycle' (cyclam, porphyrins, crown ethers) or 'cryptand' (kinetic effects). */
+  macrocycle?: 'macrocycle' | 'cryptand';
+  /** How well the published numbers were checked (see data/ligands.json). */
+  checked?: Checked;
+  /** Curators' note: never shown to users or exported. */
+  note?: string;
+}
+
+/** How well a published value was checked: the paper, a review table, a secondary source, or recalled and not yet checked. */
+export type Checked = 'primary' | 'review' | 'secondary' | 'recalled';
+
+/**
+ * How a formula was read when it was not a bracketed complex as written: a trivial name, a plain
+ * salt or hydrate read as the species it gives in water ('dissolved') or as the complex its solid
+ * holds ('solid'). `species` is the formula that was classified (it parses back to the same species).
+ */
+export interface FormulaReading {
+  kind: 'name' | 'dissolved' | 'solid';
+  written: string;
+  species: string;
+  /** One line for the reasons, naming what was read. */
+  text: string;
+  source: string | null;
+  checked: Checked | null;
 }
 
 /** A ligand as it occurs in a parsed complex. */
@@ -104,6 +128,10 @@ export interface ParsedFormula {
   hydrateWaters: number;
   /** Composition of the whole formula unit, counter-ions and hydrate included. */
   composition: Record<string, number>;
+  /** How the formula was read when not as written (trivial name, salt or hydrate); empty otherwise. */
+  readings?: FormulaReading[];
+  /** Assumptions the parser had to make (e.g. a missing charge), worded for users. */
+  warnings?: string[];
 }
 
 export interface ClassifyOptions {
@@ -163,6 +191,10 @@ export interface Classification {
   unpairedElectrons?: number | null;
   /** Metal d electrons + 2 per coordination site (ionic counting), for the 18-electron rule. */
   valenceElectronCount?: number;
+  /** How the formula was read (trivial name, salt or hydrate as dissolved or solid species); absent when read as written. */
+  readings?: { kind: FormulaReading['kind']; species: string; text: string }[];
+  /** Assumptions made while reading the formula (e.g. a missing charge taken as neutral). */
+  warnings?: string[];
 }
 
 /** A formula problem for people: the message, with the character (from 1) unless it already names it. */
