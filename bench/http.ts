@@ -80,9 +80,18 @@ export const defaultHttpOptions: HttpOptions = { connections: [50, 200], rounds:
 
 type EndpointName = 'ping' | 'live' | 'health' | 'classify' | 'classifyBatch1000';
 
+/** What autocannon sends: one path, or several in turn (`paths`), with bodies in turn for a POST. */
+export interface RequestSpec {
+  method: 'GET' | 'POST';
+  path: string;
+  paths?: string[];
+  bodies?: string[];
+  headers?: Record<string, string>;
+}
+
 interface Endpoint {
   name: EndpointName;
-  spec: { method: 'GET' | 'POST'; path: string; bodies?: string[] };
+  spec: RequestSpec;
 }
 
 function endpoints(): Endpoint[] {
@@ -102,9 +111,10 @@ function endpoints(): Endpoint[] {
   ];
 }
 
-async function measure(baseUrl: string, endpoint: Endpoint, connections: number, seconds: number): Promise<EndpointFigures> {
-  const { method, path: urlPath, bodies } = endpoint.spec;
+export async function measure(baseUrl: string, endpoint: { spec: RequestSpec }, connections: number, seconds: number): Promise<EndpointFigures> {
+  const { method, path: urlPath, paths, bodies, headers = {} } = endpoint.spec;
   let next = 0;
+  let nextPath = 0;
   const cpuBefore = await serverCpuMicros(baseUrl);
   const result = await autocannon({
     url: `${baseUrl}${urlPath}`,
@@ -115,8 +125,13 @@ async function measure(baseUrl: string, endpoint: Endpoint, connections: number,
       {
         method,
         path: urlPath,
-        headers: bodies ? { 'content-type': 'application/json' } : {},
+        headers: bodies ? { ...headers, 'content-type': 'application/json' } : headers,
         setupRequest: (request) => {
+          if (paths) {
+            const pathNow = paths[nextPath % paths.length] ?? urlPath;
+            nextPath++;
+            request = { ...request, path: pathNow };
+          }
           if (!bodies) return request;
           const body = bodies[next % bodies.length] ?? '';
           next++;

@@ -6,7 +6,7 @@
  * Every figure is a median over repeated runs; every comparison is a ratio measured in the same
  * run (these machines are noisy). Runs in a few minutes on 2 cores.
  *
- * Flags: --only=engine,http,search,import,web   --quick (fewer, shorter runs)
+ * Flags: --only=engine,http,signedin,search,import,web   --quick (fewer, shorter runs)
  *        --no-build (measure dist/ as it is)    --baseline=<dir> (also run the engine bench on
  *        another copy of lib/chem, e.g. the last commit's, and report the speed-up)
  */
@@ -19,6 +19,14 @@ import { defaultEngineOptions, runEngineBench } from './engine';
 import { defaultHttpOptions, runHttpBench, startBenchServer, type BenchServer, type HttpResult } from './http';
 import { IMPORT_TARGET_SECONDS, runImportBenchOn } from './import';
 import { runSearchBenchOn, SEARCH_TARGET_P95_MS, SEARCH_TARGET_RATIO } from './search';
+import {
+  defaultSignedInOptions,
+  ME_TARGET_RATIO,
+  runSignedInBench,
+  SEARCH_TARGET_P99_MS,
+  SEARCH_TARGET_RATIO_TO_LIVE,
+  SIGNED_IN_LIBRARY_SIZE,
+} from './signed-in';
 import { formatBytes, formatRate, round } from './stats';
 import { measureBundle, measureFirstResult, type BundleResult, type FirstResultTiming } from './web';
 
@@ -38,7 +46,7 @@ interface Row {
 
 function parseArgs(argv: string[]) {
   const value = (name: string) => argv.find((arg) => arg.startsWith(`--${name}=`))?.split('=')[1];
-  const only = value('only')?.split(',') ?? ['engine', 'http', 'search', 'import', 'web'];
+  const only = value('only')?.split(',') ?? ['engine', 'http', 'signedin', 'search', 'import', 'web'];
   return {
     only: new Set(only),
     quick: argv.includes('--quick'),
@@ -131,7 +139,7 @@ async function main() {
   }
 
   // 2 & 5 need the bench server; 3 & 4 start databases of their own.
-  const needServer = args.only.has('http') || args.only.has('web');
+  const needServer = args.only.has('http') || args.only.has('signedin') || args.only.has('web');
   const webDir = path.join(root, 'dist');
   let bundle: BundleResult | null = null;
   if (args.only.has('web')) {
@@ -210,6 +218,43 @@ async function main() {
         });
         const failures = Object.entries(figures.endpoints).filter(([, f]) => f.non2xx > 0 || f.errors > 0);
         for (const [name, f] of failures) notes.push(`http ${connections} conn: ${name} had ${f.non2xx} non-2xx responses and ${f.errors} errors`);
+      }
+    }
+
+    if (args.only.has('signedin') && server && cluster) {
+      const options = args.quick ? { ...defaultSignedInOptions, rounds: 2, secondsPerRun: 2 } : defaultSignedInOptions;
+      const signedIn = await runSignedInBench(server.baseUrl, cluster.url, options, log);
+      report.signedIn = signedIn;
+      const { live, me, searchViewer, searchCurator } = signedIn.at50;
+      rows.push({
+        figure: 'signed-in 50 conn: GET /api/auth/me vs live',
+        target: `≥ ${ME_TARGET_RATIO}×`,
+        measured: `${signedIn.meVsLive.toFixed(2)}× (${Math.round(me.requestsPerSecond)} vs ${Math.round(live.requestsPerSecond)} req/s)`,
+        verdict: shortBy(signedIn.meVsLive, ME_TARGET_RATIO),
+      });
+      for (const [who, figure, ratio] of [
+        ['viewer', searchViewer, signedIn.searchViewerVsLive],
+        ['curator', searchCurator, signedIn.searchCuratorVsLive],
+      ] as const) {
+        rows.push({
+          figure: `signed-in 50 conn: search as ${who} (${SIGNED_IN_LIBRARY_SIZE} entries) vs live`,
+          target: `≥ ${SEARCH_TARGET_RATIO_TO_LIVE}×`,
+          measured: `${ratio.toFixed(2)}× (${Math.round(figure.requestsPerSecond)} req/s, p99 ${figure.latencyP99Ms} ms)`,
+          verdict: shortBy(ratio, SEARCH_TARGET_RATIO_TO_LIVE),
+        });
+      }
+      for (const who of ['viewer', 'curator'] as const) {
+        const load = signedIn.underLoad[who];
+        rows.push({
+          figure: `signed-in ${load.connections} conn: search as ${who}, p50 / p99`,
+          target: `p99 ≤ ${SEARCH_TARGET_P99_MS} ms`,
+          measured: `${load.latencyP50Ms} / ${load.latencyP99Ms} ms (${Math.round(load.requestsPerSecond)} req/s)`,
+          verdict: shortBy(load.latencyP99Ms, SEARCH_TARGET_P99_MS, false),
+        });
+        if (load.non2xx > 0 || load.errors > 0) notes.push(`signed-in: search as ${who} at ${load.connections} conn had ${load.non2xx} non-2xx and ${load.errors} errors`);
+      }
+      for (const [name, f] of Object.entries(signedIn.at50)) {
+        if (f.non2xx > 0 || f.errors > 0) notes.push(`signed-in 50 conn: ${name} had ${f.non2xx} non-2xx responses and ${f.errors} errors`);
       }
     }
 
