@@ -12,6 +12,7 @@
 import express from 'express';
 import path from 'node:path';
 import { createApp } from '@/server/app';
+import { startChangeFeed } from '@/server/db/change-feed';
 import { migrate, openOrm } from '@/server/db/orm';
 
 // Same "result" test id as the Check screen, so the browser waits for the same selector on both.
@@ -38,7 +39,8 @@ async function main() {
   outer.get('/bench/blank', (_req, res) => {
     res.type('html').send(BLANK_HTML);
   });
-  outer.use(createApp({ orm, webDir, logRequests: false }));
+  const changeFeed = await startChangeFeed(orm, databaseUrl);
+  outer.use(createApp({ orm, webDir, logRequests: false, changeFeed }));
 
   const server = outer.listen(0, '127.0.0.1', () => {
     const address = server.address();
@@ -50,6 +52,7 @@ async function main() {
   const stop = async () => {
     server.closeAllConnections();
     server.close();
+    await changeFeed.stop();
     await orm.close(true);
     process.exit(0);
   };

@@ -1,5 +1,6 @@
 import express, { type Express } from 'express';
 import helmet from 'helmet';
+import type { ChangeFeed } from './db/change-feed';
 import type { Orm } from './db/orm';
 import { readEnv, type Env } from './env';
 import { attachAccounts, originCheck } from './http/auth-middleware';
@@ -36,6 +37,11 @@ export interface AppOptions {
   auth?: Partial<AuthSettings>;
   /** Overrides for values otherwise read from the environment (APP_URL, NODE_ENV). */
   env?: Partial<Pick<Env, 'appUrl' | 'NODE_ENV'>>;
+  /**
+   * Change notifications for the in-memory caches (session lookups, library searches); without one
+   * nothing is cached. The caller starts and stops it (server/index.ts).
+   */
+  changeFeed?: ChangeFeed;
   /** DOI look-up; by default METADATA_URL, else (not in production) a local fake started on first use. */
   metadata?: MetadataClient;
   /** Attachment store; by default S3_* settings, else (not in production) a local fake S3 started on first use. */
@@ -49,7 +55,7 @@ export function createApp({ orm, webDir, logRequests = false, ...options }: AppO
   const env = { ...readEnv(), ...options.env };
   const accounts: AccountsContext = {
     orm,
-    lucia: createLucia(orm),
+    lucia: createLucia(orm, options.changeFeed),
     mailer:
       options.mailer ?? createMailer({ orm, smtpUrl: env.SMTP_URL, nodeEnv: env.NODE_ENV, from: env.MAIL_FROM }),
     appUrl: env.appUrl,
@@ -102,7 +108,7 @@ export function createApp({ orm, webDir, logRequests = false, ...options }: AppO
   api.use(metadataRoutes(metadata));
   api.use(exchangeRoutes(orm));
   api.use(attachmentRoutes(orm, storage));
-  api.use(libraryRoutes(orm));
+  api.use(libraryRoutes(orm, options.changeFeed));
   if (env.NODE_ENV !== 'production') api.use(devOutboxRoutes(orm));
   api.use(apiNotFound);
   app.use('/api', api);

@@ -2,6 +2,7 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import { ensureWebBuild } from './build-web';
 import { resolveDatabase } from './db/database';
+import { startChangeFeed } from './db/change-feed';
 import { migrate, openOrm } from './db/orm';
 import { seedDemo } from './db/seed';
 import { readEnv } from './env';
@@ -32,7 +33,8 @@ async function main() {
   const mailDestination = await mailer.start();
   if (env.NODE_ENV === 'production' && !env.SMTP_URL) log('SMTP_URL is not set: e-mail (sign-up, reset, invitations) cannot be sent.');
 
-  const app = createApp({ orm, webDir: env.webDirAbsolute, logRequests: env.LOG_REQUESTS === '1', mailer });
+  const changeFeed = await startChangeFeed(orm, url);
+  const app = createApp({ orm, webDir: env.webDirAbsolute, logRequests: env.LOG_REQUESTS === '1', mailer, changeFeed });
   const server: Server = await new Promise((resolve, reject) => {
     const listening = app.listen(env.PORT, env.HOST, () => resolve(listening));
     listening.once('error', reject);
@@ -59,6 +61,7 @@ ${demoAccounts.map((a) => `    ${a.email.padEnd(36)} ${a.role.padEnd(12)} ${a.di
     await new Promise<void>((resolve) => server.close(() => resolve()));
     server.closeAllConnections();
     await mailer.close();
+    await changeFeed.stop();
     await orm.close(true);
     if (cluster) await cluster.stop();
     log('Stopped cleanly.');

@@ -1,5 +1,6 @@
 import { Lucia, TimeSpan, type Adapter, type DatabaseSession, type DatabaseUser } from 'lucia';
 import type { Role } from '@/lib/schemas/groups';
+import { FeedCache, type ChangeFeed } from '@/server/db/change-feed';
 import type { Orm } from '@/server/db/orm';
 import { hashSecret } from './tokens';
 import { UserSession } from './user-session.entity';
@@ -57,11 +58,27 @@ const SESSION_LOOKUP_SQL = `
  * public user fields are returned to lucia, never the password hash.
  */
 export class MikroOrmSessionAdapter implements Adapter {
-  constructor(private readonly orm: Orm) {}
+  /** Session lookups by hashed id, dropped whenever a session, person, group or membership changes. */
+  private readonly lookups: FeedCache<SessionLookupRow> | null;
+
+  constructor(
+    private readonly orm: Orm,
+    feed?: ChangeFeed,
+  ) {
+    this.lookups = feed ? new FeedCache(feed, ['session'], { maxEntries: 10_000, ttlMs: 10_000 }) : null;
+  }
+
+  private async lookUp(handle: string): Promise<SessionLookupRow | undefined> {
+    const query = async () => {
+      const rows: SessionLookupRow[] = await this.orm.em.getConnection().execute(SESSION_LOOKUP_SQL, [handle]);
+      return rows[0];
+    };
+    // Unknown ids are not cached (through() stores only what was found): a new session is found at once.
+    return this.lookups ? this.lookups.through(handle, query) : query();
+  }
 
   async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
-    const rows: SessionLookupRow[] = await this.orm.em.getConnection().execute(SESSION_LOOKUP_SQL, [hashSecret(sessionId)]);
-    const row = rows[0];
+    const row = await this.lookUp(hashSecret(sessionId));
     if (!row) return [null, null];
     const session: DatabaseSession = {
       id: sessionId,
@@ -117,8 +134,8 @@ export class MikroOrmSessionAdapter implements Adapter {
 /** Idle sessions end after 14 days; lucia slides the expiry forward once half of it has passed. */
 export const SESSION_LIFETIME = new TimeSpan(14, 'd');
 
-export function createLucia(orm: Orm) {
-  return new Lucia(new MikroOrmSessionAdapter(orm), {
+export function createLucia(orm: Orm, feed?: ChangeFeed) {
+  return new Lucia(new MikroOrmSessionAdapter(orm, feed), {
     sessionExpiresIn: SESSION_LIFETIME,
     sessionCookie: {
       name: SESSION_COOKIE_NAME,

@@ -11,8 +11,10 @@ import {
   transitionInputSchema,
   updateComplexInputSchema,
   updateMeasurementInputSchema,
+  type ComplexListResponse,
 } from '@/lib/schemas/library';
 import { z } from 'zod';
+import { FeedCache, type ChangeFeed } from '@/server/db/change-feed';
 import type { Orm } from '@/server/db/orm';
 import { getAuth, getMembership, isUuid, requireAuth, requireGroupRole } from '@/server/http/auth-middleware';
 import { AppError } from '@/server/http/errors';
@@ -40,15 +42,25 @@ const groupQuerySchema = z.object({ groupId: z.uuid('groupId must be a group id.
  * (or `groupId`, defaulting to the person's only group) and membership + role are checked by the
  * services (library-access.ts) or by requireGroupRole for /groups/:groupId/… routes.
  */
-export function libraryRoutes(orm: Orm): Router {
+/** Searches per person, filters and page; emptied whenever anything in a library changes. */
+function searchCache(feed: ChangeFeed | undefined) {
+  return feed ? new FeedCache<ComplexListResponse>(feed, ['library'], { maxEntries: 2000, ttlMs: 30_000 }) : null;
+}
+
+export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
   const router = Router();
+  const searches = searchCache(changeFeed);
   const em = () => orm.em.fork();
   const actor = (res: Parameters<typeof getAuth>[0]) => ({ userId: getAuth(res).user.id });
 
   router.get('/complexes', requireAuth, async (req, res) => {
     const query = parseWith(complexSearchQuerySchema, req.query, 'query');
     const { user } = getAuth(res);
-    res.json(await searchComplexes(em(), user.id, query, { memberships: user.memberships }));
+    const run = () => searchComplexes(em(), user.id, query, { memberships: user.memberships });
+    // What a person may see depends on who they are and their roles: both are in the key.
+    const key = JSON.stringify([user.id, user.memberships, query]);
+    const cached = searches ? await searches.through(key, run) : undefined;
+    res.json(cached ?? (await run()));
   });
 
   router.post('/complexes', requireAuth, async (req, res) => {
