@@ -9,7 +9,7 @@ export interface FormulaTextProps {
   testID?: string;
 }
 
-/** A coordination formula with real subscripts and superscripts (Unicode, so any Plex face shows them). */
+/** A coordination formula with real subscripts and superscripts (Unicode characters, which the app's typefaces carry). */
 export function FormulaText({ formula, variant = 'mono', tone, testID }: FormulaTextProps) {
   return (
     <AppText variant={variant} tone={tone} accessibilityLabel={formula} testID={testID}>

@@ -34,17 +34,22 @@ export const spacing = { xs: 4, sm: 8, md: 12, lg: 16, xl: 24, xxl: 32 } as cons
 
 export const radius = { sm: 6, md: 10, lg: 16, pill: 999 } as const;
 
+/**
+ * Atkinson Hyperlegible Next for text and Atkinson Hyperlegible Mono for values (SIL Open Font
+ * License): letterforms drawn to be told apart (l, 1, I; 0, O), which formulas and rate constants
+ * need, and no company's brand.
+ */
 export const fonts = {
-  body: 'PlexSans',
-  strong: 'PlexSans-SemiBold',
-  mono: 'PlexMono',
+  body: 'AtkinsonNext',
+  strong: 'AtkinsonNext-SemiBold',
+  mono: 'AtkinsonMono',
 } as const;
 
-/** Font files shipped in assets/fonts, loaded by expo-font (never from the network). */
+/** Font files from the registry's font packages, bundled into the app by the web export (never fetched from elsewhere). */
 export const fontFiles = {
-  [fonts.body]: require('../../assets/fonts/IBMPlexSans_400Regular.ttf'),
-  [fonts.strong]: require('../../assets/fonts/IBMPlexSans_600SemiBold.ttf'),
-  [fonts.mono]: require('../../assets/fonts/IBMPlexMono_500Medium.ttf'),
+  [fonts.body]: require('@expo-google-fonts/atkinson-hyperlegible-next/400Regular/AtkinsonHyperlegibleNext_400Regular.ttf'),
+  [fonts.strong]: require('@expo-google-fonts/atkinson-hyperlegible-next/600SemiBold/AtkinsonHyperlegibleNext_600SemiBold.ttf'),
+  [fonts.mono]: require('@expo-google-fonts/atkinson-hyperlegible-mono/500Medium/AtkinsonHyperlegibleMono_500Medium.ttf'),
 };
 
 export const typeScale = {

@@ -33,11 +33,11 @@ for (const size of Object.keys(viewports) as ViewportName[]) {
       const navId = size === 'wide' ? 'nav-rail' : 'nav-bar';
       assert.ok(await page.getByTestId(navId).isVisible(), `${navId} is the navigation at ${size} size`);
       await page.evaluate(() => document.fonts.ready);
-      assert.equal(await page.evaluate(() => document.fonts.check('16px PlexSans')), true, 'PlexSans loaded');
+      assert.equal(await page.evaluate(() => document.fonts.check('16px AtkinsonNext')), true, 'AtkinsonNext loaded');
       const fontOfHeading = await page
         .getByRole('heading', { name: 'Sphereline' })
         .evaluate((el) => getComputedStyle(el).fontFamily);
-      assert.match(fontOfHeading, /PlexSans/);
+      assert.match(fontOfHeading, /AtkinsonNext/);
       assert.ok((await horizontalOverflowPx(page)) <= 0, 'no horizontal scrolling');
       await screenshot(page, `shell-landing-${size}`);
       assert.deepEqual(errors, []);
