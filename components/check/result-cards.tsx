@@ -1,7 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 import { toDisplayFormula } from '@/lib/chem/display-formula';
 import { nearestReferenceRates } from '@/lib/chem/reference-rates';
-import type { Classification } from '@/lib/chem/types';
+import { CHECKED_MARKER, type Classification } from '@/lib/chem/types';
 import { BulletList } from '@/components/ui/bullet-list';
 import { Card } from '@/components/ui/card';
 import { CautionBox } from '@/components/ui/caution-box';
@@ -37,6 +37,9 @@ export function VerdictCard({ result }: { result: Classification }) {
             ({result.measured.kind.replace('-', ' ')})
           </AppText>
           <AppText variant="caption" tone="muted">{result.measured.source}</AppText>
+          {result.measured.checked ? (
+            <AppText variant="caption" tone="soft" testID="measured-checked">{CHECKED_MARKER[result.measured.checked]}</AppText>
+          ) : null}
         </View>
       ) : null}
       <BulletList items={result.reasons} testID="verdict-reasons" />

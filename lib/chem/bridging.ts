@@ -163,7 +163,7 @@ export function bridgeableLigands(parsed: ParsedFormula): BridgeAssessment[] {
         attack: descriptor.attack,
         reason:
           `${ligand.name}: coordinated O keeps one weakly basic lone pair, a poor bridge; its conjugate base hydroxide is the usual bridge ` +
-          '(e.g. [Co(NH3)5(OH)]2+ reacts with Cr(II) about 10⁶ times faster than [Co(NH3)5(OH2)]3+: Candlin & Halpern 1965; Zwickel & Taube, from memory)',
+          '(e.g. [Co(NH3)5(OH)]2+ reacts with Cr(II) about 10⁶ times faster than [Co(NH3)5(OH2)]3+: Candlin & Halpern 1965; Zwickel & Taube)',
       };
     }
     return {
@@ -189,7 +189,7 @@ const FIRST_ROW_D = new Set(['Sc', 'Ti', 'V', 'Cr', 'Mn', 'Fe', 'Co', 'Ni', 'Cu'
 /**
  * Hardness (0 soft … 1 hard) of the metal that attacks the bridge, as it reacts.
  * f-block and s-block ions are hard (Eu(II): reversed halide order, Candlin, Halpern & Trimm 1964);
- * aqueous Fe(II) leans hard (it also shows F > Cl, from memory as noted in electron_transfer.json);
+ * aqueous Fe(II) leans hard (it also shows F > Cl, recalled, as noted in the electron-transfer reference notes);
  * other first-row 2+ ions are borderline, low-valent soft metals soft (Pearson 1963; common practice).
  */
 export function attackingMetalHardness(metal: string, oxidationState: number): { hardness: number; label: string } {
@@ -200,7 +200,7 @@ export function attackingMetalHardness(metal: string, oxidationState: number): {
     return { hardness: 0, label: `${metal}(${roman(oxidationState)}) is a soft ion` };
   }
   if (metal === 'Fe' && oxidationState === 2) {
-    return { hardness: 0.6, label: 'Fe(II) leans hard (it too favours fluoride bridges, from memory)' };
+    return { hardness: 0.6, label: 'Fe(II) leans hard (it too favours fluoride bridges)' };
   }
   if (FIRST_ROW_D.has(metal)) {
     return { hardness: oxidationState >= 3 ? 0.7 : 0.2, label: `${metal}(${roman(oxidationState)}) is borderline` };
@@ -251,7 +251,7 @@ export function scoreBridge(bridge: BridgeDescriptor, context: BridgeScoringCont
     score -= 30;
     reasons.push(
       `attack at S would leave the hard ${context.attackingMetal}(${roman(context.attackingProductOxidationState)}) product S-bound, an unstable linkage isomer ` +
-        '(Co–NCS reacts with Cr(II) about 10⁴ times slower than Co–SCN: Candlin & Halpern 1965, from memory)',
+        '(Co–NCS reacts with Cr(II) about 10⁴ times slower than Co–SCN: Candlin & Halpern 1965)',
     );
   }
   return { score: Math.round(Math.min(100, Math.max(0, score)) * 10) / 10, reasons };

@@ -44,6 +44,7 @@ interface MeasuredRecord {
   deltaHActivationKJPerMol: number | null;
   deltaSActivationJPerMolK: number | null;
   source: string;
+  checked: MeasuredRate['checked'];
 }
 
 function ligandSetKey(entries: [string, number][]): string {
@@ -64,7 +65,7 @@ interface MeasuredEntry {
 
 // One entry per distinct metal/oxidation state/ligand set (a later record with the same set wins).
 const measuredByKey: ReadonlyMap<string, MeasuredEntry> = new Map(
-  (measuredRateData.rates as MeasuredRecord[]).map((record) => [
+  (measuredRateData.rates as unknown as MeasuredRecord[]).map((record) => [
     `${record.metal}/${record.oxidationState}/${ligandSetKey(Object.entries(record.ligands))}`,
     {
       metal: record.metal,
@@ -78,6 +79,7 @@ const measuredByKey: ReadonlyMap<string, MeasuredEntry> = new Map(
         deltaHActivationKJPerMol: record.deltaHActivationKJPerMol,
         deltaSActivationJPerMolK: record.deltaSActivationJPerMolK,
         source: record.source,
+        checked: record.checked,
       },
     },
   ]),

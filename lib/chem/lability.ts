@@ -4,7 +4,7 @@
  * orbitals, Jahn–Teller distortion and the row of the metal — not the d-count rule alone.
  *
  * Calibration: least-squares fit to the 19 aqua ions with numeric k_ex in
- * /work/shared/science/water_exchange.json (Helm & Merbach 2005 and the primary papers cited
+ * the water-exchange reference notes (Helm & Merbach 2005 and the primary papers cited
  * there); residuals within ±1.1 log units (see tests/lib/chem/lability.test.ts). Square-planar d8,
  * 18-electron organometallics and f-block ions use the separate, rougher rules below.
  */
@@ -34,7 +34,7 @@ const CFAE_FRACTION = 0.22; // fraction of the CFAE (kJ/mol) that appears in the
 const TAUBE_INERT_CLASS = -3.2; // d3 and low-spin d4–d6: no vacant t2g and an empty e_g set
 const JAHN_TELLER_STRONG = 2.5; // Cu²⁺, Cr²⁺: the long axis exchanges very fast
 const HEAVY_ROW = -1.1; // 4d/5d: stronger, more covalent bonds beyond the larger Δo
-const F_BLOCK = 6.0; // high CN, non-directional 4f/5f bonding; Ln³⁺ ~1e8–1e9 s⁻¹ (Helm & Merbach 2005, from memory)
+const F_BLOCK = 6.0; // high CN, non-directional 4f/5f bonding; Ln³⁺ ~1e8–1e9 s⁻¹ (Helm & Merbach 2005, recalled)
 const PER_CHELATE_TOOTH = -0.3; // chelates dissociate more slowly (common practice, rough)
 const CHELATE_CAP = -1.5;
 const HYDROXO_CONJUGATE_BASE = 3.0; // [M(H2O)5OH]: 10^1.9–10^4.4 faster (water_exchange.json other_species)
@@ -43,11 +43,11 @@ const LOG_K_MIN = -12;
 
 /** Square-planar d8 (associative): log k by row, anchored on [Pt(H2O)4]²⁺ and [Pd(H2O)4]²⁺ (Helm, Elding & Merbach 1984/1985) and Ni ≫ Pd (common practice). */
 const SQUARE_PLANAR_LOG_K: Record<string, number> = { '3d': 5.0, '4d': 2.7, '5d': -3.4 };
-const SQUARE_PLANAR_PER_CHARGE_STEP = 2.0; // Au(III), Rh(I), Ir(I) vs Pt(II): rough, from memory
+const SQUARE_PLANAR_PER_CHARGE_STEP = 2.0; // Au(III), Rh(I), Ir(I) vs Pt(II): rough, recalled
 
 /** 18-electron organometallics substitute dissociatively and slowly at 25 °C (common practice). */
 const EIGHTEEN_ELECTRON_LOG_K: Record<string, number> = { '3d': -6, '4d': -5, '5d': -7 };
-const EIGHTEEN_ELECTRON_D10 = -2; // Ni(CO)4-type: CO loss k ~1e-2 s⁻¹ at 25 °C (from memory)
+const EIGHTEEN_ELECTRON_D10 = -2; // Ni(CO)4-type: CO loss k ~1e-2 s⁻¹ at 25 °C (recalled)
 
 export interface LabilityInput {
   metal: string;

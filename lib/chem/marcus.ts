@@ -48,7 +48,7 @@ export const WATER_RELATIVE_PERMITTIVITY_25C = 78.4;
 
 /**
  * Default radius of each reactant (Å) when none is given: the size of a hexaammine or hexaaqua
- * ion (common practice in Sutin's compilations, ~3.3–3.5 Å; from memory). Tris(bipyridine)
+ * ion (common practice in Sutin's compilations, ~3.3–3.5 Å; recalled). Tris(bipyridine)
  * complexes are nearer 6.8 Å: pass radii for them.
  */
 export const DEFAULT_RADIUS_ANGSTROM = 3.5;
@@ -193,7 +193,7 @@ export function equilibriumConstantFromPotential(deltaEV: number, temperatureC =
 /**
  * Relative permittivity of water: 78.4 at 25 °C (common practice), scaled to other temperatures
  * with the Malmberg–Maryott fit ε(t) = 87.740 − 0.40008 t + 9.398e-4 t² − 1.410e-6 t³
- * (C. G. Malmberg & A. A. Maryott, J. Res. Natl. Bur. Stand. 1956, 56, 1; from memory).
+ * (C. G. Malmberg & A. A. Maryott, J. Res. Natl. Bur. Stand. 1956, 56, 1; recalled).
  */
 export function waterRelativePermittivity(temperatureC: number): number {
   const fit = (t: number): number => 87.74 - 0.40008 * t + 9.398e-4 * t * t - 1.41e-6 * t * t * t;

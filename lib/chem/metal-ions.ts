@@ -67,7 +67,7 @@ export function metalIon(symbol: string, oxidationState: number): MetalIon | und
 }
 
 // Highest oxidation states known in compounds (Greenwood & Earnshaw, Chemistry of the Elements,
-// 2nd ed., 1997; from memory). The group number alone would allow e.g. Co(IX).
+// 2nd ed., 1997; recalled). The group number alone would allow e.g. Co(IX).
 const MAXIMUM_OXIDATION_STATE: Record<string, number> = {
   Sc: 3, Ti: 4, V: 5, Cr: 6, Mn: 7, Fe: 6, Co: 5, Ni: 4, Cu: 4, Zn: 2,
   Y: 3, Zr: 4, Nb: 5, Mo: 6, Tc: 7, Ru: 8, Rh: 6, Pd: 4, Ag: 3, Cd: 2,

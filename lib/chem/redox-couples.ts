@@ -13,7 +13,7 @@ import { parseFormula } from './formula-parser';
 import type { CoupleMatch, RedoxCouple } from './route-types';
 import type { ParsedFormula } from './types';
 
-const couples: readonly RedoxCouple[] = (redoxCouplesData as { couples: RedoxCouple[] }).couples;
+const couples: readonly RedoxCouple[] = (redoxCouplesData as unknown as { couples: RedoxCouple[] }).couples;
 
 /** Every couple in the table. */
 export function listCouples(): readonly RedoxCouple[] {

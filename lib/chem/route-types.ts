@@ -2,7 +2,7 @@
  * Types of the electron-transfer route engine (route.ts, bridging.ts, redox-couples.ts).
  * Pure data shapes. The lability engine's shared types stay in types.ts.
  */
-import type { Classification, ParsedFormula } from './types';
+import type { Checked, Classification, ParsedFormula } from './types';
 import type { MarcusResult } from './marcus';
 
 export type RouteKind = 'inner-sphere' | 'outer-sphere' | 'either';
@@ -114,8 +114,12 @@ export interface SelfExchangeValue {
   temperatureC: number;
   medium: string;
   ionicStrengthM: number | null;
+  /** Clean published reference. */
   source: string;
-  confidence: string;
+  /** How well the value was checked (shown as a small marker, never as prose). */
+  checked: Checked;
+  /** Curators' note: never shown or exported. */
+  note?: string;
 }
 
 export interface StandardPotential {
@@ -124,7 +128,8 @@ export interface StandardPotential {
   rangeV: number[] | null;
   formal: { medium: string; volts: number }[];
   source: string;
-  confidence: string;
+  checked: Checked;
+  note?: string;
 }
 
 export interface RedoxCouple {
@@ -139,6 +144,8 @@ export interface RedoxCouple {
   e0: StandardPotential | null;
   mediumCaveats: string[];
   source: string;
+  checked: Checked;
+  note?: string;
 }
 
 export interface CoupleMatch {

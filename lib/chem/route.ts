@@ -38,7 +38,7 @@ import type {
   RouteRoles,
   TransferredLigand,
 } from './route-types';
-import { FormulaError, type Classification, type LigandInstance, type ParsedFormula } from './types';
+import { CHECKED_MARKER, FormulaError, type Classification, type LigandInstance, type ParsedFormula } from './types';
 
 /**
  * log10 of the first-order exchange rate (s⁻¹) above which a partner opens a site faster than the
@@ -375,7 +375,7 @@ function marcusFor(roles: Roles, temperatureC: number): { marcus: MarcusResult |
     for (const couple of ox.couple === red.couple ? [ox.couple] : [ox.couple, red.couple]) {
       const k11 = couple.k11;
       if (!k11) continue;
-      notes.push(`k11(${couple.label}) = ${k11.asReported} M⁻¹ s⁻¹ at ${k11.temperatureC} °C, ${k11.medium} — ${k11.source} (${k11.confidence}).`);
+      notes.push(`k11(${couple.label}) = ${k11.asReported} M⁻¹ s⁻¹ at ${k11.temperatureC} °C, ${k11.medium} — ${k11.source} [${CHECKED_MARKER[k11.checked]}].`);
       if (k11.qualifier !== 'measured') notes.push(`k11(${couple.label}) is ${k11.qualifier.replace('-', ' ')}: the prediction inherits that.`);
       notes.push(...couple.mediumCaveats.map((caveat) => `${couple.label}: ${caveat}`));
     }

@@ -81,6 +81,14 @@ export interface LigandDefinition {
 /** How well a published value was checked: the paper, a review table, a secondary source, or recalled and not yet checked. */
 export type Checked = 'primary' | 'review' | 'secondary' | 'recalled';
 
+/** The small marker shown beside a value for how well it was checked. */
+export const CHECKED_MARKER: Readonly<Record<Checked, string>> = {
+  primary: 'checked against the paper',
+  review: 'from a review table',
+  secondary: 'from a secondary source',
+  recalled: 'recalled, not yet checked against the paper',
+};
+
 /**
  * How a formula was read when it was not a bracketed complex as written: a trivial name, a plain
  * salt or hydrate read as the species it gives in water ('dissolved') or as the complex its solid
@@ -149,6 +157,8 @@ export interface MeasuredRate {
   deltaHActivationKJPerMol: number | null;
   deltaSActivationJPerMolK: number | null;
   source: string;
+  /** How well the value was checked against its source. */
+  checked?: Checked;
 }
 
 /** The lability engine's answer for one formula (stable fields first: see PRODUCT.md). */

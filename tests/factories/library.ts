@@ -9,7 +9,7 @@ import {
 
 /**
  * Library fixtures built through the shared schemas, so they cannot drift from the contract.
- * Values name their source (water_exchange.json in /work/shared/science, as copied into
+ * Values name their source (the water-exchange reference notes, as copied into
  * data/demo-library.json).
  */
 

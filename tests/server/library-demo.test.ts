@@ -71,7 +71,7 @@ describe('the Larkspur demo library', () => {
   it('measured meets predicted on the demo data: [Cr(H2O)6]3+ water exchange 2.4e-6 s-1', async () => {
     const viewer = await signedIn('viewer@larkspur.example.org');
     const body = measuredResponseSchema.parse((await viewer.get(`/api/groups/${groupId}/measured?formula=${encodeURIComponent('[Cr(OH2)6](ClO4)3')}`)).body);
-    // k_ex = 2.4e-6 s-1 at 298 K: Xu, Krouse & Swaddle, Inorg. Chem. 1985, 24, 267 (water_exchange.json, from memory there).
+    // k_ex = 2.4e-6 s-1 at 298 K: Xu, Krouse & Swaddle, Inorg. Chem. 1985, 24, 267 (water_exchange.json, recalled there).
     const kex = body.libraryMeasurements.find((m) => m.kind === 'water-exchange');
     expect(kex?.value).toBe(2.4e-6);
     expect(kex?.citation?.journal).toBe('Inorg. Chem.');

@@ -38,6 +38,10 @@ type Author = 'contributor' | 'contributor2' | 'curator' | 'admin';
 interface DemoMeasurement extends Omit<MeasurementInput, 'citation' | 'citationId' | 'version'> {
   citation: string | null;
   source: string;
+  /** How well the value was checked against its citation (kept in the data file; not user text). */
+  checked?: 'primary' | 'review' | 'secondary' | 'recalled' | null;
+  /** Curators' note on the value's provenance: never seeded as user text. */
+  note?: string;
 }
 
 interface DemoComplex {
@@ -53,6 +57,8 @@ interface DemoComplex {
 interface DemoCitation extends CitationInput {
   key: string;
   source: string;
+  /** Curators' note: never seeded. */
+  note?: string;
 }
 
 const emailOf: Record<Author, string> = {
@@ -85,10 +91,10 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
   };
 
   const citations = new Map<string, CitationInput>(
-    (demoLibrary.citations as DemoCitation[]).map(({ key, source: _source, ...rest }) => [key, citationInputSchema.parse(rest)]),
+    (demoLibrary.citations as DemoCitation[]).map(({ key, source: _source, note: _note, ...rest }) => [key, citationInputSchema.parse(rest)]),
   );
   const toInput = (m: DemoMeasurement): MeasurementInput => {
-    const { citation, source: _source, ...rest } = m;
+    const { citation, source: _source, checked: _checked, note: _note, ...rest } = m;
     const cited = citation ? citations.get(citation) : undefined;
     if (citation && !cited) throw new Error(`demo library: unknown citation key ${citation}`);
     return measurementInputSchema.parse({ ...rest, ...(cited ? { citation: cited } : {}) });

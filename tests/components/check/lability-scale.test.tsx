@@ -7,7 +7,7 @@ import { svgTexts } from '../svg-text';
 const x1 = (testID: string): number => Number(screen.getByTestId(testID).props.x1);
 
 // The one-minute line sits at k = ln2/60 s⁻¹, log k ≈ −1.94 (Taube, Chem. Rev. 1952, 50, 69, as
-// restated in /work/shared/SCIENCE.md). Water-exchange values below are from water_exchange.json
+// restated in the science notes). Water-exchange values below are from water_exchange.json
 // (Helm & Merbach 2005): [Cr(H2O)6]3+ k = 2.4e-6 s⁻¹ (log −5.6), [Ni(H2O)6]2+ 3.2e4 (log 4.5),
 // [Fe(H2O)6]3+ 1.6e2 (log 2.2), [Rh(H2O)6]3+ 2.2e-9 (log −8.7), [V(H2O)6]3+ 5.0e2 (log 2.7).
 // [Co(NH3)6]3+ at log −5.3 is only a placeholder position for a predicted entry (no check value).

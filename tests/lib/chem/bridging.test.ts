@@ -68,7 +68,7 @@ describe('rankBridgingCandidates', () => {
     expect(hydroxo - aqua).toBeGreaterThanOrEqual(20);
   });
 
-  it('S-bound thiocyanate (bridging N) beats N-bound (bridging S) with Cr(II): k 1.9e5 vs 19 (Candlin & Halpern 1965, from memory)', () => {
+  it('S-bound thiocyanate (bridging N) beats N-bound (bridging S) with Cr(II): k 1.9e5 vs 19 (Candlin & Halpern 1965, recalled)', () => {
     const sBound = presentScore(rankBridgingCandidates('[Co(NH3)5(SCN)]2+', '[Cr(H2O)6]2+'), 'SCN');
     const nBound = presentScore(rankBridgingCandidates('[Co(NH3)5(NCS)]2+', '[Cr(H2O)6]2+'), 'NCS');
     expect(sBound).toBeGreaterThan(nBound);

@@ -1,7 +1,7 @@
 import { classifyFormula } from '@/lib/chem/classify';
 
 // [formula, metal, oxidation state, d electrons, coordination number, geometry] — electron counting
-// by charge balance and d = group − oxidation state (common practice; geometries from memory of
+// by charge balance and d = group − oxidation state (common practice; geometries recalled from
 // standard textbook structures, e.g. Greenwood & Earnshaw 1997).
 const cases: [string, string, number, number, number, string][] = [
   ['[Co(en)2(NO2)Cl]NO3', 'Co', 3, 6, 6, 'octahedral'],
@@ -54,7 +54,7 @@ describe('electron counting (common practice)', () => {
     expect(result.geometry).toBe(geometry);
   });
 
-  it('f-block ions report their f count as the open-shell count (PRODUCT.md: "d (or f) electron count") (Gd3+ 4f7, Ce4+ 4f0, U(IV) 5f2; from memory)', () => {
+  it('f-block ions report their f count as the open-shell count (PRODUCT.md: "d (or f) electron count") (Gd3+ 4f7, Ce4+ 4f0, U(IV) 5f2; recalled)', () => {
     const gadolinium = classifyFormula('[Gd(H2O)8]3+');
     expect([gadolinium.electronShell, gadolinium.dElectrons, gadolinium.fElectrons]).toEqual(['f', 7, 7]);
     expect(classifyFormula('[Ce(NO3)6]2-').fElectrons).toBe(0);

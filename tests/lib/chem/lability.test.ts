@@ -1,7 +1,7 @@
 import { classifyFormula } from '@/lib/chem/classify';
 
 /**
- * Water exchange, 298 K: /work/shared/science/water_exchange.json (L. Helm & A. E. Merbach,
+ * Water exchange, 298 K: the water-exchange reference notes (L. Helm & A. E. Merbach,
  * Chem. Rev. 2005, 105, 1923, and the primary papers cited per ion there).
  * Model tolerance, stated honestly: the model's own log k (predictedLogKPerSecond) lies within
  * ±1.1 log units of every numeric value below (a least-squares calibration on these ions; most are
@@ -77,7 +77,7 @@ describe('trap 1: the d-count rule is not enough (SCIENCE.md)', () => {
   });
 });
 
-describe('verdicts beyond the aqua ions (textbook, from memory / common practice)', () => {
+describe('verdicts beyond the aqua ions (textbook, recalled / common practice)', () => {
   it.each([
     ['[Co(NH3)6]3+', 'inert'], ['[Co(NH3)5Cl]Cl2', 'inert'], ['[Co(en)3]3+', 'inert'], ['[Co(NH3)6]2+', 'labile'],
     ['[Cr(NH3)6]3+', 'inert'], ['K3[Cr(ox)3]·3H2O', 'inert'], ['[Cr(CN)6]3-', 'inert'], ['[Fe(CN)6]4-', 'inert'],

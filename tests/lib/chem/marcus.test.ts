@@ -11,7 +11,7 @@ import {
 // Independent check arithmetic, written out here from the published equation (not the code under test):
 // k12 = (k11 k22 K12 f12)^½, log f12 = (log K12)² / 4 log(k11 k22 / Z²), Z = 1e11,
 // K12 = exp(FΔE/RT) — R. A. Marcus, J. Phys. Chem. 1963, 67, 853; N. Sutin, Prog. Inorg. Chem. 1983, 30, 441
-// (as restated in /work/shared/science/electron_transfer.json section b). CODATA 2018 constants.
+// (as restated in the electron-transfer reference notes section b). CODATA 2018 constants.
 const F = 96485.33212;
 const R = 8.314462618;
 const Z = 1e11;
@@ -27,7 +27,7 @@ const relClose = (actual: number, expected: number, rel: number) =>
 
 describe('marcusCrossRate: arithmetic of electron_transfer.json section b', () => {
   // [Ru(NH3)6]3+ + [V(H2O)6]2+: k11 4.3e3 (Brown & Sutin 1979, via RSC Adv. 2023 compilation),
-  // k22 1e-2 (Krishnamurty & Wahl 1958, from memory), E° 0.07 and −0.255 V (from memory);
+  // k22 1e-2 (Krishnamurty & Wahl 1958, recalled), E° 0.07 and −0.255 V (recalled);
   // computed block of electron_transfer.json: K12 3.116e5, f12 0.4261, k12 2390, k12(f=1) 3661.
   const ruV = { k11: 4300, k22: 0.01, deltaEV: 0.07 - -0.255 };
 
@@ -53,8 +53,8 @@ describe('marcusCrossRate: arithmetic of electron_transfer.json section b', () =
     expect(result.logK12).toBeCloseTo(5.494, 3);
   });
 
-  // [Ru(bpy)3]3+ + [Fe(H2O)6]2+: k11 4.2e8 (Sutin compilations, from memory), k22 4.0 (Silverman & Dodson 1952),
-  // E° 1.26 (from memory) and 0.771 V (Harris / Bard et al. 1985); json computed: K12 1.844e8, f12 0.04602,
+  // [Ru(bpy)3]3+ + [Fe(H2O)6]2+: k11 4.2e8 (Sutin compilations, recalled), k22 4.0 (Silverman & Dodson 1952),
+  // E° 1.26 (recalled) and 0.771 V (Harris / Bard et al. 1985); json computed: K12 1.844e8, f12 0.04602,
   // k12 1.194e8, k12(f=1) 5.566e8.
   it('large driving force: f12 well below 1, values as in the json', () => {
     const input = { k11: 4.2e8, k22: 4.0, deltaEV: 1.26 - 0.771 };
@@ -158,7 +158,7 @@ describe('comparison with an observed k12', () => {
 });
 
 describe('work terms', () => {
-  it('Coulomb work for z1z2 = 1 at 1 Å, I = 0, 25 °C is 4.23 kcal/mol = 17.7 kJ/mol (Sutin 1983 constant, from memory)', () => {
+  it('Coulomb work for z1z2 = 1 at 1 Å, I = 0, 25 °C is 4.23 kcal/mol = 17.7 kJ/mol (Sutin 1983 constant, recalled)', () => {
     expect(coulombWorkKJPerMol(1, 1, 1, 0, 25)).toBeCloseTo(4.23 * 4.184, 1);
   });
 

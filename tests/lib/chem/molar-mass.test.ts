@@ -32,7 +32,7 @@ describe('molar masses', () => {
     },
   );
 
-  // Hand-checked with CIAAW 2021 abridged weights (from memory): H 1.008, C 12.011, N 14.007,
+  // Hand-checked with CIAAW 2021 abridged weights (recalled): H 1.008, C 12.011, N 14.007,
   // O 15.999, Cl 35.45, Co 58.933, Pt 195.08, K 39.098, Cr 51.996, Fe 55.845, Na 22.990.
   it.each([
     ['[Co(NH3)6]Cl3', 267.48],

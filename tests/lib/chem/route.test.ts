@@ -5,7 +5,7 @@ import { isRouteError, predictRoute, predictRoutes, RouteInputError } from '@/li
 // Check values and their sources:
 // - Cr(II) reductions of [Co(NH3)5X]: bridged, Cr–X product formed — J. P. Candlin, J. Halpern & D. L. Trimm,
 //   J. Am. Chem. Soc. 1964, 86, 1019 (halides); J. P. Candlin & J. Halpern, Inorg. Chem. 1965, 4, 766 (N3, NCS, OH),
-//   as in /work/shared/science/electron_transfer.json section c.
+//   as in the electron-transfer reference notes section c.
 // - Outer-sphere signs (no bridging lone pair, both partners inert, no ligand transfer): SCIENCE.md trap 5 and
 //   electron_transfer.json section c, note_on_reversed_halide_order.
 // - [Ru(NH3)6]2+ as an outer-sphere reductant of Co(III) ammines: J. F. Endicott & H. Taube, J. Am. Chem. Soc. 1964,
