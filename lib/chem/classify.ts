@@ -196,6 +196,7 @@ function copyClassification(source: Classification): Classification {
     measured: source.measured && { ...source.measured },
     ...(source.readings ? { readings: source.readings.map((reading) => ({ ...reading })) } : {}),
     ...(source.warnings ? { warnings: source.warnings.slice() } : {}),
+    ...(source.centres ? { centres: source.centres.map((centre) => ({ ...centre })) } : {}),
   };
 }
 
@@ -215,6 +216,7 @@ export function classifyFormula(formula: string, options: ClassifyOptions = {}):
 
 function computeClassification(formula: string, options: ClassifyOptions): Classification {
   const parsed = parseFormulaWithMolarMass(formula);
+  if (parsed.centres !== undefined && parsed.centres.length === 2) return classifyDinuclear(formula, parsed, parsed.centres, options);
   const temperatureC = options.temperatureC ?? 25;
   if (!Number.isFinite(temperatureC) || temperatureC < -100 || temperatureC > 400) {
     throw new FormulaError(`Temperature ${temperatureC} °C is outside the range this tool handles (−100 to 400 °C)`, formula, 0);
@@ -384,6 +386,61 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
 
 function readingSummary(reading: { kind: 'name' | 'dissolved' | 'solid'; species: string; text: string }): NonNullable<Classification['readings']>[number] {
   return { kind: reading.kind, species: reading.species, text: reading.text };
+}
+
+/**
+ * A µ-bridged dinuclear species, classified per metal centre: each centre as the mononuclear species
+ * with its own terminal ligands and the bridges. Substitution starts at the faster centre, so that
+ * centre gives the headline; both are listed, and the molar mass, charge and cautions are the whole ion's.
+ */
+function classifyDinuclear(
+  formula: string,
+  parsed: ReturnType<typeof parseFormulaWithMolarMass>,
+  centres: readonly formulaParser.MetalCentre[],
+  options: ClassifyOptions,
+): Classification {
+  const results = centres.map((centre) => classifyFormula(centre.species, options));
+  let main = 0;
+  for (let index = 1; index < results.length; index++) if ((results[index] as Classification).logKPerSecond > (results[main] as Classification).logKPerSecond) main = index;
+  const headline = results[main] as Classification;
+  const centreLines = results.map(
+    (result, index) =>
+      `centre ${index + 1}: ${ionLabel(result.metal, result.oxidationState)} as ${(centres[index] as formulaParser.MetalCentre).species} — ${result.verdict}, k ≈ 10^${formatFixed(result.logKPerSecond, 1)} s⁻¹`,
+  );
+  const bridges = (centres[0] as formulaParser.MetalCentre).bridges.map((bridge) => bridge.ligand.name).join(', ');
+  const reasons = [
+    ...parsed.readings.map((reading) => reading.text),
+    ...parsed.warnings,
+    `µ-bridged dinuclear species (bridge: ${bridges}): each metal centre is classified on its own; the faster centre (${main + 1}) sets the verdict`,
+    ...centreLines,
+    ...headline.reasons.filter((reason) => !headline.readings?.some((reading) => reading.text === reason)),
+  ];
+  const cautions = cautionsFor(parsed, parsed.oxidationState);
+  for (const result of results) for (const caution of result.cautions) if (!cautions.includes(caution)) cautions.push(caution);
+  return {
+    ...headline,
+    formula,
+    reasons,
+    cautions,
+    complexCharge: parsed.complexCharge,
+    molarMassGPerMol: Math.round(parsed.molarMassGPerMol * 1000) / 1000,
+    ...(parsed.readings.length > 0 ? { readings: parsed.readings.map(readingSummary) } : {}),
+    ...(parsed.warnings.length > 0 ? { warnings: parsed.warnings.slice() } : {}),
+    centres: results.map((result, index) => ({
+      metal: result.metal,
+      oxidationState: result.oxidationState,
+      species: (centres[index] as formulaParser.MetalCentre).species,
+      dElectrons: result.dElectrons,
+      electronShell: result.electronShell,
+      spinState: result.spinState,
+      coordinationNumber: result.coordinationNumber,
+      geometry: result.geometry,
+      verdict: result.verdict,
+      logKPerSecond: result.logKPerSecond,
+      halfLifeSeconds: result.halfLifeSeconds,
+      confidence: result.confidence,
+    })),
+  };
 }
 
 /** The result's ligand list (a loop: no closure per formula). */

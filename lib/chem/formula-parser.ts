@@ -24,6 +24,20 @@ export interface ParsedComplex extends ParsedFormula {
   writtenCharge: number | null;
   readings: FormulaReading[];
   warnings: string[];
+  /** µ-bridged dinuclear species: each metal centre with its own oxidation state and ligands (bridges on both). */
+  centres?: MetalCentre[];
+}
+
+/** One metal centre of a µ-bridged dinuclear species. */
+export interface MetalCentre {
+  metal: string;
+  oxidationState: number;
+  /** Terminal ligands of this centre plus every bridge. */
+  ligands: LigandInstance[];
+  /** The bridging ligands (also in `ligands`). */
+  bridges: LigandInstance[];
+  /** A mononuclear formula with this centre's ligand set and charge, for classifying the centre. */
+  species: string;
 }
 
 interface CounterIonDefinition {
@@ -705,6 +719,7 @@ export function parseFormula(input: string): ParsedComplex {
     writtenCharge: core.writtenCharge,
     readings: core.readings,
     warnings: core.warnings,
+    ...(core.centres ? { centres: core.centres } : {}),
   };
 }
 
@@ -731,6 +746,7 @@ export function parseFormulaWithMolarMass(input: string): ParsedCore & {
     writtenCharge: core.writtenCharge,
     readings: core.readings,
     warnings: core.warnings,
+    ...(core.centres ? { centres: core.centres } : {}),
     molarMassGPerMol: molarMassFromScratch(),
     // The charge balance already looked these up: the classifier need not do it again.
     element: lastElement as metalIons.MetalElement,
@@ -1035,6 +1051,7 @@ function parseCore(input: string): ParsedCore {
   let anions: IonPart[] = [];
   let written: { charge: number; position: number } | null = null;
   let anionPosition = -1;
+  let dinuclear: DinuclearSphere | null = null;
 
   if (bracketIndex < 0) {
     // No brackets: accept a bare entity such as "Cr(H2O)6 3+"; reject a bare ion such as "Fe3+".
@@ -1071,7 +1088,14 @@ function parseCore(input: string): ParsedCore {
     cations = readIons(scanner, cationByFormula, 'cation', isComplexStart);
     const openPosition = scanner.pos;
     scanner.pos++; // '['
-    inner = readInnerSphere(scanner, true, openPosition);
+    const close = text.indexOf(']', openPosition);
+    const bridged = close > openPosition && text.slice(openPosition, close).includes('μ');
+    if (bridged) {
+      dinuclear = readDinuclear(scanner, openPosition, close);
+      inner = dinuclear.inner;
+    } else {
+      inner = readInnerSphere(scanner, true, openPosition);
+    }
     scanner.pos++; // ']'
     // A count straight after ']' is a number of complex ions unless a sign follows (then a charge).
     const afterBracket = scanner.pos;
@@ -1132,7 +1156,13 @@ function parseCore(input: string): ParsedCore {
 
   let ligandCharge = 0;
   for (const instance of inner.ligands) ligandCharge += instance.ligand.charge * instance.count;
-  const oxidationState = complexCharge - ligandCharge;
+  const warnings: string[] = [];
+  let centres: MetalCentre[] | undefined;
+  let oxidationState = complexCharge - ligandCharge;
+  if (dinuclear !== null) {
+    centres = assignCentres(scanner, dinuclear, complexCharge, warnings);
+    oxidationState = (centres[0] as MetalCentre).oxidationState;
+  }
   const element = inner.element;
   const configuration = electronConfiguration(element, oxidationState);
   if (!configuration) {
@@ -1146,8 +1176,7 @@ function parseCore(input: string): ParsedCore {
   lastElement = element;
   lastConfiguration = configuration;
 
-  const warnings: string[] = [];
-  if (written === null && counterIons.length === 0 && complexCharge === 0 && oxidationState === 0 && !hasBackBondingLigand(inner.ligands)) {
+  if (dinuclear === null && written === null && counterIons.length === 0 && complexCharge === 0 && oxidationState === 0 && !hasBackBondingLigand(inner.ligands)) {
     // [Fe(H2O)6] with no charge: a zero-valent metal with only σ/π-donor ligands is almost always a typing slip.
     const entity = bracketIndex < 0 ? text.slice(inner.metalPosition, scanner.end).trim() : text.slice(bracketIndex, text.indexOf(']', bracketIndex) + 1);
     warnings.push(
@@ -1160,7 +1189,17 @@ function parseCore(input: string): ParsedCore {
   scratchCounts[0] = complexCount;
   scratchWeights[0] = metalAtomicWeight(inner.metal);
   scratchLength = 1;
-  for (const instance of inner.ligands) addToScratch(instance.ligand.composition, instance.count * complexCount);
+  if (dinuclear === null) {
+    for (const instance of inner.ligands) addToScratch(instance.ligand.composition, instance.count * complexCount);
+  } else {
+    // Both metals, every terminal ligand and each bridge once.
+    for (const centre of dinuclear.centres) {
+      addToScratch({ [centre.metal]: 1 }, complexCount);
+      for (const instance of centre.terminal) addToScratch(instance.ligand.composition, instance.count * complexCount);
+    }
+    scratchCounts[0] = (scratchCounts[0] ?? 0) - complexCount;
+    for (const instance of dinuclear.bridges) addToScratch(instance.ligand.composition, instance.count * complexCount);
+  }
   for (const ion of counterIons) addToScratch(ion.composition, ion.count);
   if (hydrateWaters > 0) addToScratch(WATER_COMPOSITION, hydrateWaters);
 
@@ -1176,5 +1215,225 @@ function parseCore(input: string): ParsedCore {
     writtenCharge: written?.charge ?? null,
     readings: NO_READINGS,
     warnings: warnings.length === 0 ? NO_WARNINGS : warnings,
+    ...(centres ? { centres } : {}),
   };
+}
+
+// ---------------------------------------------------------------- µ-bridged dinuclear species
+
+interface DinuclearCentre {
+  metal: string;
+  element: metalIons.MetalElement;
+  position: number;
+  terminal: LigandInstance[];
+  explicitOxidationState: number | null;
+}
+
+interface DinuclearSphere {
+  centres: DinuclearCentre[];
+  bridges: LigandInstance[];
+  /** Written as M2 (both centres alike, bridges symmetric). */
+  symmetric: boolean;
+  /** The first centre seen as a mononuclear inner sphere (its terminal ligands and the bridges). */
+  inner: InnerSphere;
+}
+
+const LINKAGE_PARTNER: ReadonlyMap<string, string> = new Map([['NC', 'CN'], ['CN', 'NC'], ['NCS', 'SCN'], ['SCN', 'NCS']]);
+const ROMAN: ReadonlyMap<string, number> = new Map([['0', 0], ['I', 1], ['II', 2], ['III', 3], ['IV', 4], ['V', 5], ['VI', 6], ['VII', 7], ['VIII', 8]]);
+const BRIDGE_PREFIX = /^μ\d?-/;
+
+/**
+ * Reads "[(NH3)5Co(μ-OH)Co(NH3)5]", "[Co(NH3)5(μ-pz)Ru(NH3)5]", "[Cr2(μ-OH)2(H2O)8]" or
+ * "[Co(III)(NH3)5(μ-NC)Fe(II)(CN)5]" between '[' and its ']': two metal centres, their terminal
+ * ligands and the µ-bridges they share. Ligands written before a metal belong to it; ligands after a
+ * metal belong to it until a bridge; a metal written with count 2 shares the terminal ligands evenly.
+ */
+function readDinuclear(scanner: FormulaScanner, openPosition: number, close: number): DinuclearSphere {
+  const text = scanner.input;
+  const centres: DinuclearCentre[] = [];
+  const bridges: LigandInstance[] = [];
+  let pending: LigandInstance[] = [];
+  let target: LigandInstance[] | null = null;
+  let doubled = false;
+  let doubledPosition = -1;
+  scanner.pos = openPosition + 1;
+  for (;;) {
+    scanner.skipSpaces();
+    const position = scanner.pos;
+    if (position >= close) break;
+    const ch = text[position] as string;
+    if (ch === ')') scanner.fail(`Unmatched ')' at character ${position + 1}`, position);
+    let bridgeToken: string | null = null;
+    let ligand: LigandDefinition | undefined;
+    let token = '';
+    let tokenPosition = position;
+    if (ch === '(') {
+      const end = scanner.closingParenthesis(position);
+      if (end < 0 || end > close) scanner.fail(`Unclosed '(' opened at character ${position + 1}`, position);
+      const content = text.slice(position + 1, end).trim();
+      if (content.length === 0) scanner.fail(`Empty parentheses at character ${position + 1}`, position);
+      const roman = ROMAN.get(content);
+      if (roman !== undefined) {
+        const centre = centres[centres.length - 1];
+        if (centre === undefined || target !== centre.terminal || centre.terminal.length > 0 || centre.explicitOxidationState !== null) {
+          scanner.fail(`An oxidation state '(${content})' at character ${position + 1} must follow its metal, e.g. Co(III)`, position);
+        }
+        centre.explicitOxidationState = roman;
+        scanner.pos = end + 1;
+        continue;
+      }
+      const prefix = BRIDGE_PREFIX.exec(content);
+      token = prefix ? content.slice(prefix[0].length) : content;
+      if (prefix) bridgeToken = token;
+      tokenPosition = position + 1 + (prefix ? prefix[0].length : 0);
+      ligand = findLigand(token);
+      if (!ligand) scanner.fail(unknownLigandMessage(token, tokenPosition), tokenPosition);
+      scanner.pos = end + 1;
+    } else if (ch === 'μ') {
+      const prefix = BRIDGE_PREFIX.exec(text.slice(position, close));
+      if (!prefix) scanner.fail(`Write a bridge as μ-ligand at character ${position + 1}, e.g. (μ-OH)`, position);
+      scanner.pos = position + prefix[0].length;
+      tokenPosition = scanner.pos;
+      const match = scanner.matchLongest(ligandTokensByFirstChar);
+      if (match === null) scanner.fail(`Expected a bridging ligand after 'μ-' at character ${tokenPosition + 1}`, tokenPosition);
+      token = match.token;
+      bridgeToken = token;
+      ligand = match.value;
+      scanner.pos += token.length;
+    } else {
+      const match = scanner.matchLongest(ligandTokensByFirstChar);
+      const metal = metalSymbolAt(text, position);
+      if (metal !== null && (match === null || match.token.length <= metal.length)) {
+        const element = metalElement(metal) as metalIons.MetalElement;
+        scanner.pos = position + metal.length;
+        const countPosition = scanner.pos;
+        const count = digitValue(text[countPosition]) >= 0 ? scanner.readCount('the metal') : 1;
+        if (count > 2 || (count === 2 && centres.length > 0)) {
+          scanner.fail(`Only mononuclear and dinuclear species are read (character ${countPosition + 1}): classify one metal centre at a time`, countPosition);
+        }
+        if (centres.length === 2) scanner.fail(`A third metal at character ${position + 1}: only dinuclear species are read`, position);
+        const centre: DinuclearCentre = { metal: element.symbol, element, position, terminal: pending, explicitOxidationState: null };
+        centres.push(centre);
+        if (count === 2) {
+          doubled = true;
+          doubledPosition = countPosition;
+        }
+        pending = [];
+        target = centre.terminal;
+        continue;
+      }
+      if (match === null) {
+        let end = position + 1;
+        while (end < close && (isLower(text[end]) || digitValue(text[end]) >= 0)) end++;
+        if (isPlus(ch) || isMinus(ch) || SUPERSCRIPT_DIGITS.has(ch)) missingBracket(scanner, openPosition, position);
+        scanner.fail(unknownLigandMessage(text.slice(position, end), position), position);
+      }
+      token = match.token;
+      ligand = match.value;
+      scanner.pos += token.length;
+    }
+    const count = scanner.readTokenCount(token);
+    if (bridgeToken !== null) {
+      addLigand(bridges, ligand as LigandDefinition, bridgeToken, count, tokenPosition);
+      target = null;
+    } else {
+      addLigand(target ?? pending, ligand as LigandDefinition, token, count, tokenPosition);
+    }
+  }
+  scanner.pos = close;
+  const first = centres[0];
+  if (first === undefined) scanner.fail(`Expected a metal symbol inside the brackets at character ${openPosition + 2}`, openPosition + 1);
+  if (bridges.length === 0) scanner.fail(`A dinuclear species needs its bridge written as (μ-ligand) (character ${first.position + 1})`, first.position);
+  if (pending.length > 0) {
+    const last = centres[centres.length - 1] as DinuclearCentre;
+    for (const instance of pending) addLigand(last.terminal, instance.ligand, instance.written, instance.count, instance.position);
+  }
+  if (doubled) {
+    // M2 with shared bridges: each centre takes half of every terminal ligand.
+    const half: LigandInstance[] = [];
+    for (const instance of first.terminal) {
+      if (instance.count % 2 !== 0) {
+        scanner.fail(`${instance.count} × ${instance.written} at character ${instance.position + 1} cannot be shared evenly between the two ${first.metal} centres`, instance.position);
+      }
+      half.push({ ...instance, count: instance.count / 2 });
+    }
+    first.terminal = half;
+    centres.push({ ...first, terminal: half.map((instance) => ({ ...instance })) });
+  }
+  if (centres.length !== 2) {
+    scanner.fail(`A μ-bridge needs two metal centres (character ${doubledPosition >= 0 ? doubledPosition + 1 : first.position + 1})`, first.position);
+  }
+  const ligands: LigandInstance[] = first.terminal.map((instance) => ({ ...instance }));
+  for (const bridge of bridges) addLigand(ligands, bridge.ligand, bridge.written, bridge.count, bridge.position);
+  return { centres, bridges, symmetric: doubled, inner: { metal: first.metal, element: first.element, metalPosition: first.position, ligands } };
+}
+
+function ligandChargeOf(instances: readonly LigandInstance[]): number {
+  let total = 0;
+  for (const instance of instances) total += instance.ligand.charge * instance.count;
+  return total;
+}
+
+/** The mononuclear formula for one centre: its ligands in brackets and the charge that balances them. */
+function centreSpecies(metal: string, oxidationState: number, ligands: readonly LigandInstance[]): string {
+  let body = '';
+  for (const instance of ligands) body += `(${instance.ligand.id})${instance.count > 1 ? instance.count : ''}`;
+  const charge = oxidationState + ligandChargeOf(ligands);
+  return `[${metal}${body}]${charge === 0 ? '' : formatCharge(charge)}`;
+}
+
+/**
+ * Splits the metals' total oxidation state between the two centres: the written states where given;
+ * otherwise an even split, or for a mixed-valence or heteronuclear pair the split closest to even
+ * (the first-written centre higher) with a warning that says what was assumed.
+ */
+function assignCentres(scanner: FormulaScanner, sphere: DinuclearSphere, complexCharge: number, warnings: string[]): MetalCentre[] {
+  const [a, b] = sphere.centres as [DinuclearCentre, DinuclearCentre];
+  const total = complexCharge - ligandChargeOf(a.terminal) - ligandChargeOf(b.terminal) - ligandChargeOf(sphere.bridges);
+  let first: number;
+  if (a.explicitOxidationState !== null || b.explicitOxidationState !== null) {
+    first = a.explicitOxidationState ?? total - (b.explicitOxidationState as number);
+    const second = b.explicitOxidationState ?? total - first;
+    if (first + second !== total) {
+      scanner.fail(`The written oxidation states ${a.metal}(${first}) and ${b.metal}(${second}) do not balance the charge: together they must make ${total}`, a.position);
+    }
+  } else {
+    const plausible = (metal: metalIons.MetalElement, state: number): boolean => electronConfiguration(metal, state) !== null;
+    const high = Math.ceil(total / 2);
+    const candidates = [high, total - high].filter((state, index, list) => list.indexOf(state) === index);
+    const found = candidates.find((state) => plausible(a.element, state) && plausible(b.element, total - state));
+    if (found === undefined) {
+      scanner.fail(`No oxidation states for ${a.metal} and ${b.metal} add up to ${total}: check the charge and the ligands`, a.position);
+    }
+    first = found;
+    const second = total - first;
+    if (a.metal !== b.metal || first !== second) {
+      warnings.push(
+        `Oxidation states assumed ${a.metal}(${roman(first)}) and ${b.metal}(${roman(second)})${first !== second && a.metal === b.metal ? ' (mixed valence; the real ion may be delocalised)' : ''}: write them to choose, e.g. [${a.metal}(${roman(second)})…${b.metal}(${roman(first)})…]`,
+      );
+    }
+  }
+  const second = total - first;
+  const result: MetalCentre[] = [];
+  for (const [centre, state] of [[a, first], [b, second]] as const) {
+    if (electronConfiguration(centre.element, state) === null) {
+      scanner.fail(`Oxidation state ${state} for ${centre.metal} is impossible: check the charge and the ligands`, centre.position);
+    }
+    const ligands = centre.terminal.map((instance) => ({ ...instance }));
+    // A bridge written between the metals binds the first by its first atom and the second by its
+    // far end: Co–N≡C–Fe is NC on cobalt and CN on iron.
+    const farEnd = centre === b && !sphere.symmetric;
+    for (const bridge of sphere.bridges) {
+      const flipped = farEnd ? LINKAGE_PARTNER.get(bridge.ligand.id) : undefined;
+      const ligand = flipped === undefined ? bridge.ligand : findLigand(flipped) ?? bridge.ligand;
+      addLigand(ligands, ligand, bridge.written, bridge.count, bridge.position);
+    }
+    result.push({ metal: centre.metal, oxidationState: state, ligands, bridges: sphere.bridges.map((instance) => ({ ...instance })), species: centreSpecies(centre.metal, state, ligands) });
+  }
+  return result;
+}
+
+function roman(state: number): string {
+  for (const [numeral, value] of ROMAN) if (value === state) return numeral;
+  return String(state);
 }

@@ -205,6 +205,27 @@ export interface Classification {
   readings?: { kind: FormulaReading['kind']; species: string; text: string }[];
   /** Assumptions made while reading the formula (e.g. a missing charge taken as neutral). */
   warnings?: string[];
+  /**
+   * µ-bridged dinuclear species: each metal centre classified on its own (as the mononuclear species
+   * with its terminal ligands and the bridges). The top-level fields are those of the faster centre.
+   */
+  centres?: CentreClassification[];
+}
+
+/** One metal centre of a dinuclear species, classified on its own. */
+export interface CentreClassification {
+  metal: string;
+  oxidationState: number;
+  species: string;
+  dElectrons: number;
+  electronShell: 'd' | 'f' | 'sp';
+  spinState: SpinState | null;
+  coordinationNumber: number;
+  geometry: Geometry;
+  verdict: Verdict;
+  logKPerSecond: number;
+  halfLifeSeconds: number;
+  confidence: Confidence;
 }
 
 /** A formula problem for people: the message, with the character (from 1) unless it already names it. */

@@ -186,3 +186,49 @@ describe('a missing charge', () => {
     expect(parseFormula('[Fe(H2O)6]2+').warnings).toEqual([]);
   });
 });
+
+describe('µ-bridged dinuclear species, classified per metal centre', () => {
+  // Creutz–Taube ion: C. Creutz & H. Taube, J. Am. Chem. Soc. 1969, 91, 3988 — Ru(II)/Ru(III) bridged by pyrazine.
+  it('reads the Creutz–Taube ion as a mixed-valence Ru(III)/Ru(II) pair and says what it assumed', () => {
+    const parsed = parseFormula('[(NH3)5Ru(μ-pz)Ru(NH3)5]5+');
+    expect(parsed.centres?.map((centre) => [centre.metal, centre.oxidationState])).toEqual([['Ru', 3], ['Ru', 2]]);
+    expect(parsed.warnings[0]).toMatch(/mixed valence/);
+    expect(parsed.composition).toEqual({ Ru: 2, N: 12, H: 34, C: 4 });
+  });
+
+  // µ-amido and µ-hydroxo bis(pentaamminecobalt(III)): A. Werner's polynuclear ammines (common practice: Co(III) both).
+  it.each([
+    ['[(NH3)5Co(μ-OH)Co(NH3)5]5+', 'Co', 3, 3],
+    ['[Co(NH3)5(µ-NH2)Co(NH3)5]5+', 'Co', 3, 3],
+    // Hydrolytic Cr(III) dimer [Cr2(μ-OH)2(H2O)8]4+ (D. T. Richens, The Chemistry of Aqua Ions, 1997 — recalled).
+    ['[Cr2(μ-OH)2(H2O)8]4+', 'Cr', 3, 3],
+    // [Ru2OCl10]4−: µ-oxo Ru(IV)–O–Ru(IV) (A. M. Mathieson, D. P. Mellor & N. C. Stephenson, Acta Crystallogr. 1952, 5, 185 — recalled).
+    ['[Cl5Ru(μ-O)RuCl5]4-', 'Ru', 4, 4],
+    // Binuclear Co(III)–NC–Fe(II) from [Co(NH3)5(OH2)]3+ + [Fe(CN)6]4− (D. Gaswick & A. Haim, J. Am. Chem. Soc. 1971, 93, 7347 — recalled).
+    ['[Co(III)(NH3)5(μ-NC)Fe(II)(CN)5]-', 'Co', 3, 2],
+  ])('%s → %s centres %i / %i', (formula, metal, first, second) => {
+    const parsed = parseFormula(formula);
+    expect(parsed.centres).toHaveLength(2);
+    expect(parsed.centres?.[0]?.metal).toBe(metal);
+    expect(parsed.centres?.map((centre) => centre.oxidationState)).toEqual([first, second]);
+    const result = classifyFormula(formula);
+    expect(result.centres).toHaveLength(2);
+    for (const [index, centre] of (result.centres ?? []).entries()) {
+      // Each centre's species parses back to the same metal and oxidation state, six-coordinate.
+      expect(parseFormula(centre.species).oxidationState).toBe([first, second][index]);
+      expect(centre.coordinationNumber).toBe(6);
+    }
+  });
+
+  it('binds an ambidentate bridge by its far end to the second centre (Co–N≡C–Fe)', () => {
+    const centres = parseFormula('[Co(III)(NH3)5(μ-NC)Fe(II)(CN)5]-').centres ?? [];
+    expect(centres[0]?.ligands.map((instance) => instance.ligand.id)).toContain('NC');
+    expect(centres[1]?.species).toBe('[Fe(CN)6]4-');
+  });
+
+  it('keeps refusing metal–metal bonded species without a written bridge', () => {
+    expect(errorOf('[Co2(CO)8]').message).toMatch(/Polynuclear/);
+    expect(errorOf('[Co(NH3)5(μ-OH)]2+').message).toMatch(/two metal centres/);
+    expect(errorOf('[Co(III)(NH3)5(μ-NC)Fe(III)(CN)5]-').message).toMatch(/do not balance/);
+  });
+});
