@@ -1,13 +1,14 @@
 import { QueryClientProvider } from '@tanstack/react-query';
-import { loadAsync, useFonts } from 'expo-font';
+import { useFonts } from 'expo-font';
 import { Slot } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { queryClient } from '@/lib/api/query-client';
+import { fontsLoaded } from '@/components/ui/font-loading';
 import { fontFiles } from '@/components/ui/theme';
 
 // Ask for the shipped fonts as soon as this module runs, before anything renders; useFonts below joins
 // the same requests (expo-font keeps one load per family) and reports the outcome, errors included.
-loadAsync(fontFiles).catch(() => undefined);
+void fontsLoaded();
 
 export default function RootLayout() {
   // Fonts ship with the app (assets/fonts); an error falls back to system fonts rather than a blank page.

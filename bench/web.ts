@@ -7,7 +7,8 @@
  * script tags left them out. (b) Time from navigation to the first rendered Check result in headless
  * Chromium at 390×844, against a blank page from the same server, medians of N cold loads (a fresh
  * browser context each: no cache), alternating so noise falls on both alike; the first, unmeasured
- * load also lists the scripts requested before the result appeared (in the JSON report).
+ * load also lists the scripts requested before the result appeared (in the JSON report), and what
+ * everything received before it weighed on the wire (compressed as the server sent it).
  */
 import fs from 'node:fs';
 import path from 'node:path';
@@ -139,6 +140,12 @@ export interface FirstResultTiming {
   /** Scripts the first (unmeasured) Check load requested before its result appeared, and their gzip total. */
   scriptsBeforeResult: string[];
   scriptsBeforeResultGzipBytes: number;
+  /**
+   * Everything the browser received before the first result showed (the HTML, scripts, fonts…), as
+   * sent: compressed bytes plus headers (Resource Timing transferSize).
+   */
+  firstScreenWireBytes: number;
+  firstScreenFiles: { path: string; wireBytes: number; encoding: string }[];
 }
 
 export async function measureFirstResult(baseUrl: string, loads = 5, formula = '[Co(NH3)5Cl]Cl2'): Promise<FirstResultTiming> {
@@ -148,10 +155,16 @@ export async function measureFirstResult(baseUrl: string, loads = 5, formula = '
   const checkUrl = `${baseUrl}/check?formula=${encodeURIComponent(formula)}`;
   const blankUrl = `${baseUrl}/bench/blank`;
   let scriptsBeforeResult: string[] = [];
+  let firstScreenFiles: FirstResultTiming['firstScreenFiles'] = [];
   const timeLoad = async (url: string, listScripts = false) => {
     const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
+    const encodings = new Map<string, string>();
     if (listScripts) {
+      page.on('response', (response) => {
+        const pathname = new URL(response.url()).pathname;
+        encodings.set(pathname, response.headers()['content-encoding'] ?? 'none');
+      });
       // Page-clock time of the first frame in which the result is displayed (not merely in the DOM: the
       // app may render it hidden while its fonts load), to compare with the requests' start times.
       await page.addInitScript(() => {
@@ -176,6 +189,15 @@ export async function measureFirstResult(baseUrl: string, loads = 5, formula = '
           .filter((entry) => entry.startTime < shownAt && new URL(entry.name).pathname.endsWith('.js'))
           .map((entry) => new URL(entry.name).pathname);
       });
+      const received = await page.evaluate(() => {
+        const shownAt = (window as unknown as { resultShownAt?: number }).resultShownAt ?? Number.POSITIVE_INFINITY;
+        const entries = [
+          ...performance.getEntriesByType('navigation'),
+          ...performance.getEntriesByType('resource').filter((entry) => entry.startTime < shownAt),
+        ] as PerformanceResourceTiming[];
+        return entries.map((entry) => ({ path: new URL(entry.name).pathname, wireBytes: entry.transferSize }));
+      });
+      firstScreenFiles = received.map((file) => ({ ...file, encoding: encodings.get(file.path) ?? 'none' }));
     }
     await context.close();
     return elapsed;
@@ -206,5 +228,7 @@ export async function measureFirstResult(baseUrl: string, loads = 5, formula = '
     formula,
     scriptsBeforeResult,
     scriptsBeforeResultGzipBytes,
+    firstScreenWireBytes: firstScreenFiles.reduce((sum, file) => sum + file.wireBytes, 0),
+    firstScreenFiles,
   };
 }

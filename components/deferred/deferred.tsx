@@ -2,6 +2,7 @@ import { Component, lazy, Suspense, useEffect, useState, type ComponentProps, ty
 import { ActivityIndicator, StyleSheet, View } from 'react-native';
 import { Button } from '@/components/ui/button';
 import { AppText } from '@/components/ui/text';
+import { fontsLoaded } from '@/components/ui/font-loading';
 import { colors, spacing } from '@/components/ui/theme';
 import { loadScreens } from './load-screens';
 import type * as Screens from './screens';
@@ -59,17 +60,27 @@ export function usePreloadDeferredScreens(): void {
   }, [painted]);
 }
 
-/** False until the first render has reached the screen (the frame after it is committed), then true. */
+/**
+ * False until the first render has reached the screen (the frame after it is committed, once the
+ * fonts are in and the routes are shown), then true.
+ */
 function usePainted(already: boolean): boolean {
   const [painted, setPainted] = useState(already);
   useEffect(() => {
     if (painted) return;
+    let cancelled = false;
+    let frame: number | undefined;
     let timer: ReturnType<typeof setTimeout> | undefined;
-    const frame = requestAnimationFrame(() => {
-      timer = setTimeout(() => setPainted(true), 0);
-    });
+    // The routes stay hidden until the fonts are in (app/_layout.tsx): a frame before that showed nothing.
+    void fontsLoaded().then(() => {
+        if (cancelled) return;
+        frame = requestAnimationFrame(() => {
+          timer = setTimeout(() => setPainted(true), 0);
+        });
+      });
     return () => {
-      cancelAnimationFrame(frame);
+      cancelled = true;
+      if (frame !== undefined) cancelAnimationFrame(frame);
       if (timer !== undefined) clearTimeout(timer);
     };
   }, [painted]);
