@@ -223,8 +223,8 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   }
   const temperatureK = temperatureC + 273.15;
   const { metal, oxidationState } = parsed;
-  const ligands = settleFlexibleDenticity(parsed.ligands);
   const { element, configuration } = parsed;
+  const ligands = settleFlexibleDenticity(parsed.ligands, element?.series === '4f' || element?.series === '5f');
   if (!element || !configuration) {
     throw new FormulaError(`Cannot count electrons for ${metal} in oxidation state ${oxidationState}`, formula, 0);
   }

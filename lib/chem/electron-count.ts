@@ -16,7 +16,10 @@ export function coordinationNumber(ligands: readonly LigandInstance[]): number {
  * formula they look the same, so one of them is counted as chelating when that completes an
  * otherwise 5- or 3-coordinate sphere to 6 or 4 (common practice: [Co(NH3)4(CO3)]⁺ is six-coordinate).
  */
-export function settleFlexibleDenticity(ligands: readonly LigandInstance[]): readonly LigandInstance[] {
+export function settleFlexibleDenticity(ligands: readonly LigandInstance[], largeIon = false): readonly LigandInstance[] {
+  // Large f-block ions take O,O′-chelating nitrate, carbonate and acetate ([Ce(NO3)6]2− and
+  // [Th(NO3)6]2− are 12-coordinate: common practice, Greenwood & Earnshaw 1997).
+  if (largeIon) return chelateAllFlexible(ligands);
   const sites = coordinationNumber(ligands);
   if (sites !== 5 && sites !== 3) return ligands;
   const index = ligands.findIndex((instance) => (instance.ligand.chelatingDenticity ?? 0) > instance.ligand.denticity);
@@ -34,6 +37,26 @@ export function settleFlexibleDenticity(ligands: readonly LigandInstance[]): rea
   };
   const rest = flexible.count > 1 ? [{ ...flexible, count: flexible.count - 1 }] : [];
   return [...ligands.slice(0, index), chelating, ...rest, ...ligands.slice(index + 1)];
+}
+
+function chelateAllFlexible(ligands: readonly LigandInstance[]): readonly LigandInstance[] {
+  let changed = false;
+  const settled = ligands.map((instance) => {
+    const chelating = instance.ligand.chelatingDenticity ?? 0;
+    if (chelating <= instance.ligand.denticity) return instance;
+    changed = true;
+    const donor = instance.ligand.donorAtoms[0] ?? 'O';
+    return {
+      ...instance,
+      ligand: {
+        ...instance.ligand,
+        denticity: chelating,
+        donorAtoms: Array.from({ length: chelating }, () => donor),
+        name: instance.ligand.name.replace(/\s*\(κO, monodentate\)|\s*\(monodentate\)/, '') + ' (κ²O,O′, chelating)',
+      },
+    };
+  });
+  return changed ? settled : ligands;
 }
 
 /** Fraction of coordination sites held by ligands satisfying `test`. */
