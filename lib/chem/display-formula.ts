@@ -81,7 +81,11 @@ function subscriptCounts(body: string): string {
 export function toDisplayFormula(formula: string): string {
   const trimmed = formula.trim();
   if (trimmed === '') return '';
-  const { body, charge } = splitCharge(trimmed.replace(/\s+(?=[\^+-]?\d*[+-]?$)/, ''));
+  // A charge set off by a space ("Cr(H2O)6 3+") is a charge whatever precedes it: the digits are never a count.
+  const spaced = /^(.*\S)\s+\^?(?:(\d*)([+-])|([+-])(\d+))$/.exec(trimmed);
+  const { body, charge } = spaced
+    ? { body: spaced[1] ?? '', charge: superscriptCharge(spaced[2] || spaced[5] || '1', (spaced[3] ?? spaced[4]) as '+' | '-') }
+    : splitCharge(trimmed.replace(/\s+(?=[\^+-]?\d*[+-]?$)/, ''));
   // Hydrate separators ".", "*", "·" (with optional spaces) become one middle dot.
   const parts = body.split(/\s*[.*·]\s*/);
   return parts.map(subscriptCounts).join(HYDRATE_DOT) + charge;
