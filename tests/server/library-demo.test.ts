@@ -25,7 +25,25 @@ const signedIn = async (email: string) => {
   return browser;
 };
 
+const RESEARCH_MARKERS = /from memory|CONFLICT|conflict:|secondary page|mirror|\/work\/|shared\/science|\b\w+\.json\b|https?:\/\/(?!doi\.org)|tripod|studylib|zhenzhi|datapdf|numerade|provenance:/i;
+
 describe('the Larkspur demo library', () => {
+  it('exports and shows clean references only: no research notes in CSV, BibTeX, RIS or entry pages', async () => {
+    const curator = await signedIn('curator@larkspur.example.org');
+    for (const path of ['library.csv', 'citations.bib', 'citations.ris']) {
+      const response = await curator.get(`/api/exports/${path}?groupId=${groupId}`);
+      expect(response.status).toBe(200);
+      const text = response.text || Buffer.from(response.body as Buffer).toString('utf8');
+      expect(text.length).toBeGreaterThan(100);
+      expect(text).not.toMatch(RESEARCH_MARKERS);
+    }
+    const all = complexListResponseSchema.parse((await curator.get(`/api/complexes?groupId=${groupId}&pageSize=100`)).body);
+    for (const item of all.items) {
+      const detail = await curator.get(`/api/complexes/${item.id}`);
+      expect(JSON.stringify(detail.body)).not.toMatch(RESEARCH_MARKERS);
+    }
+  });
+
   it('holds every entry of data/demo-library.json, a few in each workflow state', async () => {
     const curator = await signedIn('curator@larkspur.example.org');
     const all = complexListResponseSchema.parse((await curator.get(`/api/complexes?groupId=${groupId}&pageSize=100`)).body);
