@@ -14,6 +14,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import { chromium, type Browser } from 'playwright-core';
+import { LANDING_ROUTE, LAYOUT_ROUTE, routeChunks } from '@/server/web/route-chunks';
 import { median } from './stats';
 
 export interface BundleFile {
@@ -55,33 +56,6 @@ function largestModules(source: string, top: number): { count: number; modules: 
   modules.sort((a, b) => b.rawBytes - a.rawBytes);
   return { count: starts.length, modules: modules.slice(0, top) };
 }
-
-/**
- * The route chunks of the export, by route file ("./(tabs)/index.tsx" → "/_expo/static/js/web/index-….js"),
- * read from the entry's route context module: each route's getter names a dependency index, and the
- * module's dependency map carries the chunk path of each async dependency under "paths".
- */
-export function routeChunks(entrySource: string): Map<string, string> {
-  const anchor = entrySource.indexOf('"./_layout.tsx"');
-  if (anchor < 0) throw new Error('bench/web.ts: no route context ("./_layout.tsx") in the entry chunk; update routeChunks()');
-  const start = entrySource.lastIndexOf('__d(function', anchor);
-  const next = entrySource.indexOf('__d(function', anchor);
-  const moduleText = entrySource.slice(start, next < 0 ? entrySource.length : next);
-  const dependencyMapText = /,\d+,(\{"0":[^]*?"paths":\{[^}]*\}\})\)/.exec(moduleText)?.[1];
-  if (!dependencyMapText) throw new Error('bench/web.ts: the route context has no chunk paths; update routeChunks()');
-  const dependencyMap = JSON.parse(dependencyMapText) as Record<string, number> & { paths: Record<string, string> };
-  const chunks = new Map<string, string>();
-  for (const match of moduleText.matchAll(/"(\.\/[^"]+)":\{[^{}]*?\w+\[(\d+)\],\w+\.paths\)/g)) {
-    const moduleId = dependencyMap[match[2] ?? ''];
-    const chunk = moduleId === undefined ? undefined : dependencyMap.paths[String(moduleId)];
-    if (match[1] && chunk) chunks.set(match[1], chunk);
-  }
-  return chunks;
-}
-
-/** The landing route: app/index or the index of a (group) at the root, e.g. "./(tabs)/index.tsx". */
-const LANDING_ROUTE = /^\.\/(\([^/]+\)\/)?index\.tsx?$/;
-const LAYOUT_ROUTE = /(^|\/)_layout\.tsx?$/;
 
 export function measureBundle(webDir: string): BundleResult {
   const indexHtml = fs.readFileSync(path.join(webDir, 'index.html'), 'utf8');
@@ -168,13 +142,16 @@ export async function measureFirstResult(baseUrl: string, loads = 5, formula = '
       // Page-clock time of the first frame in which the result is displayed (not merely in the DOM: the
       // app may render it hidden while its fonts load), to compare with the requests' start times.
       await page.addInitScript(() => {
+        // Polled on a short timer: a requestAnimationFrame loop started this early stops before the app
+        // renders in headless Chromium, which left the mark unset and counted every later request.
         const marks = window as unknown as { resultShownAt?: number };
-        const look = () => {
+        const timer = setInterval(() => {
           const result = document.querySelector<HTMLElement>('[data-testid="check-result"]');
-          if (result && result.offsetParent !== null) marks.resultShownAt = performance.now();
-          else requestAnimationFrame(look);
-        };
-        requestAnimationFrame(look);
+          if (result && result.offsetParent !== null) {
+            marks.resultShownAt = performance.now();
+            clearInterval(timer);
+          }
+        }, 5);
       });
     }
     const started = performance.now();

@@ -2,12 +2,13 @@ import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { precompressWebApp } from './web/compress';
+import { addPreloads } from './web/preload';
 
 /** Sources whose change makes the exported web app stale. */
 const SOURCES = ['app', 'components', 'lib', 'data', 'assets', 'app.json', 'package-lock.json', 'babel.config.js'];
 const STAMP = '.sphereline-build.json';
-/** Bumped when the build's output changes shape (2: pre-compressed copies), so older builds are redone. */
-const BUILD_FORMAT = 2;
+/** Bumped when the build's output changes shape (2: pre-compressed copies; 3: preload links), so older builds are redone. */
+const BUILD_FORMAT = 3;
 
 function newestMtimeMs(entry: string): number {
   if (!fs.existsSync(entry)) return 0;
@@ -50,11 +51,12 @@ export async function buildWeb(root: string, webDir: string, log: (line: string)
       code === 0 ? resolve() : reject(new Error(`Web export failed (exit ${code}):\n${output.slice(-4000)}`)),
     );
   });
+  const preloaded = addPreloads(webDir);
   const compressed = precompressWebApp(webDir);
   fs.writeFileSync(path.join(webDir, STAMP), JSON.stringify({ sourcesMtimeMs, format: BUILD_FORMAT, builtAt: new Date().toISOString() }));
   const kb = (bytes: number) => `${Math.round(bytes / 1024)} KB`;
   log(
-    `Web app built in ${((Date.now() - started) / 1000).toFixed(1)} s; ${compressed.files} files pre-compressed ` +
+    `Web app built in ${((Date.now() - started) / 1000).toFixed(1)} s; ${preloaded.length} files preloaded, ${compressed.files} pre-compressed ` +
       `(${kb(compressed.rawBytes)} → brotli ${kb(compressed.brotliBytes)}, gzip ${kb(compressed.gzipBytes)}).`,
   );
 }

@@ -2,7 +2,7 @@ import { Component, lazy, Suspense, useEffect, useState, type ComponentProps, ty
 import { ActivityIndicator, StyleSheet, View } from 'react-native';
 import { Button } from '@/components/ui/button';
 import { AppText } from '@/components/ui/text';
-import { fontsLoaded } from '@/components/ui/font-loading';
+import { routesShown } from '@/components/ui/font-loading';
 import { colors, spacing } from '@/components/ui/theme';
 import { loadScreens } from './load-screens';
 import type * as Screens from './screens';
@@ -72,7 +72,7 @@ function usePainted(already: boolean): boolean {
     let frame: number | undefined;
     let timer: ReturnType<typeof setTimeout> | undefined;
     // The routes stay hidden until the fonts are in (app/_layout.tsx): a frame before that showed nothing.
-    void fontsLoaded().then(() => {
+    void routesShown().then(() => {
         if (cancelled) return;
         frame = requestAnimationFrame(() => {
           timer = setTimeout(() => setPainted(true), 0);
