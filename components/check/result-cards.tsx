@@ -58,6 +58,16 @@ export function IdentityCard({ result }: { result: Classification }) {
           <FormulaText formula={reading.species} />
         </View>
       ))}
+      {result.centres ? (
+        <View testID="dinuclear-centres">
+          {result.centres.map((centre, index) => (
+            <View key={`${index}:${centre.species}`} style={styles.readAs}>
+              <AppText variant="label" tone="soft">{`Centre ${index + 1} · ${centre.metal}(${roman(centre.oxidationState)}) · ${centre.verdict}`}</AppText>
+              <FormulaText formula={centre.species} />
+            </View>
+          ))}
+        </View>
+      ) : null}
       {result.warnings?.map((warning) => (
         <AppText key={warning} tone="danger" testID="formula-warning">{warning}</AppText>
       ))}

@@ -205,6 +205,15 @@ const SUBSCRIPT_DIGIT_BASE = 0x2080; // ₀
  * elsewhere stay: they are a charge.
  */
 export function normalizeFormula(input: string): string {
+  // Most formulas are plain ASCII: nothing to map, and no string to build.
+  let ascii = true;
+  for (let index = 0; index < input.length; index++) {
+    if (input.charCodeAt(index) > 127) {
+      ascii = false;
+      break;
+    }
+  }
+  if (ascii) return input;
   let out = '';
   let changed = false;
   for (let index = 0; index < input.length; index++) {
@@ -502,7 +511,10 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
       addLigand(ligands, ligand, token, count, position + 1);
       continue;
     }
-    const chargeOrHydrate = isPlus(ch) || isMinus(ch) || ch === '^' || HYDRATE_SEPARATORS.has(ch) || SUPERSCRIPT_DIGITS.has(ch);
+    // Letters start ligands: only other characters can be a charge or a hydrate separator.
+    const code = ch.charCodeAt(0);
+    const letter = (code >= 65 && code <= 90) || (code >= 97 && code <= 122);
+    const chargeOrHydrate = !letter && (isPlus(ch) || isMinus(ch) || ch === '^' || HYDRATE_SEPARATORS.has(ch) || SUPERSCRIPT_DIGITS.has(ch));
     if (!bracketed && chargeOrHydrate) break;
     if (chargeOrHydrate) missingBracket(scanner, openPosition, position);
     const match = scanner.matchLongest(ligandTokensByFirstChar);
@@ -792,7 +804,10 @@ export function trivialNameTable(): readonly { name: string; aliases: readonly s
   return trivialNames;
 }
 
-// A name has a space, an apostrophe or only lower-case letters; a formula starts with a capital (or '(' / a descriptor).
+// A name starts in lower case, or has a space, an apostrophe or a capitalised word with a hyphen
+// ("Gd-DOTA"); a formula starts with a capital and has none of these.
+const MAYBE_NAME = /^\s*[a-z]|[\s'’‘`]\S|^\s*[A-Z][a-z]?-/;
+
 function readTrivialName(text: string, input: string): ParsedCore | null {
   const key = nameKey(text);
   if (key.length < 4) return null;
@@ -1028,7 +1043,7 @@ function parseCore(input: string): ParsedCore {
   const text = normalizeFormula(input);
   const scanner: FormulaScanner = new FormulaScanner(text, input);
   if (scanner.atEnd()) scanner.fail('The formula is empty', 0);
-  if (text.indexOf('[') < 0) {
+  if (text.indexOf('[') < 0 && MAYBE_NAME.test(text)) {
     const named = readTrivialName(text, input);
     if (named !== null) return named;
   }
@@ -1089,7 +1104,8 @@ function parseCore(input: string): ParsedCore {
     const openPosition = scanner.pos;
     scanner.pos++; // '['
     const close = text.indexOf(']', openPosition);
-    const bridged = close > openPosition && text.slice(openPosition, close).includes('μ');
+    const bridge = text.indexOf('μ', openPosition);
+    const bridged = bridge >= 0 && bridge < close;
     if (bridged) {
       dinuclear = readDinuclear(scanner, openPosition, close);
       inner = dinuclear.inner;
