@@ -40,6 +40,24 @@ describe('POST /api/classify', () => {
     expect(typeof response.body.error.position).toBe('number');
   });
 
+  // Green CrCl3·6H2O is trans-[CrCl2(H2O)4]Cl·2H2O (Dance & Freeman, Inorg. Chem. 1965, 4, 1555 — recalled).
+  it('answers for salts, names and bridged species as written, saying what it read', async () => {
+    const response = await post('/api/classify', { formulas: ['CrCl3·6H2O', 'cisplatin', '[(NH3)5Co(μ-OH)Co(NH3)5]5+', '[Fe(H2O)6]'] });
+    expect(response.status).toBe(200);
+    const [salt, name, bridged, uncharged] = response.body as Record<string, unknown>[];
+    expect(salt).toMatchObject({ metal: 'Cr', oxidationState: 3, coordinationNumber: 6, readings: [expect.objectContaining({ kind: 'solid', species: 'trans-[CrCl2(H2O)4]Cl·2H2O' })] });
+    expect(name).toMatchObject({ metal: 'Pt', oxidationState: 2, readings: [expect.objectContaining({ kind: 'name' })] });
+    expect((bridged as { centres: unknown[] }).centres).toHaveLength(2);
+    expect((uncharged as { warnings: string[] }).warnings[0]).toMatch(/taken as neutral/);
+  });
+
+  it('points at the missing bracket, not at the charge', async () => {
+    const response = await post('/api/classify', { formula: '[Co(NH3)5Cl2+' });
+    expect(response.status).toBe(400);
+    expect(response.body.error.position).toBe(11);
+    expect(response.body.error.fields.formula).toMatch(/Missing '\]' at character 12/);
+  });
+
   it.each([
     [{}, 'formula'],
     [{ formula: 42 }, 'formula'],
