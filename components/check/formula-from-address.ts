@@ -20,8 +20,44 @@ export function formulaFromQuery(search: string, name = 'formula'): string | nul
   return null;
 }
 
-export function formulaFromAddress(routerValue: string | undefined): string {
+/** Form decoding as the router applies it: '+' is a space, then percent-escapes. */
+function formDecoded(raw: string): string {
+  try {
+    return decodeURIComponent(raw.replace(/\+/g, ' '));
+  } catch {
+    return raw;
+  }
+}
+
+function currentSearch(): string | null {
   const location = typeof window === 'undefined' ? undefined : (window as { location?: { search?: string } }).location;
-  const fromQuery = typeof location?.search === 'string' ? formulaFromQuery(location.search) : null;
-  return fromQuery ?? routerValue ?? '';
+  return typeof location?.search === 'string' ? location.search : null;
+}
+
+// The address as the page was opened: the router may rewrite it (form-decoded and re-encoded, the
+// '+' lost) before the Check screen first renders, so it is read once, when this module loads.
+const searchAtLoad = currentSearch();
+
+function rawFormula(search: string | null): string | null {
+  if (search === null) return null;
+  const query = search.startsWith('?') ? search.slice(1) : search;
+  for (const part of query.split('&')) {
+    if (part.startsWith('formula=')) return part.slice('formula='.length);
+  }
+  return null;
+}
+
+/**
+ * The Check screen's formula from the address: the raw query (now or as the page was opened) when it
+ * is the same link the router read, so a '+' that the router turned into a space is restored.
+ */
+export function formulaFromAddress(routerValue: string | undefined): string {
+  for (const search of [searchAtLoad, currentSearch()]) {
+    const raw = rawFormula(search);
+    if (raw === null) continue;
+    if (routerValue === undefined || formDecoded(raw) === routerValue || formDecoded(raw).trim() === routerValue.trim()) {
+      return formulaFromQuery(`formula=${raw}`) ?? routerValue ?? '';
+    }
+  }
+  return routerValue ?? '';
 }

@@ -62,3 +62,22 @@ describe('measured meets predicted', () => {
     await context.close();
   });
 });
+
+describe('formulas as written', () => {
+  it('keeps a raw + in a typed deep link and reads a hydrate as the species it gives', async () => {
+    const page = await browser.newPage({ viewport: viewports.wide });
+    // Typed into the address bar as is: the '+' must stay a charge, not become a space.
+    await page.goto(`${baseUrl()}/check?formula=[Co(NH3)6]3+`);
+    await page.getByTestId('check-result').waitFor();
+    // Hexaamminecobalt(III): d6 low spin, inert (common practice; Taube 1952).
+    assert.match(await page.getByTestId('identity-card').innerText(), /Co\(III\)[\s\S]*d6/);
+
+    // Commercial green CrCl3·6H2O is trans-[CrCl2(H2O)4]Cl·2H2O (Dance & Freeman, Inorg. Chem. 1965, 4, 1555 — recalled).
+    await page.getByTestId('formula-input').fill('CrCl3·6H2O');
+    await page.getByTestId('read-as').waitFor();
+    assert.match(await page.getByTestId('read-as').innerText(), /solid[\s\S]*CrCl₂\(H₂O\)₄/i);
+    assert.match(await page.getByTestId('verdict-card').innerText(), /read as the complex in the solid/i);
+    await screenshot(page, 'check-hydrate-read-as-wide');
+    await page.close();
+  });
+});
