@@ -93,9 +93,11 @@ export function IdentityCard({ result }: { result: Classification }) {
   );
 }
 
+const DELTA_O_LABELS = { measured: 'Δo (measured)', estimated: 'Δo (estimate)', rough: 'Δo (rough)' } as const;
+
 export function LigandFieldCard({ result }: { result: Classification }) {
   const items: { label: string; value: string }[] = [];
-  if (result.deltaOcm !== null) items.push({ label: 'Δo (estimate)', value: `${groupedInteger(result.deltaOcm)} cm⁻¹` });
+  if (result.deltaOcm !== null) items.push({ label: DELTA_O_LABELS[result.deltaOBasis ?? 'estimated'], value: `${groupedInteger(result.deltaOcm)} cm⁻¹` });
   if (result.lfseDq !== null) items.push({ label: 'LFSE', value: `${result.lfseDq} Dq` });
   if (result.lfseKJPerMol !== null) items.push({ label: 'LFSE', value: `${result.lfseKJPerMol.toFixed(0)} kJ/mol` });
   if (result.activationEnergyDq) {
@@ -124,8 +126,13 @@ export function LigandFieldCard({ result }: { result: Classification }) {
       )}
       {items.length > 0 ? <KeyValueGrid items={items} /> : null}
       <AppText variant="caption" tone="muted">
-        Δo from Jørgensen’s f·g; crystal-field activation energies (CFAE) for square-pyramidal (dissociative) and
-        pentagonal-bipyramidal (associative) transition states, after Basolo & Pearson.
+        {result.deltaOBasis === 'measured' && result.deltaOSource
+          ? `Δo measured for this complex (${result.deltaOSource.source}). `
+          : result.deltaOBasis === 'rough'
+            ? 'Δo a rough value: no published g for this ion or no f for a ligand. '
+            : 'Δo estimated from Jørgensen’s f·g, with π-acceptor ligands weighted up for back-bonding. '}
+        The same Δo is used in every line of this answer. Crystal-field activation energies (CFAE) for square-pyramidal
+        (dissociative) and pentagonal-bipyramidal (associative) transition states, after Basolo & Pearson.
       </AppText>
     </Card>
   );

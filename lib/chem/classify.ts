@@ -10,14 +10,18 @@ import * as lability from './lability';
 import * as metalIons from './metal-ions';
 import * as numberFormat from './number-format';
 import type { ElectronConfiguration, MetalElement } from './metal-ions';
+import * as measuredDeltaOModule from './measured-delta-o';
+import * as orbitalFilling from './orbital-filling';
 import { FormulaError, type Classification, type ClassifyOptions, type LigandInstance, type MeasuredRate } from './types';
 
 // Under tsx (the server, the bench, scripts) every module is compiled to CommonJS and each use of
 // an imported name becomes a call through a shared getter, a measurable cost in a function that
 // makes ~25 such calls per formula. The names are read once, here. (No import cycles reach classify.)
 const { cautionsFor } = cautionsModule;
+const { measuredDeltaOFor } = measuredDeltaOModule;
+const { fillOrbitals, splittingSchemeFor } = orbitalFilling;
 const { coordinationNumber, predictGeometry, valenceElectronCount, settleFlexibleDenticity } = electronCounting;
-const { parseFormulaWithMolarMass, formatCharge } = formulaParser;
+const { parseFormulaWithMolarMass } = formulaParser;
 const {
   KJ_PER_MOL_PER_CM,
   activationEnergyDq,
@@ -241,24 +245,38 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   const hasLigandField = isDBlock && dElectrons > 0 && dElectrons < 10;
   const deltaO = hasLigandField ? estimateDeltaO(ligands, ion) : null;
 
-  const spin = decideSpin({ dElectrons, electronShell, element, ion, oxidationState, geometry, ligands, deltaO });
-  const spinForCounting = spin.spinState ?? 'high';
-  const occupancy = isDBlock ? octahedralOccupancy(dElectrons, spinForCounting) : null;
-
-  // Reported numbers use the plain Jørgensen f·g; the barrier uses the π-weighted estimate.
-  let kineticDeltaOcm: number | null = deltaO?.effectiveDeltaOcm ?? null;
-  let deltaORough = deltaO === null || deltaO.fEstimated || deltaO.gKind === 'aqua';
-  if (hasLigandField && deltaO === null) {
+  // One Δo for the whole answer: a published measurement of this species, else the f·g estimate
+  // with π-acceptors weighted up for back-bonding, else a rough value (labelled so). Every reason,
+  // card, the spin decision and the rate use it.
+  const measuredDeltaO = hasLigandField && geometry === 'octahedral' ? measuredDeltaOFor({ metal, oxidationState, ligands }) : null;
+  let answerDeltaOcm: number | null = null;
+  let deltaOBasis: Classification['deltaOBasis'];
+  let deltaORough = false;
+  if (measuredDeltaO) {
+    answerDeltaOcm = measuredDeltaO.deltaOcm;
+    deltaOBasis = 'measured';
+  } else if (deltaO) {
+    answerDeltaOcm = Math.round(deltaO.effectiveDeltaOcm);
+    deltaOBasis = 'estimated';
+    deltaORough = deltaO.fEstimated || deltaO.gKind === 'aqua';
+  } else if (hasLigandField) {
     const average = averageLigandFactor(ligands);
     const roughG = (ROUGH_G_3D[Math.max(0, Math.min(oxidationState, 8))] ?? 17) * (ROW_FACTOR[element.series] ?? 1);
-    kineticDeltaOcm = (average?.fEffective ?? 1) * roughG * 1000;
+    answerDeltaOcm = Math.round(((average?.fEffective ?? 1) * roughG * 1000) / 100) * 100;
+    deltaOBasis = 'rough';
     deltaORough = true;
   }
+
+  // A rough Δo is not trusted to decide the spin: the usual rules of thumb do.
+  const spin = decideSpin({ dElectrons, electronShell, element, ion, oxidationState, geometry, ligands, deltaOcm: deltaOBasis === 'rough' ? null : answerDeltaOcm });
+  const spinForCounting = spin.spinState ?? 'high';
+  const occupancy = isDBlock ? octahedralOccupancy(dElectrons, spinForCounting) : null;
+  const kineticDeltaOcm = answerDeltaOcm;
 
   let lfseDq: number | null = null;
   if (isDBlock && geometry === 'octahedral') lfseDq = octahedralLfseDq(dElectrons, spinForCounting);
   else if (isDBlock && geometry === 'tetrahedral') lfseDq = Math.round(tetrahedralLfseDq(dElectrons) * 100) / 100;
-  const deltaOcm = deltaO?.deltaOcm ?? null;
+  const deltaOcm = answerDeltaOcm;
   const dqKJ = deltaOcm === null ? null : (deltaOcm / 10) * KJ_PER_MOL_PER_CM;
   const lfseKJPerMol = lfseDq !== null && dqKJ !== null ? lfseDq * dqKJ : null;
   const cfae = isDBlock && geometry === 'octahedral' ? activationEnergyDq(dElectrons, spinForCounting) : null;
@@ -286,12 +304,20 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   reasons.push(summaryReason(element, oxidationState, configuration, parsed.complexCharge, parsed.counterIons.length > 0, cn, geometry, geometrySource === 'given'));
   if (hasNitrosyl) reasons.push('nitrosyl counted as NO⁺ (linear, 2-electron donor) by convention');
   if (hasHapticLigand) reasons.push('η5-cyclopentadienyl counted as three coordination sites (6-electron donor) by convention');
-  if (deltaO !== null) {
-    reasons.push(deltaOReason(deltaO.fAverage, deltaO.g, deltaO.gKind === 'aqua', deltaO.fEstimated, deltaO.deltaOcm));
-    if (geometry === 'tetrahedral') reasons.push(`tetrahedral: Δt ≈ 4/9 Δo ≈ ${Math.round((deltaO.deltaOcm * 4) / 9)} cm⁻¹`);
+  if (measuredDeltaO) {
+    reasons.push(`Δo = ${measuredDeltaO.deltaOcm} cm⁻¹, measured for ${measuredDeltaO.species} (${measuredDeltaO.source})`);
+  } else if (deltaO !== null) {
+    const fgText = deltaOReason(deltaO.fAverage, deltaO.g, deltaO.gKind === 'aqua', deltaO.fEstimated, deltaO.deltaOcm);
+    const piFactor = deltaO.effectiveDeltaOcm / deltaO.deltaOcm;
+    reasons.push(
+      piFactor > 1.001
+        ? `Δo ≈ ${answerDeltaOcm} cm⁻¹: π-acceptor ligands raised ×${formatFixed(piFactor, 2)} for back-bonding over ${fgText.replace(/^Δo ≈ /, '')} (weights calibrated on the measured Δo of the hexacyanoferrates and of the tris(diimine)iron(II) spin states)`
+        : fgText,
+    );
   } else if (hasLigandField) {
-    reasons.push(`Δo not estimable: no published g for ${ionLabel(metal, oxidationState)}${ligandWithoutF ? ' or no f for a ligand' : ''}; a rough value is used for the rate`);
+    reasons.push(`Δo ≈ ${answerDeltaOcm} cm⁻¹, a rough value: no published g for ${ionLabel(metal, oxidationState)}${ligandWithoutF ? ' or no f for a ligand' : ''}`);
   }
+  if (answerDeltaOcm !== null && geometry === 'tetrahedral') reasons.push(`tetrahedral: Δt ≈ ${Math.round((answerDeltaOcm * 4) / 9)} cm⁻¹ (4/9 of the octahedral Δo)`);
   if (spin.spinState !== null) {
     reasons.push(`${spin.spinState} spin: ${spin.basis}`);
     if (spin.nearSpinCrossover) reasons.push('near spin crossover: Δo and the pairing energy are close — check the spin state experimentally');
@@ -363,6 +389,8 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     ligands: ligandSummaries(ligands),
     nearSpinCrossover: spin.nearSpinCrossover,
     deltaOcm,
+    ...(deltaOBasis ? { deltaOBasis } : {}),
+    ...(measuredDeltaO ? { deltaOSource: { source: measuredDeltaO.source, checked: measuredDeltaO.checked } } : {}),
     lfseDq,
     lfseKJPerMol: lfseKJPerMol === null ? null : Math.round(lfseKJPerMol * 10) / 10,
     activationEnergyDq: cfae,
@@ -377,7 +405,8 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     hints,
     fElectrons,
     predictedLogKPerSecond: Math.round(predictedLogK * 100) / 100,
-    unpairedElectrons: occupancy && hasLigandField && (geometry === 'octahedral') ? occupancy.unpaired : null,
+    // Read off the same filling the orbital diagram draws, for every geometry with a splitting picture.
+    unpairedElectrons: isDBlock && splittingSchemeFor(geometry) !== 'degenerate' ? fillOrbitals(dElectrons, geometry, spin.spinState).unpairedElectrons : null,
     valenceElectronCount: electronCount ?? undefined,
     ...(parsed.readings.length > 0 ? { readings: parsed.readings.map(readingSummary) } : {}),
     ...(parsed.warnings.length > 0 ? { warnings: parsed.warnings.slice() } : {}),
@@ -471,7 +500,7 @@ export function classifyMany(formulas: readonly string[], options?: ClassifyOpti
 function buildSummaryReason(element: MetalElement, oxidationState: number, configuration: ElectronConfiguration, complexCharge: number, fromCounterIons: boolean, cn: number, geometry: string, given: boolean): string {
   const { dElectrons, fElectrons, electronShell } = configuration;
   const shellText = electronShell === 'f' ? `f${fElectrons}` : electronShell === 'sp' ? (dElectrons === 10 ? 'd10 (main group)' : 'noble-gas core (main group)') : `d${dElectrons}`;
-  return `${ionLabel(element.symbol, oxidationState)}, ${shellText}; charge ${formatCharge(complexCharge)}${fromCounterIons ? ' (from the counter-ions)' : ''}; coordination number ${cn}, ${geometry}${given ? ' (given)' : ''}`;
+  return `${ionLabel(element.symbol, oxidationState)}, ${shellText}; charge ${chargeInWords(complexCharge)}${fromCounterIons ? ' (from the counter-ions)' : ''}; coordination number ${cn}, ${geometry}${given ? ' (given)' : ''}`;
 }
 
 // The first reason depends on the ion (its configuration follows from element and oxidation
@@ -482,6 +511,12 @@ const SUMMARY_MEMO_LIMIT = 4096;
 const summaryReasons = new Map<number, string>();
 // Geometry → index for the key (a scan: identical strings compare by pointer, cheaper than a hash).
 const GEOMETRY_KEYS: readonly string[] = ['octahedral', 'tetrahedral', 'square-planar', 'linear', 'trigonal-planar', 'trigonal-bipyramidal', 'square-pyramidal', 'pentagonal-bipyramidal', 'square-antiprismatic', 'tricapped-trigonal-prismatic', 'other'];
+
+/** A charge in running text: 0, +3, −1 (a lone "-" for 1− reads as a glitch in prose). */
+function chargeInWords(charge: number): string {
+  if (charge === 0) return '0';
+  return `${charge > 0 ? '+' : '−'}${Math.abs(charge)}`;
+}
 
 function summaryReason(element: MetalElement, oxidationState: number, configuration: ElectronConfiguration, complexCharge: number, fromCounterIons: boolean, cn: number, geometry: string, given: boolean): string {
   const geometryIndex = GEOMETRY_KEYS.indexOf(geometry);

@@ -217,7 +217,7 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
     const taubeInert = octahedralLike && input.egElectrons === 0 && input.vacantT2g === 0 && d >= 3 && d <= 6;
     if (taubeInert) {
       logK += TAUBE_INERT_CLASS;
-      reasons.push(d === 3 ? `d3 with ${zText} charge: half-filled t2g and empty e_g, no easy path in or out` : `low-spin d${d}: filled t2g set, no vacant orbital to attack and no e_g electron to weaken the bonds`);
+      reasons.push(taubeInertReason(d, zText));
     }
     if (octahedralLike && input.activationEnergyDq !== null) {
       const cfaeDq = Math.min(input.activationEnergyDq.dissociative, input.activationEnergyDq.associative);
@@ -238,7 +238,9 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
       logK += JAHN_TELLER_STRONG;
       reasons.push('strong Jahn–Teller distortion: the long, weak axial bonds exchange very fast');
     }
-    if (input.series === '4d' || input.series === '5d') {
+    // The heavier rows' stronger, more covalent bonds slow exchange only where a ligand field is lost
+    // on the way to the transition state: not for d0 or d10 (Ag⁺, Cd²⁺, Hg²⁺ exchange fast).
+    if ((input.series === '4d' || input.series === '5d') && d > 0 && d < 10) {
       logK += HEAVY_ROW;
       reasons.push(`${input.series} metal: larger Δo and stronger bonds than its 3d congener`);
     }
@@ -254,6 +256,13 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
     reasons.push('chelating ligands: all teeth must let go, slower dissociation');
   }
   return { logKPerSecond: clamp(logK), reasons, roughness, model: 'aqua-type' };
+}
+
+/** Why an octahedral d3 or low-spin d4–d6 ion is slow, in words true for each count. */
+function taubeInertReason(d: number, zText: string): string {
+  if (d === 3) return `d3 with ${zText} charge: each t2g orbital singly occupied (t2g³), e_g empty: no empty orbital to accept an entering ligand and no e_g electron to weaken the bonds`;
+  if (d === 6) return 'low-spin d6: t2g set filled (t2g⁶), e_g empty: no empty orbital to accept an entering ligand and no e_g electron to weaken the bonds';
+  return `low-spin d${d}: t2g${d === 4 ? '⁴' : '⁵'} leaves no t2g orbital empty (the vacancy is a half-filled orbital, not an empty one) and e_g is empty: no easy associative path and no e_g electron to weaken the bonds`;
 }
 
 function clamp(logK: number): number {

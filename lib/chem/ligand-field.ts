@@ -220,9 +220,10 @@ export function decideSpin(params: {
   oxidationState: number;
   geometry: Geometry;
   ligands: readonly LigandInstance[];
-  deltaO: DeltaOEstimate | null;
+  /** The answer's Δo (measured, or the π-weighted estimate); null when none could be estimated. */
+  deltaOcm: number | null;
 }): SpinDecision {
-  const { dElectrons: d, electronShell, element, ion, geometry, ligands, deltaO, oxidationState } = params;
+  const { dElectrons: d, electronShell, element, ion, geometry, ligands, deltaOcm, oxidationState } = params;
   if (electronShell !== 'd' || d === 0 || d === 10) return noSpinChoice('no spin choice (d0, d10 or not a d-block ion)');
   if (geometry === 'tetrahedral') {
     return { spinState: 'high', nearSpinCrossover: false, hasChoice: d >= 3 && d <= 6, basis: 'tetrahedral: Δt ≈ 4/9 Δo is far below any pairing energy, so high spin', pairingEnergyCm: null };
@@ -242,17 +243,22 @@ export function decideSpin(params: {
     sites += n;
     if (STRONG_PI_ACCEPTOR_IDS.has(instance.ligand.id) || instance.ligand.organometallic === true) strongSites += n;
   }
-  if (sites > 0 && strongSites / sites >= 0.5) {
-    return { spinState: 'low', nearSpinCrossover: false, hasChoice: true, basis: 'cyanide, carbonyl or organometallic ligands dominate: Δo far above the pairing energy, low spin (common practice)', pairingEnergyCm: null };
-  }
   const freeIonPairing = ion?.pairingEnergyCm ?? null;
-  if (deltaO === null) {
+  if (sites > 0 && strongSites / sites >= 0.5) {
+    const pairing = freeIonPairing === null ? null : freeIonPairing * PAIRING_REDUCTION;
+    const basis =
+      deltaOcm !== null && pairing !== null && deltaOcm > pairing
+        ? `cyanide, carbonyl or organometallic ligands dominate: Δo ≈ ${Math.round(deltaOcm)} cm⁻¹ is above the pairing energy in the complex (≈ ${Math.round(pairing)} cm⁻¹), low spin`
+        : 'cyanide, carbonyl or organometallic ligands dominate: their complexes are low spin (common practice)';
+    return { spinState: 'low', nearSpinCrossover: false, hasChoice: true, basis, pairingEnergyCm: pairing };
+  }
+  if (deltaOcm === null) {
     // No Δo: high oxidation states and amine-or-stronger ligand sets go low spin (common practice).
     const low = oxidationState >= 4;
-    return { spinState: low ? 'low' : 'high', nearSpinCrossover: false, hasChoice: true, basis: low ? 'no Δo estimate; high oxidation state taken as low spin (common practice)' : 'no Δo estimate; 3d ion taken as high spin (common practice)', pairingEnergyCm: null };
+    return { spinState: low ? 'low' : 'high', nearSpinCrossover: false, hasChoice: true, basis: low ? 'Δo only roughly known: a high oxidation state is taken as low spin (common practice)' : 'Δo only roughly known: a 3d ion is taken as high spin (common practice)', pairingEnergyCm: null };
   }
   const reducedPairing = (freeIonPairing ?? FALLBACK_FREE_ION_PAIRING_CM) * PAIRING_REDUCTION;
-  const effective = deltaO.effectiveDeltaOcm;
+  const effective = deltaOcm;
   const low = effective > reducedPairing;
   const near = Math.abs(effective - reducedPairing) / reducedPairing < CROSSOVER_WINDOW;
   const pairingText = freeIonPairing === null ? `an assumed pairing energy (~${Math.round(reducedPairing)} cm⁻¹, rough)` : `the pairing energy reduced in the complex (0.8 × ${freeIonPairing} = ${Math.round(reducedPairing)} cm⁻¹)`;

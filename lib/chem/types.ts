@@ -180,7 +180,12 @@ export interface Classification {
   molarMassGPerMol: number;
   ligands: { id: string; name: string; count: number; donorAtoms: string[]; charge: number }[];
   nearSpinCrossover: boolean;
+  /** The one Δo of this answer (cm⁻¹), used in every reason, card, the spin decision and the rate. */
   deltaOcm: number | null;
+  /** Where deltaOcm comes from: a published measurement, the f·g estimate (π-acceptors weighted), or a rough guess. */
+  deltaOBasis?: 'measured' | 'estimated' | 'rough';
+  /** The publication of a measured Δo. */
+  deltaOSource?: { source: string; checked: Checked };
   lfseDq: number | null;
   lfseKJPerMol: number | null;
   activationEnergyDq: { dissociative: number; associative: number } | null;
