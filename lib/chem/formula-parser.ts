@@ -591,6 +591,8 @@ function readIons(
             position,
           );
         }
+        if (ch === ']') scanner.fail(`Extra ']' at character ${position + 1}: it closes nothing`, position);
+        if (ch === ')') scanner.fail(`')' at character ${position + 1} closes nothing`, position);
         scanner.fail(`Unknown ${kind} '${token}' at character ${position + 1}`, position);
       }
       token = match.token;
@@ -1071,7 +1073,12 @@ function parseCore(input: string): ParsedCore {
   if (bracketIndex < 0) {
     // No brackets: accept a bare entity such as "Cr(H2O)6 3+"; reject a bare ion such as "Fe3+".
     const start = scanner.pos;
-    if (text.indexOf(']') >= 0) scanner.fail(`Unmatched ']' at character ${text.indexOf(']') + 1}`, text.indexOf(']'));
+    if (text.indexOf(']') >= 0) {
+      scanner.fail(
+        `Missing '[' at character ${start + 1}: the ']' at character ${text.indexOf(']') + 1} closes nothing (e.g. [Co(NH3)6]Cl3)`,
+        start,
+      );
+    }
     const first = scanner.peek();
     const two = isLower(scanner.peek(1)) ? `${first}${scanner.peek(1)}` : '';
     const symbol = two !== '' && isMetalSymbol(two) ? two : first !== undefined && isMetalSymbol(first) ? first : null;
@@ -1133,7 +1140,11 @@ function parseCore(input: string): ParsedCore {
       written = scanner.readCharge();
     }
     if (complexCount > 1 && anions.length === 0 && cations.length === 0) {
-      scanner.fail(`A count after ']' (character ${afterBracket + 1}) needs counter-ions to balance it`, afterBracket);
+      const digits = text.slice(afterBracket, scanner.pos).trim();
+      scanner.fail(
+        `'${digits}' after ']' (character ${afterBracket + 1}) needs a sign to be a charge (${digits}+ or ${digits}-), or counter-ions to be a count`,
+        afterBracket,
+      );
     }
   }
 
@@ -1144,6 +1155,12 @@ function parseCore(input: string): ParsedCore {
     const ch = scanner.peek();
     if (ch === '[') {
       scanner.fail(`A second complex ion at character ${position + 1} is not supported: classify each complex ion on its own`, position);
+    }
+    if (written !== null && anions.length === 0 && matchAt(text, position, anionTokens) !== null) {
+      scanner.fail(
+        `Counter-ions at character ${position + 1} after the charge: write either the charge or the counter-ions, e.g. [Co(NH3)6]3+ or [Co(NH3)6]Cl3`,
+        position,
+      );
     }
     scanner.fail(`Unexpected '${ch}' at character ${position + 1}`, position);
   }

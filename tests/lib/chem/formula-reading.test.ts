@@ -232,3 +232,17 @@ describe('µ-bridged dinuclear species, classified per metal centre', () => {
     expect(errorOf('[Co(III)(NH3)5(μ-NC)Fe(III)(CN)5]-').message).toMatch(/do not balance/);
   });
 });
+
+describe('more mistakes, each named where it is', () => {
+  it.each([
+    ['Co(NH3)6]Cl3', 0, /Missing '\[' at character 1/],
+    ['[Co(NH3)6]]Cl3', 10, /Extra '\]' at character 11/],
+    ['[Co(NH3)6]3', 10, /needs a sign to be a charge \(3\+ or 3-\)/],
+    ['[Fe(CN)6]4', 9, /4\+ or 4-/],
+    ['[Co(NH3)6]3+Cl3', 12, /either the charge or the counter-ions/],
+  ])('%s → position %i', (formula, position, message) => {
+    const error = errorOf(formula);
+    expect(error.position).toBe(position);
+    expect(error.message).toMatch(message);
+  });
+});
