@@ -56,7 +56,7 @@ const METAL_HAZARD: Record<string, string> = {
 const RADIOLABEL_CHELATORS: ReadonlySet<string> = new Set(['dota', 'nota', 'dtpa', 'tacn', 'cyclam', 'cyclen']);
 const RADIOMETALS: ReadonlySet<string> = new Set(['Ga', 'Cu', 'Y', 'In', 'Lu', 'Zr', 'Sc', 'Tb', 'Ho', 'Sm', 'Bi', 'Pb', 'Ac', 'Tc', 'Re']);
 // Amine N donors (N with hydrogen or carbon on it): NH3, en, dien, cyclam…; not nitrite, nitrate, cyanide or pyridine-type rings.
-const AMINE_LIGANDS: ReadonlySet<string> = new Set(['NH3', 'en', 'dien', 'trien', 'tren', 'tacn', 'tmeda', 'cyclam', 'cyclen', 'pn', 'tn', 'MeNH2', 'NH2', 'gly', 'edta', 'dota', 'nota', 'dtpa', 'nta', 'ida', 'tpa']);
+const AMINE_LIGANDS: ReadonlySet<string> = new Set(['NH3', 'en', 'dien', 'trien', 'tren', 'tacn', 'tmeda', 'cyclam', 'cyclen', 'pn', 'tn', 'MeNH2', 'NH2', 'gly', 'edta', 'dota', 'nota', 'dtpa', 'nta', 'ida', 'tpa', 'dach']);
 // Ruthenium and gold drug families with published cytotoxicity (common practice): arene and
 // imidazole Ru, phosphine gold.
 const CYTOTOXIC_RU_LIGANDS: ReadonlySet<string> = new Set(['C6H6', 'imH', 'dmso']);

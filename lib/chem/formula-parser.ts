@@ -1045,7 +1045,7 @@ function parseCore(input: string): ParsedCore {
   const text = normalizeFormula(input);
   const scanner: FormulaScanner = new FormulaScanner(text, input);
   if (scanner.atEnd()) scanner.fail('The formula is empty', 0);
-  if (text.indexOf('[') < 0 && MAYBE_NAME.test(text)) {
+  if (text.indexOf('[') < 0 && (MAYBE_NAME.test(text) || trivialNameByKey.has(text.trim().toLowerCase()))) {
     const named = readTrivialName(text, input);
     if (named !== null) return named;
   }

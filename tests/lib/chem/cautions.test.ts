@@ -33,6 +33,8 @@ describe('cautions for the worst hazards', () => {
   it('gives cytotoxic handling advice for platinum amine drugs and other metallodrugs', () => {
     expect(cautions('cisplatin').join(' ')).toMatch(/cytotoxic/);
     expect(cautions('[Pt(en)Cl2]').join(' ')).toMatch(/cytotoxic/);
+    expect(cautions('oxaliplatin').join(' ')).toMatch(/cytotoxic/);
+    expect(cautions('carboplatin').join(' ')).toMatch(/cytotoxic/);
     expect(cautions('[PtCl4]2-').join(' ')).not.toMatch(/cytotoxic/);
     expect(cautions('[Ru(C6H6)Cl2(dmso)]').join(' ')).toMatch(/cytotoxic/);
     expect(cautions('[Au(PEt3)Cl]').join(' ')).toMatch(/cytotoxic/);

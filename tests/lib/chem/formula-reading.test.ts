@@ -246,3 +246,21 @@ describe('more mistakes, each named where it is', () => {
     expect(error.message).toMatch(message);
   });
 });
+
+describe('more trivial names', () => {
+  it.each([
+    // Creutz & Taube, J. Am. Chem. Soc. 1969, 91, 3988: pyrazine-bridged decaammine diruthenium(5+)
+    ['Creutz–Taube ion', 'Ru', 2],
+    // Kidani et al., J. Med. Chem. 1978, 21, 1315: Pt(II) with 1,2-diaminocyclohexane and oxalate
+    ['oxaliplatin', 'Pt', 2],
+    // Schwab, Grubbs & Ziller, J. Am. Chem. Soc. 1996, 118, 100: RuCl2(=CHPh)(PCy3)2, Ru(II) with a neutral carbene
+    ['Grubbs catalyst', 'Ru', 2],
+    // Greenwood & Earnshaw 1997: Cp2TiCl2, Ti(IV)
+    ['Cp2TiCl2', 'Ti', 4],
+    ['cis-platin', 'Pt', 2],
+  ])('%s → %s(%i)', (name, metal, oxidationState) => {
+    const result = classifyFormula(name);
+    expect([result.metal, result.oxidationState]).toEqual([metal, oxidationState]);
+    expect(result.readings?.[0]?.kind).toBe('name');
+  });
+});
