@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import Svg, { Circle, G, Line, Path, Rect, Text as SvgText, TSpan } from 'react-native-svg';
 
-import { INTERMEDIATE_HALF_WIDTH, ONE_MINUTE_LOG_K } from '@/lib/chem/lability';
+import { FIVE_MINUTE_LOG_K, ONE_MINUTE_LOG_K } from '@/lib/chem/verdict-bands';
 import type { Verdict } from '@/lib/chem/types';
 import { colors, fonts, verdictColors } from '@/components/ui/theme';
 
@@ -27,7 +27,8 @@ export interface LabilityScaleProps {
 
 export const SCALE_MIN_LOG_K = -10;
 export const SCALE_MAX_LOG_K = 10;
-const DEFAULT_BAND: [number, number] = [ONE_MINUTE_LOG_K - INTERMEDIATE_HALF_WIDTH, ONE_MINUTE_LOG_K + INTERMEDIATE_HALF_WIDTH];
+// Intermediate: t½ from one to five minutes (lib/chem/verdict-bands.ts).
+const DEFAULT_BAND: [number, number] = [FIVE_MINUTE_LOG_K, ONE_MINUTE_LOG_K];
 
 // Vertical layout (px). The width follows the container, so text keeps its size at any width.
 const DEFAULT_WIDTH = 340;

@@ -1,3 +1,4 @@
+import { VERDICT_BANDS_TEXT } from '@/lib/chem/verdict-bands';
 import { StyleSheet, View } from 'react-native';
 import { toDisplayFormula } from '@/lib/chem/display-formula';
 import { nearestReferenceRates } from '@/lib/chem/reference-rates';
@@ -42,6 +43,9 @@ export function VerdictCard({ result }: { result: Classification }) {
           ) : null}
         </View>
       ) : null}
+      <AppText variant="caption" tone="muted" testID="verdict-definition">
+        {VERDICT_BANDS_TEXT}
+      </AppText>
       <BulletList items={result.reasons} testID="verdict-reasons" />
     </Card>
   );

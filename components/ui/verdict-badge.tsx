@@ -2,6 +2,7 @@ import { StyleSheet, View, type ViewStyle } from 'react-native';
 import Svg, { Circle, Path } from 'react-native-svg';
 
 import type { Verdict } from '@/lib/chem/types';
+import { VERDICT_DEFINITIONS } from '@/lib/chem/verdict-bands';
 import { AppText } from './text';
 import { colors, radius, spacing, verdictColors } from './theme';
 
@@ -45,6 +46,7 @@ export function VerdictBadge({ verdict, size = 'md' }: { verdict: Verdict; size?
     <View
       accessible
       accessibilityLabel={`Verdict: ${VERDICT_WORDS[verdict]}`}
+      accessibilityHint={VERDICT_DEFINITIONS[verdict]}
       style={[styles.badge, small ? styles.badgeSmall : null, { backgroundColor: palette.bg, borderColor: palette.fg }]}
       testID="verdict-badge"
     >

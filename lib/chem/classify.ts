@@ -33,7 +33,7 @@ const {
   octahedralOccupancy,
   tetrahedralLfseDq,
 } = ligandField;
-const { ONE_MINUTE_LOG_K, confidenceFrom, measuredLogKAt, predictLogK, scaleLogKWithoutEyring, verdictFromLogK } = lability;
+const { confidenceFrom, measuredLogKAt, predictLogK, scaleLogKWithoutEyring, verdictFromLogK } = lability;
 const { ionLabel, ionicRadiusPm, metalIon } = metalIons;
 const { formatFixed, formatPrecision2 } = numberFormat;
 
@@ -584,7 +584,8 @@ function rateAt(logK: number): RateText {
   if (rate === undefined) {
     const verdict = verdictFromLogK(logK);
     const halfLifeSeconds = Math.LN2 / 10 ** logK;
-    const reason = `${verdict}: k ≈ 10^${formatFixed(logK, 1)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${verdict === 'intermediate' ? 'close to' : logK > ONE_MINUTE_LOG_K ? 'faster than' : 'slower than'} the one-minute line)`;
+    const band = verdict === 'labile' ? 'under a minute' : verdict === 'intermediate' ? 'one to five minutes' : 'five minutes or more';
+    const reason = `${verdict}: k ≈ 10^${formatFixed(logK, 1)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${band}; labile under 1 min, inert from 5 min)`;
     rate = { verdict, halfLifeSeconds, reason };
     if (rateByLogK.size >= RATE_MEMO_LIMIT) rateByLogK.clear();
     rateByLogK.set(logK, rate);

@@ -9,15 +9,15 @@
  * 18-electron organometallics and f-block ions use the separate, rougher rules below.
  */
 import * as numberFormat from './number-format';
-import type { Confidence, Geometry, LigandInstance, MeasuredRate, SpinState, Verdict } from './types';
+import type { Confidence, Geometry, LigandInstance, MeasuredRate, SpinState } from './types';
+
+import { ONE_MINUTE_LOG_K, verdictFromLogK } from './verdict-bands';
 
 // Read once: under tsx each use of an imported name is a getter call (see classify.ts).
 const { formatFixed } = numberFormat;
 
-/** Taube's one-minute criterion: t½ < 60 s ⇔ k > ln2/60 s⁻¹ (Taube, Chem. Rev. 1952, 50, 69). */
-export const ONE_MINUTE_LOG_K = Math.log10(Math.LN2 / 60);
-/** Half-width (log units) of the "intermediate" band around the one-minute line: t½ ≈ 12 s – 5 min. */
-export const INTERMEDIATE_HALF_WIDTH = 0.7;
+// The verdict bands live in verdict-bands.ts (one definition for the whole product).
+export { ONE_MINUTE_LOG_K, verdictFromLogK };
 
 const BOLTZMANN = 1.380649e-23; // J/K
 const PLANCK = 6.62607015e-34; // J s
@@ -267,12 +267,6 @@ function taubeInertReason(d: number, zText: string): string {
 
 function clamp(logK: number): number {
   return Math.min(LOG_K_MAX, Math.max(LOG_K_MIN, logK));
-}
-
-export function verdictFromLogK(logK: number): Verdict {
-  if (logK > ONE_MINUTE_LOG_K + INTERMEDIATE_HALF_WIDTH) return 'labile';
-  if (logK < ONE_MINUTE_LOG_K - INTERMEDIATE_HALF_WIDTH) return 'inert';
-  return 'intermediate';
 }
 
 /** Eyring: k = (kB T / h) exp(ΔS‡/R) exp(−ΔH‡/RT). */

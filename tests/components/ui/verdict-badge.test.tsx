@@ -54,3 +54,10 @@ describe('StatusPill', () => {
     expect(screen.getByText('Retired')).toHaveStyle({ textDecorationLine: 'line-through' });
   });
 });
+
+describe('VerdictBadge definition', () => {
+  it('carries the band definition for assistive technology (labile: under a minute, Taube 1952)', () => {
+    render(<VerdictBadge verdict="labile" />);
+    expect(screen.getByLabelText('Verdict: labile').props.accessibilityHint).toMatch(/under a minute/);
+  });
+});

@@ -122,3 +122,19 @@ describe('reasons are true for the case they are printed on', () => {
     }
   });
 });
+
+describe('verdict bands: one definition, consistent with the one-minute line', () => {
+  it('every answer’s verdict agrees with its own half-life (labile < 60 s ≤ intermediate < 300 s ≤ inert; Taube, Chem. Rev. 1952, 50, 69 for the 1-min line)', () => {
+    for (const result of results) {
+      const t = result.halfLifeSeconds;
+      expect(result.verdict).toBe(t < 60 ? 'labile' : t < 300 ? 'intermediate' : 'inert');
+    }
+  });
+
+  it('the rate line says which band the half-life is in, never "close to" the line', () => {
+    for (const result of results) {
+      const line = result.reasons.find((reason) => reason.startsWith(`${result.verdict}: k ≈`));
+      expect(line).toMatch(/labile under 1 min, inert from 5 min/);
+    }
+  });
+});
