@@ -92,8 +92,9 @@ export function cautionsFor(
   if (perchlorate) cautions.push(amineLigands ? PERCHLORATE_AMINE : organicLigands ? PERCHLORATE_ORGANIC : PERCHLORATE);
   // Neutral binary carbonyls (Ni(CO)4, Fe(CO)5, Cr(CO)6…) are volatile: the worst hazard comes first.
   if (onlyCarbonyls && (parsed.complexCharge ?? 0) === 0) {
-    if (parsed.metal === 'Ni') cautions.push(NICKEL_CARBONYL);
-    else if (parsed.metal === 'Fe') cautions.push(IRON_PENTACARBONYL);
+    const carbonyls = parsed.ligands[0]?.count ?? 0;
+    if (parsed.metal === 'Ni' && carbonyls === 4) cautions.push(NICKEL_CARBONYL);
+    else if (parsed.metal === 'Fe' && carbonyls === 5) cautions.push(IRON_PENTACARBONYL);
     else cautions.push(VOLATILE_CARBONYL);
   }
   if (parsed.metal === 'Pt' && amineLigands) cautions.push(CYTOTOXIC_PLATINUM);

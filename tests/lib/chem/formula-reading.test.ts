@@ -264,3 +264,24 @@ describe('more trivial names', () => {
     expect(result.readings?.[0]?.kind).toBe('name');
   });
 });
+
+describe('bridged names and formulas chemists write without brackets', () => {
+  // Dichromate: two CrO4 tetrahedra sharing an oxygen, Cr(VI) (Greenwood & Earnshaw 1997); K2Cr2O7 294.18 g/mol
+  // (CRC Handbook of Chemistry and Physics, 97th ed., 2016 — recalled).
+  it('reads K2Cr2O7 as the µ-oxo dichromate', () => {
+    const result = classifyFormula('K2Cr2O7');
+    expect(result.centres?.map((centre) => [centre.metal, centre.oxidationState, centre.coordinationNumber])).toEqual([['Cr', 6, 4], ['Cr', 6, 4]]);
+    expect(result.molarMassGPerMol).toBeCloseTo(294.18, 1);
+    expect(result.cautions.join(' ')).toMatch(/Cr\(VI\)/);
+  });
+
+  // Co2(CO)8 (solid form: two bridging CO) and Fe2(CO)9 (three bridging CO), Co(0) and Fe(0) (Greenwood & Earnshaw 1997).
+  it.each([
+    ['Co2(CO)8', 'Co', 0],
+    ['Fe2(CO)9', 'Fe', 0],
+    ['Al2Cl6', 'Al', 3],
+  ])('%s → two %s(%i) centres', (formula, metal, oxidationState) => {
+    const parsed = parseFormula(formula);
+    expect(parsed.centres?.map((centre) => [centre.metal, centre.oxidationState])).toEqual([[metal, oxidationState], [metal, oxidationState]]);
+  });
+});
