@@ -3,6 +3,7 @@
  * species a salt or name is read as, each centre of a dinuclear species, the demo library, the redox
  * couples, the trivial names and the check set) parses back to the same species.
  */
+import fc from 'fast-check';
 import demoLibrary from '@/data/demo-library.json';
 import checkSet from './check-set/formulas.json';
 import { toDisplayFormula } from '@/lib/chem/display-formula';
@@ -68,5 +69,42 @@ describe('display of a charge set off by a space (IUPAC 2005 Red Book: charge as
   it('keeps the count a subscript and the charge a superscript', () => {
     expect(toDisplayFormula('Cr(H2O)6 3+')).toBe('Cr(H₂O)₆³⁺');
     expect(toDisplayFormula('[Co(NH3)6] +3')).toBe('[Co(NH₃)₆]³⁺');
+  });
+});
+
+describe('round trip over generated formulas (property test)', () => {
+  // Pieces chemists combine (common practice); the property is that display never changes the species.
+  const metals = ['Co', 'Cr', 'Fe', 'Ni', 'Cu', 'Ru', 'Rh', 'Pt', 'Mn', 'V'];
+  const ligands = ['NH3', 'H2O', 'Cl', 'CN', 'en', 'ox', 'bpy', 'py', 'NO2', 'OH', 'Br', 'NCS', 'phen', 'CO', 'PPh3', 'isn', 'cyclam'];
+  const counterIons = ['', 'Cl', 'Cl2', 'Cl3', '(ClO4)2', '(NO3)3', 'SO4', 'K3', 'Na2', 'K4'];
+  const charges = ['', '+', '2+', '3+', '-', '2-', '3-', '4-', '^3+', '+3'];
+
+  it('shows every readable generated formula as one that parses to the same species', () => {
+    let readableCount = 0;
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...metals),
+        fc.array(fc.tuple(fc.constantFrom(...ligands), fc.integer({ min: 1, max: 6 })), { minLength: 1, maxLength: 3 }),
+        fc.constantFrom(...counterIons),
+        fc.constantFrom(...charges),
+        fc.integer({ min: 0, max: 12 }),
+        (metal, parts, counter, charge, waters) => {
+          const inner = parts.map(([ligand, count]) => `(${ligand})${count > 1 ? count : ''}`).join('');
+          const cation = /^[KN]/.test(counter) ? counter : '';
+          const anion = cation === '' ? counter : '';
+          const formula = `${cation}[${metal}${inner}]${anion === '' ? charge : anion}${waters > 0 ? `·${waters}H2O` : ''}`;
+          let original: unknown;
+          try {
+            original = species(formula);
+          } catch {
+            return; // not a readable complex: nothing is displayed for it
+          }
+          readableCount++;
+          expect(species(toDisplayFormula(formula))).toEqual(original);
+        },
+      ),
+      { numRuns: 3000 },
+    );
+    expect(readableCount).toBeGreaterThan(300);
   });
 });
