@@ -8,10 +8,14 @@ import { seedDemo } from './db/seed';
 import { readEnv } from './env';
 import { ClusterError } from './db/cluster';
 import { DEMO_PASSWORD, demoAccounts } from './modules/auth/demo-accounts';
+import { demoAccountsWithDemoPassword } from './modules/auth/first-admin';
 import { createMailer } from './modules/mail/mailer';
 import { failAbandonedImports } from './modules/exchange/import.service';
 
 const log = (line: string) => console.log(`[sphereline] ${line}`);
+
+/** A start-up refusal with a message that says what to do (printed without a stack). */
+class StartRefused extends Error {}
 
 /** `npm start`: build the web app if stale, start the database, migrate, seed once, serve. */
 async function main() {
@@ -23,7 +27,21 @@ async function main() {
   const orm = await openOrm(url);
   const applied = await migrate(orm);
   if (applied.length > 0) log(`Applied migrations: ${applied.join(', ')}`);
-  await seedDemo(orm);
+  if (env.NODE_ENV === 'production') {
+    // Production never seeds the demo, and will not run with a demo account that opens with the
+    // published password (a database copied from a demo installation, say).
+    const open = await demoAccountsWithDemoPassword(orm.em.fork());
+    if (open.length > 0) {
+      await orm.close(true);
+      if (cluster?.startedHere) await cluster.stop();
+      throw new StartRefused(
+        `Refusing to start in production: demo account(s) ${open.join(', ')} still open with the published demo password. ` +
+          'Delete them or change their passwords, then start again.',
+      );
+    }
+  } else {
+    await seedDemo(orm);
+  }
   // Imports whose server stopped mid-way wrote nothing (one transaction); say so on their job rows.
   const abandoned = await failAbandonedImports(orm);
   if (abandoned > 0) log(`Marked ${abandoned} interrupted import(s) as failed.`);
@@ -47,9 +65,11 @@ async function main() {
   Database:                ${cluster ? `private PostgreSQL on 127.0.0.1:${cluster.port} (data in ${env.DATA_DIR}/postgres)` : 'DATABASE_URL'}
   E-mail:                  ${mailDestination}${env.NODE_ENV !== 'production' && !env.SMTP_URL ? `\n  Outbox:                  http://${env.HOST}:${port}/api/dev/outbox` : ''}
 
-  Demo sign-ins (invented people; password for all: ${DEMO_PASSWORD}):
-${demoAccounts.map((a) => `    ${a.email.padEnd(36)} ${a.role.padEnd(12)} ${a.displayName}, ${a.part}`).join('\n')}
-
+${
+  env.NODE_ENV === 'production'
+    ? '  Production: no demo accounts. Make the first administrator with\n    npm run --silent admin -- --email <address> --name "<name>" --group "<research group>"\n'
+    : `  Demo sign-ins (invented people; password for all: ${DEMO_PASSWORD}):\n${demoAccounts.map((a) => `    ${a.email.padEnd(36)} ${a.role.padEnd(12)} ${a.displayName}, ${a.part}`).join('\n')}\n`
+}
   Press Ctrl+C to stop.
 `);
 
@@ -72,7 +92,7 @@ ${demoAccounts.map((a) => `    ${a.email.padEnd(36)} ${a.role.padEnd(12)} ${a.di
 }
 
 main().catch((error: unknown) => {
-  if (error instanceof ClusterError || (error instanceof Error && error.name === 'EnvError')) {
+  if (error instanceof ClusterError || error instanceof StartRefused || (error instanceof Error && error.name === 'EnvError')) {
     console.error(`[sphereline] ${error.message}`);
   } else {
     console.error('[sphereline] Could not start:', error);

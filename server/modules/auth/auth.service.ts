@@ -62,6 +62,11 @@ async function issueEmailToken(em: EntityManager, userId: string, purpose: Email
   return token;
 }
 
+/** A one-time link on which the owner of an account sets a password (the first administrator's). */
+export function issueSetPasswordLink(em: EntityManager, userId: string, lifetimeMs: number): Promise<string> {
+  return issueEmailToken(em, userId, 'reset-password', lifetimeMs);
+}
+
 /** Uses a token up in one atomic statement (two concurrent uses cannot both succeed). */
 async function consumeEmailToken(em: EntityManager, token: string, purpose: EmailTokenPurpose): Promise<string> {
   const rows = await em.getConnection().execute<{ user_id: string }[]>(

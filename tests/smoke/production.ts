@@ -1,0 +1,133 @@
+/**
+ * `npm run test:smoke`: the product as a production server starts it, on a fresh database.
+ * Starts `server/index.ts` with NODE_ENV=production (its own private PostgreSQL under a temporary
+ * DATA_DIR), then checks from outside: no demo sign-in works, the development outbox answers 404,
+ * the first-administrator command prints a link that sets a password exactly once, that person can
+ * sign in, and stopping the server stops the PostgreSQL it started. Exits non-zero on the first failure.
+ */
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import { SMTPServer } from 'smtp-server';
+import { DEMO_PASSWORD, demoAccounts } from '@/server/modules/auth/demo-accounts';
+
+/** A stand-in for the organisation's mail server (production needs SMTP_URL): accepts and counts. */
+async function startMailServer(): Promise<{ url: string; received: () => number; close: () => Promise<void> }> {
+  let received = 0;
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ['STARTTLS', 'AUTH'],
+    logger: false,
+    onData(stream, _session, callback) {
+      stream.on('data', () => undefined);
+      stream.on('end', () => {
+        received += 1;
+        callback();
+      });
+    },
+  });
+  const port = await freePort();
+  await new Promise<void>((resolve) => server.listen(port, '127.0.0.1', () => resolve()));
+  return { url: `smtp://127.0.0.1:${port}`, received: () => received, close: () => new Promise((resolve) => server.close(() => resolve())) };
+}
+
+const root = path.resolve(__dirname, '../..');
+const checks: string[] = [];
+
+function check(condition: boolean, what: string): void {
+  if (!condition) throw new Error(`production smoke test failed: ${what}`);
+  checks.push(what);
+}
+
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.listen(0, '127.0.0.1', () => {
+      const address = server.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      server.close(() => resolve(port));
+    });
+    server.on('error', reject);
+  });
+}
+
+function startServer(env: NodeJS.ProcessEnv): Promise<{ child: ChildProcess; output: () => string }> {
+  const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server/index.ts')], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
+  let output = '';
+  child.stdout?.on('data', (chunk: Buffer) => (output += chunk.toString()));
+  child.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
+  return new Promise((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`the server did not start in 180 s:\n${output.slice(-3000)}`)), 180_000);
+    const poll = setInterval(() => {
+      if (/Sphereline is running at/.test(output)) {
+        clearInterval(poll);
+        clearTimeout(timer);
+        resolve({ child, output: () => output });
+      }
+    }, 100);
+    child.on('exit', (code) => {
+      clearInterval(poll);
+      clearTimeout(timer);
+      reject(new Error(`the server exited (${code}) before it was ready:\n${output.slice(-3000)}`));
+    });
+  });
+}
+
+async function main() {
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'sphereline-smoke-'));
+  fs.chmodSync(dataDir, 0o755);
+  const port = await freePort();
+  const base = `http://127.0.0.1:${port}`;
+  const mail = await startMailServer();
+  const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: 'production', DATA_DIR: dataDir, HOST: '127.0.0.1', PORT: String(port), APP_URL: base, SMTP_URL: mail.url };
+  delete env.DATABASE_URL;
+  const { child } = await startServer(env);
+  const send = (method: string, urlPath: string, body?: unknown) =>
+    fetch(`${base}${urlPath}`, {
+      method,
+      headers: { origin: base, 'content-type': 'application/json' },
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
+  try {
+    for (const account of demoAccounts) {
+      const response = await send('POST', '/api/auth/sign-in', { email: account.email, password: DEMO_PASSWORD });
+      check(response.status === 401, `demo sign-in of ${account.email} is refused (401)`);
+    }
+    check((await send('GET', '/api/dev/outbox')).status === 404, 'the development outbox answers 404');
+
+    const admin = spawnSync(
+      process.execPath,
+      ['--import', 'tsx', path.join(root, 'server/admin-cli.ts'), '--email', 'wren.oakes@northfen.example.org', '--name', 'Dr. Wren Oakes', '--group', 'Oakes Coordination Group'],
+      { cwd: root, env, encoding: 'utf8' },
+    );
+    check(admin.status === 0, admin.status === 0 ? 'npm run admin succeeds' : `npm run admin failed: ${admin.stderr.trim()}`);
+    const link = /https?:\/\/\S+\/reset-password\?token=\S+/.exec(admin.stdout)?.[0];
+    check(link !== undefined, 'npm run admin prints a one-time link');
+    const token = new URL(link ?? base).searchParams.get('token') ?? '';
+    const password = 'quartz-ligand-octahedron-7';
+    const first = await send('POST', '/api/auth/password-reset/confirm', { token, password });
+    check(first.status === 200, first.status === 200 ? 'the link sets the first password' : `the link did not set the password: ${first.status} ${await first.text()}`);
+    const reuse = await send('POST', '/api/auth/password-reset/confirm', { token, password: 'another-long-passphrase-9' });
+    check(reuse.status >= 400 && reuse.status < 500, 'the same link is refused the second time');
+    check((await send('POST', '/api/auth/sign-in', { email: 'wren.oakes@northfen.example.org', password })).status === 200, 'the first administrator signs in');
+    check(mail.received() >= 1, 'the password change was mailed through SMTP_URL');
+  } finally {
+    const exited = new Promise((resolve) => child.once('exit', resolve));
+    child.kill('SIGTERM');
+    await Promise.race([exited, new Promise((resolve) => setTimeout(resolve, 20_000))]);
+    await mail.close();
+  }
+  const pidFile = path.join(dataDir, 'postgres', 'postmaster.pid');
+  check(!fs.existsSync(pidFile), 'stopping the server stopped the PostgreSQL it started');
+  fs.rmSync(dataDir, { recursive: true, force: true });
+  for (const line of checks) console.log(`ok  ${line}`);
+  console.log(`production smoke test: ${checks.length} checks passed`);
+}
+
+main().catch((error: Error) => {
+  for (const line of checks) console.log(`ok  ${line}`);
+  console.error(error.message);
+  process.exit(1);
+});
