@@ -101,7 +101,7 @@ export function createApp({ orm, webDir, logRequests = false, ...options }: AppO
   api.use(express.json({ limit: '1mb', strict: true }));
   api.use(rejectUnstorableText);
   api.use(healthRoutes(orm));
-  api.use(chemRoutes());
+  api.use(chemRoutes(orm));
   api.use(authRoutes(accounts));
   api.use(groupRoutes(accounts));
   api.use(preferencesRoutes(orm));

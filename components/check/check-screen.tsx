@@ -1,6 +1,7 @@
-import { useEffect, useState } from 'react';
+import { useCallback, useEffect, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import type { Geometry } from '@/lib/chem/types';
+import { decideByLibrary } from '@/lib/chem/library-decision';
+import type { Geometry, LibraryMeasurementRef } from '@/lib/chem/types';
 import { deferred } from '@/components/deferred/deferred';
 import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
@@ -37,6 +38,15 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
   const [geometry, setGeometry] = useState<Geometry | null>(null);
   const settled = useDebouncedValue(formula, 180);
   const state = useClassification(settled, temperatureC, geometry);
+  // Measured decides: the group's accepted measurement for this species, handed up by the deferred card.
+  const [library, setLibrary] = useState<{ formula: string; measurement: LibraryMeasurementRef | null } | null>(null);
+  const onDecision = useCallback((decision: { formula: string; measurement: LibraryMeasurementRef | null }) => setLibrary(decision), []);
+  const shown =
+    state.kind === 'result' && library?.measurement && library.formula === state.result.formula
+      ? decideByLibrary(state.result, library.measurement)
+      : state.kind === 'result'
+        ? state.result
+        : null;
 
   const updateFormula = (text: string) => {
     setFormula(text);
@@ -82,8 +92,8 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
   const results =
     state.kind === 'result' ? (
       <View style={styles.cards} testID="check-result">
-        <VerdictCard result={state.result} />
-        <LibraryMeasuredCard formula={state.result.formula} />
+        <VerdictCard result={shown ?? state.result} />
+        <LibraryMeasuredCard formula={state.result.formula} temperatureC={temperatureC} onDecision={onDecision} />
         <CautionsCard result={state.result} />
         {wide ? null : options}
         <IdentityCard result={state.result} />

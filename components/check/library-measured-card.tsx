@@ -1,22 +1,47 @@
 import { Link } from 'expo-router';
+import { useEffect } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useMeQuery } from '@/lib/api/auth';
 import { useLibraryMeasuredQuery } from '@/lib/api/library';
+import { candidatesFromRows, pickDecidingMeasurement } from '@/lib/chem/library-decision';
+import type { LibraryMeasurementRef } from '@/lib/chem/types';
 import { Card } from '@/components/ui/card';
 import { AppText } from '@/components/ui/text';
 import { colors, spacing } from '@/components/ui/theme';
 import { citationText, conditionsText, kindLabel, measurementValueText } from '@/components/library/library-format';
 
+export interface LibraryDecision {
+  /** The formula the decision belongs to (a decision never outlives its formula). */
+  formula: string;
+  measurement: LibraryMeasurementRef | null;
+}
+
 /**
- * Measured meets predicted: when the signed-in person's group library holds approved measurements
- * of this complex (same metal, oxidation state and ligand set), they sit beside the prediction.
+ * Measured decides: when the signed-in person's group library holds accepted measurements of this
+ * complex (same metal, oxidation state and ligand set), they are listed here, and the one that
+ * decides (lib/chem/library-decision.ts) is handed up so the verdict card shows it as the headline.
  */
-export function LibraryMeasuredCard({ formula }: { formula: string }) {
+export function LibraryMeasuredCard({
+  formula,
+  temperatureC = 25,
+  onDecision,
+}: {
+  formula: string;
+  temperatureC?: number;
+  onDecision?: (decision: LibraryDecision) => void;
+}) {
   const me = useMeQuery();
   const groupId = me.data?.memberships[0]?.groupId ?? null;
   const groupName = me.data?.memberships[0]?.groupName ?? '';
   const measured = useLibraryMeasuredQuery(groupId, formula);
   const items = measured.data?.libraryMeasurements ?? [];
+  const deciding = items.length > 0 ? pickDecidingMeasurement(candidatesFromRows(items), temperatureC + 273.15) : null;
+  const decidingKey = deciding ? `${deciding.entryId}|${deciding.kind}|${deciding.kPerSecond}|${deciding.temperatureK}` : '';
+  useEffect(() => {
+    onDecision?.({ formula, measurement: deciding });
+    // The key stands for the decision's content; a new object with the same content changes nothing.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [formula, decidingKey, onDecision]);
   if (!groupId || items.length === 0) return null;
   return (
     <Card title={`Measured in ${groupName}`} testID="library-measured">
@@ -33,7 +58,9 @@ export function LibraryMeasuredCard({ formula }: { formula: string }) {
         </View>
       ))}
       <AppText variant="caption" tone="muted">
-        Approved values from your group’s library; where they disagree with the prediction, trust the measurement.
+        {deciding
+          ? 'Accepted values from your group’s library; the first-order rate above decides the verdict, and the model’s prediction is the footnote.'
+          : 'Accepted values from your group’s library; none of them is a first-order rate, so the verdict stays with the engine.'}
       </AppText>
     </Card>
   );

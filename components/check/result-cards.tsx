@@ -2,6 +2,7 @@ import { VERDICT_BANDS_TEXT } from '@/lib/chem/verdict-bands';
 import { StyleSheet, View } from 'react-native';
 import { toDisplayFormula } from '@/lib/chem/display-formula';
 import { nearestReferenceRates } from '@/lib/chem/reference-rates';
+import { shortCitation } from '@/lib/chem/library-decision';
 import { CHECKED_MARKER, type Classification } from '@/lib/chem/types';
 import { BulletList } from '@/components/ui/bullet-list';
 import { Card } from '@/components/ui/card';
@@ -17,20 +18,32 @@ import { OrbitalDiagram } from './orbital-diagram';
 
 const CONFIDENCE_WORDS = { high: 'high confidence', medium: 'medium confidence', low: 'low confidence' } as const;
 
+const DECIDED_WORDS = { library: 'decided by your group’s measurement', reference: 'decided by a published measurement' } as const;
+
 export function VerdictCard({ result }: { result: Classification }) {
-  const measured = result.decidedBy === 'measured';
+  const library = result.decidedBy === 'library' ? result.libraryMeasurement : undefined;
   return (
     <Card title="Verdict" testID="verdict-card">
       <View style={styles.verdictHead}>
         <VerdictBadge verdict={result.verdict} size="md" />
         <AppText tone="soft" testID="verdict-confidence">
-          {measured ? 'decided by a published measurement' : `predicted · ${CONFIDENCE_WORDS[result.confidence]}`}
+          {result.decidedBy === 'model' ? `predicted · ${CONFIDENCE_WORDS[result.confidence]}` : DECIDED_WORDS[result.decidedBy]}
         </AppText>
       </View>
+      {library ? (
+        <View style={styles.measured} testID="verdict-headline">
+          <AppText variant="label" tone="accent">Measured in your group’s library</AppText>
+          <AppText style={styles.headlineEntry}>{library.entryName}</AppText>
+          <AppText>
+            k = {scientific(library.kPerSecond)} s⁻¹ at {(library.temperatureK - 273.15).toFixed(0)} °C ({library.kind.replace('-', ' ')})
+          </AppText>
+          <AppText variant="caption" tone="muted" testID="verdict-headline-citation">{shortCitation(library.citation)}</AppText>
+        </View>
+      ) : null}
       <AppText variant="lead" testID="verdict-rate">
         k ≈ {powerOfTen(result.logKPerSecond)} s⁻¹ · t½ ≈ {duration(result.halfLifeSeconds)} at {result.temperatureC} °C
       </AppText>
-      {result.measured ? (
+      {result.measured && !library ? (
         <View style={styles.measured} testID="measured-value">
           <AppText variant="label" tone="accent">Measured</AppText>
           <AppText>
@@ -47,6 +60,15 @@ export function VerdictCard({ result }: { result: Classification }) {
         {VERDICT_BANDS_TEXT}
       </AppText>
       <BulletList items={result.reasons} testID="verdict-reasons" />
+      {library && result.modelVerdict && result.predictedLogKPerSecond !== undefined ? (
+        <View style={styles.footnote} testID="verdict-model-footnote">
+          <AppText variant="caption" tone="soft">
+            Model’s prediction (footnote): {result.modelVerdict}, k ≈ {powerOfTen(result.predictedLogKPerSecond)} s⁻¹
+            {result.modelVerdict !== result.verdict ? ' — the measurement overrules it' : ''}
+          </AppText>
+          {result.modelReasons ? <BulletList items={result.modelReasons} testID="verdict-model-reasons" /> : null}
+        </View>
+      ) : null}
     </Card>
   );
 }
@@ -181,4 +203,6 @@ const styles = StyleSheet.create({
     paddingLeft: spacing.md,
     gap: 2,
   },
+  headlineEntry: { fontWeight: '600' },
+  footnote: { borderTopWidth: 1, borderTopColor: colors.line, paddingTop: spacing.sm, gap: spacing.xs },
 });

@@ -11,6 +11,12 @@ import { AppText } from '@/components/ui/text';
 import { colors, radius, spacing } from '@/components/ui/theme';
 import { StatusPill, VerdictBadge } from '@/components/ui/verdict-badge';
 import { ApiError } from '@/lib/api/api-client';
+import { classifyFormula } from '@/lib/chem/classify';
+import { verdictFromLogK } from '@/lib/chem/lability';
+import { decideByLibrary, logKMovedTo, modelGapLogUnits, needsSecondLook, pickDecidingMeasurement, SECOND_LOOK_LOG_UNITS } from '@/lib/chem/library-decision';
+import type { LibraryMeasurementRef } from '@/lib/chem/types';
+import { roleAtLeast } from '@/lib/schemas/groups';
+import { ACCEPTED_STATUS } from '@/lib/schemas/library-status';
 import { useComplexQuery } from '@/lib/api/library';
 import type { ComplexDetail, ComplexSnapshot } from '@/lib/schemas/library';
 import { AttachmentsPanel } from '@/components/exchange/attachments-panel';
@@ -18,6 +24,7 @@ import { ComplexActions } from './complex-actions';
 import { dateTimeText, metalLabel } from './library-format';
 import { MeasurementsTable } from './measurements-table';
 import { ReviewThread, RevisionHistory } from './revision-history';
+import { useLibraryAccess } from './use-library-access';
 
 /** Room temperature for the engine's estimate beside the measured values. */
 const DISPLAY_TEMPERATURE_C = 25;
@@ -54,13 +61,16 @@ export function ComplexDetailView({ id, showBackLink = false }: { id: string; sh
 function EntryBody({ entry }: { entry: ComplexDetail }) {
   const [showApproved, setShowApproved] = useState(false);
   const shown: ComplexSnapshot = showApproved && entry.approved ? entry.approved : entry;
+  const deciding = entryDecidingMeasurement(entry);
+  const headVerdict = deciding ? verdictFromLogK(logKMovedTo(deciding.kPerSecond, deciding.temperatureK, DISPLAY_TEMPERATURE_C + 273.15)) : shown.verdict;
   return (
     <>
       <View style={styles.head}>
         <FormulaText formula={shown.formula} variant="display" testID="complex-formula" />
         <AppText variant="lead" tone="soft" testID="complex-name">{shown.name}</AppText>
         <View style={styles.badges}>
-          <VerdictBadge verdict={shown.verdict} />
+          <VerdictBadge verdict={headVerdict} />
+          {deciding ? <AppText variant="caption" tone="accent" testID="complex-decided-by">measured</AppText> : null}
           <StatusPill status={shown.status} />
           <AppText variant="caption" tone="muted">
             {metalLabel(shown.metal, shown.oxidationState)} · d{shown.dElectrons}
@@ -86,7 +96,7 @@ function EntryBody({ entry }: { entry: ComplexDetail }) {
         </Card>
       ) : null}
       <AttachmentsPanel entry={entry} />
-      <EnginePanel formula={shown.formula} />
+      <EnginePanel formula={shown.formula} entry={entry} />
       <Card title="Review" testID="complex-review-card">
         <ReviewThread complexId={entry.id} />
       </Card>
@@ -135,9 +145,30 @@ function LatestReviewNote({ entry }: { entry: ComplexDetail }) {
   );
 }
 
-/** The engine's reading of the formula, computed here (pure and instant); measured values above win. */
-function EnginePanel({ formula }: { formula: string }) {
+/** The snapshot whose measurements count: the entry once accepted, or its accepted version while an edit waits. */
+function acceptedSnapshot(entry: ComplexDetail): ComplexSnapshot | null {
+  if (entry.status === ACCEPTED_STATUS) return entry;
+  return entry.approved && entry.approved.status === ACCEPTED_STATUS ? entry.approved : null;
+}
+
+/** The accepted first-order rate of this entry that decides its verdict, if any. */
+function entryDecidingMeasurement(entry: ComplexDetail): LibraryMeasurementRef | null {
+  const accepted = acceptedSnapshot(entry);
+  if (!accepted) return null;
+  return pickDecidingMeasurement(
+    [{ entryId: entry.id, entryName: accepted.name, entryFormula: accepted.formula, measurements: accepted.measurements }],
+    DISPLAY_TEMPERATURE_C + 273.15,
+  );
+}
+
+/**
+ * The engine's reading of the formula, computed here (pure and instant). When the accepted entry
+ * holds a first-order rate, that measurement decides the verdict and the headline and the model's
+ * prediction is the footnote; curators see a flag when the two differ by more than two log units.
+ */
+function EnginePanel({ formula, entry }: { formula: string; entry: ComplexDetail }) {
   const state = useClassification(formula, DISPLAY_TEMPERATURE_C, null);
+  const access = useLibraryAccess();
   if (state.kind !== 'result') {
     return state.kind === 'problem' ? (
       <Card title="Prediction">
@@ -145,16 +176,40 @@ function EnginePanel({ formula }: { formula: string }) {
       </Card>
     ) : null;
   }
+  const ref = entryDecidingMeasurement(entry);
+  const result = ref ? decideByLibrary(state.result, ref) : state.result;
+  const curator = access.state === 'member' && access.memberships.some((m) => m.groupId === entry.groupId && roleAtLeast(m.role, 'curator'));
+  const gap = ref && curator ? modelGapAt(formula, ref) : null;
   return (
     <View style={styles.engine} testID="complex-engine">
+      {gap !== null && needsSecondLook(gap) ? (
+        <View style={styles.banner} testID="complex-second-look" accessibilityRole="alert">
+          <AppText style={styles.bannerText}>
+            Measurement and model differ by {gap.toFixed(1)} log units (more than {SECOND_LOOK_LOG_UNITS}): this entry deserves a second look —
+            check the units, the temperature, the species and the citation.
+          </AppText>
+        </View>
+      ) : null}
       <AppText variant="caption" tone="muted">
-        Predicted by Sphereline’s rules of thumb at {DISPLAY_TEMPERATURE_C} °C — an estimate, not a measurement; where the library holds a measured value, the measurement wins.
+        {ref
+          ? `Decided by this entry’s accepted measurement at ${DISPLAY_TEMPERATURE_C} °C; the model’s prediction is the footnote.`
+          : `Predicted by Sphereline’s rules of thumb at ${DISPLAY_TEMPERATURE_C} °C — an estimate, not a measurement; once the entry is accepted with a measured rate, the measurement decides.`}
       </AppText>
-      <VerdictCard result={state.result} />
+      <VerdictCard result={result} />
       <IdentityCard result={state.result} />
       <CautionsCard result={state.result} />
     </View>
   );
+}
+
+/** Model against measurement, both at the temperature the measurement was made at (null when the engine cannot go there). */
+function modelGapAt(formula: string, ref: LibraryMeasurementRef): number | null {
+  try {
+    const model = classifyFormula(formula, { temperatureC: ref.temperatureK - 273.15 });
+    return modelGapLogUnits(ref.kPerSecond, model.predictedLogKPerSecond ?? model.logKPerSecond);
+  } catch {
+    return null;
+  }
 }
 
 const styles = StyleSheet.create({

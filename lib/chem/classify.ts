@@ -12,7 +12,7 @@ import * as numberFormat from './number-format';
 import type { ElectronConfiguration, MetalElement } from './metal-ions';
 import * as measuredDeltaOModule from './measured-delta-o';
 import * as orbitalFilling from './orbital-filling';
-import { FormulaError, type Classification, type ClassifyOptions, type LigandInstance, type MeasuredRate } from './types';
+import { FormulaError, type Classification, type ClassifyOptions, type EngineDecidedBy, type LigandInstance, type MeasuredRate } from './types';
 
 // Under tsx (the server, the bench, scripts) every module is compiled to CommonJS and each use of
 // an imported name becomes a call through a shared getter, a measurable cost in a function that
@@ -350,11 +350,11 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
 
   const measuredMatch = findMeasured(metal, oxidationState, ligands);
   let logK = predictedLogK;
-  let decidedBy: Classification['decidedBy'] = 'prediction';
+  let decidedBy: EngineDecidedBy = 'model';
   if (measuredMatch) {
     const { logK: measuredLogK, usedEyring } = measuredLogKAt(measuredMatch.rate, temperatureK);
     logK = measuredLogK;
-    decidedBy = 'measured';
+    decidedBy = 'reference';
     reasons.push(`measured k_ex = ${measuredMatch.rate.kPerSecond.toExponential(1)} s⁻¹ at 25 °C for ${measuredMatch.species} (${measuredMatch.rate.source}) decides; the model alone gives ~10^${formatFixed(predictedLogK, 1)} s⁻¹`);
     if (Math.abs(temperatureK - 298.15) > 1e-9) {
       reasons.push(usedEyring ? `moved to ${temperatureC} °C with the measured Eyring ΔH‡ = ${measuredMatch.rate.deltaHActivationKJPerMol} kJ/mol` : `moved to ${temperatureC} °C assuming ΔS‡ = 0 (no activation parameters published here)`);
@@ -363,12 +363,12 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     reasons.push(`moved to ${temperatureC} °C assuming the whole barrier is enthalpic (ΔS‡ = 0): a rough correction`);
   }
   const { verdict, halfLifeSeconds, reason: rateReason } = rateAt(logK);
-  const confidence = confidenceFrom(logK, prediction.roughness, decidedBy === 'measured');
+  const confidence = confidenceFrom(logK, prediction.roughness, decidedBy === 'reference');
   reasons.push(rateReason);
   reasons.push(KINETIC_SCALE_NOTE);
 
   const hints = hintsFor(metal, oxidationState, verdict, ligands, dElectrons, geometry);
-  reasons.push(decidedBy === 'measured' ? 'The verdict rests on the published measurement above; the model estimate is shown for comparison.' : DISCLAIMER);
+  reasons.push(decidedBy === 'reference' ? 'The verdict rests on the published measurement above; the model estimate is shown for comparison.' : DISCLAIMER);
 
   return {
     formula,

@@ -93,7 +93,7 @@ function formatHalfLife(seconds: number): string {
 
 function labilityWords(role: string, partner: RoutePartner): string {
   const c = partner.classification;
-  const basis = c.decidedBy === 'measured' ? 'measured' : 'predicted';
+  const basis = c.decidedBy === 'model' ? 'predicted' : 'measured';
   return `${role} ${label(partner)} is ${c.verdict} (exchange half-life ≈ ${formatHalfLife(c.halfLifeSeconds)}, ${basis})`;
 }
 

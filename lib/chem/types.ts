@@ -149,6 +149,34 @@ export interface ClassifyOptions {
   geometry?: Geometry;
 }
 
+/** What decides a verdict; the engine itself answers 'reference' or 'model'. */
+export type DecidedBy = 'library' | 'reference' | 'model';
+export type EngineDecidedBy = Exclude<DecidedBy, 'library'>;
+
+/** A clean reference for a library measurement (what users see; no notes). */
+export interface CitationRef {
+  authors: string;
+  title: string | null;
+  journal: string;
+  year: number | null;
+  volume: string | null;
+  pages: string | null;
+  doi: string | null;
+}
+
+/** The group-library measurement that decides a verdict (POST /api/classify with groupId). */
+export interface LibraryMeasurementRef {
+  entryId: string;
+  /** The entry's name and formula, for the headline. */
+  entryName: string;
+  entryFormula: string;
+  kind: 'water-exchange' | 'ligand-exchange' | 'substitution' | 'half-life';
+  /** First-order rate constant at temperatureK (a half-life is given as ln 2 / t½). */
+  kPerSecond: number;
+  temperatureK: number;
+  citation: CitationRef | null;
+}
+
 /** A measured value that decides or sits beside a prediction. */
 export interface MeasuredRate {
   kind: 'water-exchange' | 'ligand-exchange' | 'substitution';
@@ -196,7 +224,16 @@ export interface Classification {
   halfLifeSeconds: number;
   temperatureC: number;
   confidence: Confidence;
-  decidedBy: 'measured' | 'prediction';
+  /**
+   * What decides the verdict: a measurement in the group's library (set by the server or the app,
+   * never by the engine), a published reference rate in data/, or the model.
+   */
+  decidedBy: DecidedBy;
+  /** The group's measurement that decided (only with decidedBy 'library'). */
+  libraryMeasurement?: LibraryMeasurementRef;
+  /** When the library decided: the model's verdict and reasons, shown as the footnote. */
+  modelVerdict?: Verdict;
+  modelReasons?: string[];
   measured: MeasuredRate | null;
   hints: string[];
   /** f-electron count for lanthanides/actinides (0 otherwise). */

@@ -44,6 +44,8 @@ export const classifyRequestSchema = z
       .optional(),
     temperatureC: temperatureCSchema.optional(),
     geometry: geometrySchema.optional(),
+    /** A group of the signed-in person: its accepted measurements decide for the species they cover. */
+    groupId: z.uuid('must be the id of one of your groups').optional(),
   })
   .strict()
   .refine((body) => (body.formula === undefined) !== (body.formulas === undefined), {
@@ -51,6 +53,30 @@ export const classifyRequestSchema = z
     path: ['formula'],
   });
 export type ClassifyRequest = z.infer<typeof classifyRequestSchema>;
+
+/** What decides a verdict: the group's library, a published reference rate, or the model. */
+export const decidedBySchema = z.enum(['library', 'reference', 'model']);
+
+export const citationRefSchema = z.object({
+  authors: z.string(),
+  title: z.string().nullable(),
+  journal: z.string(),
+  year: z.number().int().nullable(),
+  volume: z.string().nullable(),
+  pages: z.string().nullable(),
+  doi: z.string().nullable(),
+});
+
+/** The group-library measurement that decided (decidedBy "library"). */
+export const libraryMeasurementRefSchema = z.object({
+  entryId: z.string(),
+  entryName: z.string(),
+  entryFormula: z.string(),
+  kind: z.enum(['water-exchange', 'ligand-exchange', 'substitution', 'half-life']),
+  kPerSecond: z.number().positive(),
+  temperatureK: z.number().positive(),
+  citation: citationRefSchema.nullable(),
+});
 
 /** The stable fields of a classification (PRODUCT.md); the rest passes through unchanged. */
 export const classificationSchema = z
@@ -64,8 +90,16 @@ export const classificationSchema = z
     verdict: z.enum(['labile', 'intermediate', 'inert']),
     reasons: z.array(z.string()),
     cautions: z.array(z.string()),
+    decidedBy: decidedBySchema,
+    libraryMeasurement: libraryMeasurementRefSchema.optional(),
+    modelVerdict: z.enum(['labile', 'intermediate', 'inert']).optional(),
+    modelReasons: z.array(z.string()).optional(),
   })
-  .passthrough();
+  .passthrough()
+  .refine((c) => (c.decidedBy === 'library') === (c.libraryMeasurement !== undefined), {
+    message: 'libraryMeasurement comes with decidedBy "library" and only then',
+    path: ['libraryMeasurement'],
+  });
 
 export const formulaErrorItemSchema = z.object({
   formula: z.string(),

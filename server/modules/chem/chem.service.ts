@@ -1,12 +1,17 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
 import {
   classifyFormula,
   classifyMany,
+  type ClassifyManyResult,
 } from '@/lib/chem/classify';
+import { decideByLibrary, pickDecidingMeasurement } from '@/lib/chem/library-decision';
 import { marcusCrossRate, MarcusInputError, type MarcusInput } from '@/lib/chem/marcus';
 import { predictRoute, predictRoutes, RouteInputError } from '@/lib/chem/route';
-import { FormulaError, formulaProblemText } from '@/lib/chem/types';
+import { FormulaError, formulaProblemText, type Classification, type LibraryMeasurementRef } from '@/lib/chem/types';
 import type { ClassifyRequest, MarcusRequest, RouteRequest } from '@/lib/schemas/chem';
 import { AppError } from '@/server/http/errors';
+import { ligandSetKeyOf } from '@/server/modules/library/derive';
+import { findLibraryCandidates } from '@/server/modules/library/measured.service';
 
 /** Thin adapters from the engine's typed errors to the API's error shape. */
 export function classify(request: ClassifyRequest) {
@@ -26,6 +31,33 @@ export function classify(request: ClassifyRequest) {
     }
     throw error;
   }
+}
+
+/**
+ * Measured decides: each classified formula whose species (metal, oxidation state, ligand set) the
+ * group holds accepted first-order rate measurements for is decided by the best of them
+ * (lib/chem/library-decision.ts); the rest keep the engine's answer ('reference' or 'model').
+ * One look-up per distinct species.
+ */
+export async function decideWithLibrary<T extends Classification | ClassifyManyResult[]>(em: EntityManager, groupId: string, answer: T): Promise<T> {
+  const lookups = new Map<string, Promise<LibraryMeasurementRef | null>>();
+  const decide = async (result: Classification): Promise<Classification> => {
+    const key = `${result.metal}|${result.oxidationState}|${ligandSetKeyOf(result.ligands)}|${result.temperatureC}`;
+    let found = lookups.get(key);
+    if (!found) {
+      found = findLibraryCandidates(em, result, groupId).then((candidates) => pickDecidingMeasurement(candidates, result.temperatureC + 273.15));
+      lookups.set(key, found);
+    }
+    const ref = await found;
+    return ref ? decideByLibrary(result, ref) : result;
+  };
+  if (Array.isArray(answer)) {
+    // One after the other: a batch of up to 1000 formulas should not take the whole connection pool.
+    const items: ClassifyManyResult[] = [];
+    for (const item of answer) items.push('error' in item ? item : await decide(item));
+    return items as T;
+  }
+  return (await decide(answer as Classification)) as T;
 }
 
 export function route(request: RouteRequest) {

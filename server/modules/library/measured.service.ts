@@ -1,6 +1,8 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { Classification } from '@/lib/chem/types';
+import { candidatesFromRows, type LibraryCandidate } from '@/lib/chem/library-decision';
 import type { ComplexSnapshot, LibraryMeasurement } from '@/lib/schemas/library';
+import { RETIRED_STATUS } from '@/lib/schemas/library-status';
 import { classifyOrExplain, ligandSetKeyOf } from './derive';
 
 /**
@@ -18,9 +20,9 @@ export async function findLibraryMeasurements(
   // The stored columns narrow by index; the approved snapshot decides (a pending edit may differ).
   const rows = await em.execute<{ id: string; approved_snapshot: ComplexSnapshot }[]>(
     `select c.id, c.approved_snapshot from complex c
-      where c.group_id = ? and c.metal = ? and c.approved_snapshot is not null and c.status <> 'retired'
+      where c.group_id = ? and c.metal = ? and c.approved_snapshot is not null and c.status <> ?
       order by c.id`,
-    [groupId, classification.metal],
+    [groupId, classification.metal, RETIRED_STATUS],
   );
   const found: LibraryMeasurement[] = [];
   for (const row of rows) {
@@ -38,4 +40,13 @@ export async function findLibraryMeasurements(
     }
   }
   return found;
+}
+
+/** The same entries as candidates for the measured-decides rule (lib/chem/library-decision.ts), ordered by entry id. */
+export async function findLibraryCandidates(
+  em: EntityManager,
+  classification: Pick<Classification, 'metal' | 'oxidationState' | 'ligands'>,
+  groupId: string,
+): Promise<LibraryCandidate[]> {
+  return candidatesFromRows(await findLibraryMeasurements(em, classification, groupId));
 }

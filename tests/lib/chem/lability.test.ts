@@ -39,7 +39,7 @@ describe('water exchange on aqua ions', () => {
     const halfLife = Math.LN2 / kMeasured;
     const expectedVerdict = halfLife < 60 ? 'labile' : halfLife < 300 ? 'intermediate' : 'inert';
     expect(result.verdict).toBe(expectedVerdict);
-    expect(result.decidedBy).toBe('measured');
+    expect(result.decidedBy).toBe('reference');
     expect(result.logKPerSecond).toBeCloseTo(Math.log10(kMeasured), 1);
     expect(Math.abs((result.predictedLogKPerSecond ?? Number.NaN) - Math.log10(kMeasured))).toBeLessThanOrEqual(1.1);
   });
@@ -49,7 +49,7 @@ describe('water exchange on aqua ions', () => {
     ['[Zn(H2O)6]2+', 'labile', 'water_exchange.json: 1e7–1e8 s⁻¹, order of magnitude only'],
   ])('%s is %s by prediction alone (%s)', (formula, verdict) => {
     const result = classifyFormula(formula);
-    expect(result.decidedBy).toBe('prediction');
+    expect(result.decidedBy).toBe('model');
     expect(result.verdict).toBe(verdict);
   });
 
