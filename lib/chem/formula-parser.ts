@@ -505,6 +505,8 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
       const token = known?.token ?? scanner.input.slice(position + 1, close).trim();
       if (token.length === 0) scanner.fail(`Empty parentheses at character ${position + 1}`, position);
       const ligand = known?.value ?? findLigand(token);
+      // Without brackets, a counter-anion that is no ligand ends the entity: "Co(NH3)6(ClO4)3".
+      if (!ligand && !bracketed && ligands.length > 0 && anionByFormula.has(token)) break;
       if (!ligand) scanner.fail(unknownLigandMessage(token, position + 1), position + 1);
       scanner.pos = close + 1;
       const count = scanner.readTokenCount(token);
@@ -523,6 +525,7 @@ function readInnerSphere(scanner: FormulaScanner, bracketed: boolean, openPositi
       while (end < scanner.end && (isLower(scanner.input[end]) || digitValue(scanner.input[end]) >= 0)) end++;
       const token = scanner.input.slice(position, end);
       if (digitValue(ch) >= 0 && !bracketed) break;
+      if (!bracketed && ligands.length > 0 && matchAt(scanner.input, position, anionTokens) !== null) break;
       if (digitValue(ch) >= 0 && (isPlus(scanner.input[end]) || isMinus(scanner.input[end]))) missingBracket(scanner, openPosition, position);
       if (digitValue(ch) >= 0) {
         scanner.fail(`Unexpected number '${token}' at character ${position + 1}: a count must follow a ligand`, position);
@@ -766,6 +769,43 @@ export function parseFormulaWithMolarMass(input: string): ParsedCore & {
     element: lastElement as metalIons.MetalElement,
     configuration: lastConfiguration as metalIons.ElectronConfiguration,
   };
+}
+
+// More sites than this on a d-block metal written without brackets means some anions are counter-ions.
+const BARE_MAX_SITES = 6;
+
+/**
+ * A bare entity as chemists write it without brackets: "Co(NH3)6Cl3" is [Co(NH3)6]Cl3 and
+ * "Co(NH3)5Cl2+" is [Co(NH3)5Cl]2+. When the ligands as read would give a d-block metal more than six
+ * sites, a count just before a lone sign is read as the charge, or the trailing anions beyond six
+ * sites as counter-ions; the warning says what was read. Returns null when nothing was changed.
+ */
+function settleBareEntity(text: string, inner: InnerSphere, anions: IonPart[], written: { charge: number; position: number } | null): string | null {
+  const series = inner.element.series;
+  if (series !== '3d' && series !== '4d' && series !== '5d') return null;
+  let sites = 0;
+  for (const instance of inner.ligands) sites += instance.ligand.denticity * instance.count;
+  if (sites <= BARE_MAX_SITES) return null;
+  const last = inner.ligands[inner.ligands.length - 1];
+  if (last === undefined) return null;
+  const entity = () => `[${inner.metal}${inner.ligands.map((instance) => `${/^[A-Z][a-z]?$/.test(instance.written) ? instance.written : `(${instance.written})`}${instance.count > 1 ? instance.count : ''}`).join('')}]`;
+  if (written !== null && Math.abs(written.charge) === 1 && anions.length === 0) {
+    const digit = digitValue(text[written.position - 1]);
+    if (digit > 1 && last.count === digit && digitValue(text[written.position - 2]) < 0 && sites - (digit - 1) * last.ligand.denticity <= BARE_MAX_SITES) {
+      last.count = 1;
+      written.charge = Math.sign(written.charge) * digit;
+      return `Read without brackets as ${entity()}${formatCharge(written.charge)}: the ${digit} before the sign is the charge; write the brackets to choose`;
+    }
+  }
+  const asAnion = anionByFormula.get(last.ligand.id);
+  if (asAnion === undefined || written !== null) return null;
+  const moved = Math.min(last.count, Math.ceil((sites - BARE_MAX_SITES) / last.ligand.denticity));
+  last.count -= moved;
+  if (last.count === 0) inner.ligands.pop();
+  if (inner.ligands.length === 0) return null;
+  anions.unshift({ formula: asAnion.formula, charge: asAnion.charge, count: moved, composition: asAnion.composition });
+  const counter = anions.map((ion) => `${ion.formula.length > 2 || anions.length > 1 ? `(${ion.formula})` : ion.formula}${ion.count > 1 ? ion.count : ''}`).join('');
+  return `Read without brackets as ${entity()}${counter}: anions beyond six coordination sites are taken as counter-ions; write the brackets to choose`;
 }
 
 const NO_READINGS: FormulaReading[] = Object.freeze([]) as unknown as FormulaReading[];
@@ -1069,6 +1109,7 @@ function parseCore(input: string): ParsedCore {
   let written: { charge: number; position: number } | null = null;
   let anionPosition = -1;
   let dinuclear: DinuclearSphere | null = null;
+  let bareWarning: string | null = null;
 
   if (bracketIndex < 0) {
     // No brackets: accept a bare entity such as "Cr(H2O)6 3+"; reject a bare ion such as "Fe3+".
@@ -1106,6 +1147,15 @@ function parseCore(input: string): ParsedCore {
     }
     inner = readInnerSphere(scanner, false, start);
     written = scanner.readCharge();
+    if (written === null) {
+      // Counter-ions written after a bare entity: "Co(NH3)6(ClO4)3".
+      scanner.skipSpaces();
+      anionPosition = scanner.pos;
+      anions = readIons(scanner, anionByFormula, 'anion', endsAnions);
+      if (anions.length === 0) anionPosition = -1;
+      written = scanner.readCharge();
+    }
+    bareWarning = settleBareEntity(text, inner, anions, written);
   } else {
     cations = readIons(scanner, cationByFormula, 'cation', isComplexStart);
     const openPosition = scanner.pos;
@@ -1190,6 +1240,7 @@ function parseCore(input: string): ParsedCore {
   let ligandCharge = 0;
   for (const instance of inner.ligands) ligandCharge += instance.ligand.charge * instance.count;
   const warnings: string[] = [];
+  if (bareWarning !== null) warnings.push(bareWarning);
   let centres: MetalCentre[] | undefined;
   let oxidationState = complexCharge - ligandCharge;
   if (dinuclear !== null) {

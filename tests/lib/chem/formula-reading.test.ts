@@ -285,3 +285,27 @@ describe('bridged names and formulas chemists write without brackets', () => {
     expect(parsed.centres?.map((centre) => [centre.metal, centre.oxidationState])).toEqual([[metal, oxidationState], [metal, oxidationState]]);
   });
 });
+
+describe('complexes written without brackets, Werner style (common practice)', () => {
+  it.each([
+    // Hexaamminecobalt(III) chloride and chloropentaamminecobalt(III) chloride (Werner, Z. Anorg. Chem. 1893, 3, 267).
+    ['Co(NH3)6Cl3', '[Co(NH3)6]Cl3', 3, 6, 3],
+    ['Co(NH3)5Cl3', '[Co(NH3)5Cl]Cl2', 3, 6, 2],
+    ['Co(NH3)5Cl2+', '[Co(NH3)5Cl]2+', 3, 6, 2],
+    ['Ni(en)3Cl2', '[Ni(en)3]Cl2', 2, 6, 2],
+    ['Co(NH3)6(ClO4)3', null, 3, 6, 3],
+  ])('%s is read as %s', (formula, bracketed, oxidationState, cn, charge) => {
+    const result = classifyFormula(formula);
+    expect([result.oxidationState, result.coordinationNumber, result.complexCharge]).toEqual([oxidationState, cn, charge]);
+    if (bracketed !== null) {
+      expect(result.warnings?.[0]).toContain(`Read without brackets as ${bracketed}`);
+      expect(result.molarMassGPerMol).toBeCloseTo(classifyFormula(bracketed).molarMassGPerMol, 6);
+    }
+  });
+
+  it('leaves six-coordinate and neutral bare entities as written', () => {
+    expect(classifyFormula('Cr(CO)6').warnings).toBeUndefined();
+    expect(classifyFormula('Pt(NH3)2Cl2').coordinationNumber).toBe(4);
+    expect(classifyFormula('Cr(H2O)6 3+').warnings).toBeUndefined();
+  });
+});
