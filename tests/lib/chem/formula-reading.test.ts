@@ -258,6 +258,9 @@ describe('more trivial names', () => {
     // Greenwood & Earnshaw 1997: Cp2TiCl2, Ti(IV)
     ['Cp2TiCl2', 'Ti', 4],
     ['cis-platin', 'Pt', 2],
+    // Ferrocene written ligands first (Kealy & Pauson, Nature 1951, 168, 1039).
+    ['Cp2Fe', 'Fe', 2],
+    ['Cp2Co+', 'Co', 3],
   ])('%s → %s(%i)', (name, metal, oxidationState) => {
     const result = classifyFormula(name);
     expect([result.metal, result.oxidationState]).toEqual([metal, oxidationState]);
