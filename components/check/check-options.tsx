@@ -1,4 +1,6 @@
+import { useState } from 'react';
 import { ScrollView, StyleSheet, TextInput, View } from 'react-native';
+import { geometriesFor } from '@/lib/chem/geometry-fit';
 import type { Geometry } from '@/lib/chem/types';
 import { Chip } from '@/components/ui/chip';
 import { AppText } from '@/components/ui/text';
@@ -39,11 +41,14 @@ export function ExampleChips({ onPick, oneRow }: { onPick: (formula: string) => 
   );
 }
 
-export function GeometryChoice({ value, predicted, onChange }: {
+export function GeometryChoice({ value, predicted, coordinationNumber, onChange }: {
   value: Geometry | null;
   predicted: Geometry | null;
+  /** Only geometries with room for this many donor atoms are offered. */
+  coordinationNumber: number;
   onChange: (geometry: Geometry | null) => void;
 }) {
+  const fitting = geometriesFor(coordinationNumber);
   return (
     <View style={styles.section}>
       <AppText variant="label" tone="muted">Geometry</AppText>
@@ -54,7 +59,7 @@ export function GeometryChoice({ value, predicted, onChange }: {
           onPress={() => onChange(null)}
           testID="geometry-predicted"
         />
-        {GEOMETRY_CHOICES.filter((g) => g !== predicted).map((geometry) => (
+        {GEOMETRY_CHOICES.filter((g) => g !== predicted && fitting.includes(g)).map((geometry) => (
           <Chip key={geometry} label={geometry} selected={value === geometry} onPress={() => onChange(geometry)} />
         ))}
       </View>
@@ -62,28 +67,68 @@ export function GeometryChoice({ value, predicted, onChange }: {
   );
 }
 
-export function TemperatureChoice({ valueC, onChange }: { valueC: number; onChange: (celsius: number) => void }) {
+export const TEMPERATURE_RANGE_C = { min: -80, max: 250 } as const;
+
+/** Null when the text is a usable temperature, else what is wrong with it (shown in the field). */
+export function temperatureProblem(text: string): string | null {
+  const trimmed = text.trim();
+  if (trimmed === '') return null;
+  const value = Number(trimmed.replace(',', '.').replace('−', '-'));
+  if (!Number.isFinite(value)) return `“${trimmed}” is not a number: write degrees Celsius, e.g. 45.`;
+  if (value < TEMPERATURE_RANGE_C.min || value > TEMPERATURE_RANGE_C.max) {
+    return `Choose a temperature from ${TEMPERATURE_RANGE_C.min} to ${TEMPERATURE_RANGE_C.max} °C (aqueous and common solvent work).`;
+  }
+  return null;
+}
+
+/**
+ * Preset chips and a field for any other temperature. The field is controlled: a chip clears it, a
+ * valid entry is applied at once, and an invalid one is reported in place and `onProblem` tells the
+ * screen, which then shows no result rather than one for another temperature.
+ */
+export function TemperatureChoice({ valueC, onChange, onProblem }: {
+  valueC: number;
+  onChange: (celsius: number) => void;
+  onProblem?: (problem: string | null) => void;
+}) {
+  const [text, setText] = useState(TEMPERATURE_CHOICES_C.includes(valueC) ? '' : String(valueC));
+  const problem = temperatureProblem(text);
+  const pickChip = (celsius: number) => {
+    setText('');
+    onProblem?.(null);
+    onChange(celsius);
+  };
+  const edit = (next: string) => {
+    setText(next);
+    const nextProblem = temperatureProblem(next);
+    onProblem?.(nextProblem);
+    if (nextProblem === null && next.trim() !== '') onChange(Number(next.trim().replace(',', '.').replace('−', '-')));
+    if (next.trim() === '') onChange(25);
+  };
   return (
     <View style={styles.section}>
       <AppText variant="label" tone="muted">Temperature</AppText>
       <View style={styles.row}>
         {TEMPERATURE_CHOICES_C.map((celsius) => (
-          <Chip key={celsius} label={`${celsius} °C`} selected={valueC === celsius} onPress={() => onChange(celsius)} />
+          <Chip key={celsius} label={`${celsius} °C`} selected={text.trim() === '' && valueC === celsius} onPress={() => pickChip(celsius)} />
         ))}
         <TextInput
           accessibilityLabel="Temperature in degrees Celsius"
+          aria-invalid={problem !== null}
           testID="temperature-input"
           inputMode="decimal"
-          defaultValue={TEMPERATURE_CHOICES_C.includes(valueC) ? '' : String(valueC)}
+          value={text}
+          onChangeText={edit}
           placeholder="other °C"
           placeholderTextColor={colors.muted}
-          onChangeText={(text) => {
-            const value = Number(text.replace(',', '.'));
-            if (text.trim() !== '' && Number.isFinite(value) && value >= -80 && value <= 250) onChange(value);
-          }}
-          style={styles.temperatureInput}
+          style={[styles.temperatureInput, problem ? styles.temperatureInputProblem : null]}
         />
       </View>
+      {problem ? (
+        <AppText variant="caption" tone="danger" accessibilityLiveRegion="polite" testID="temperature-problem">
+          {problem}
+        </AppText>
+      ) : null}
     </View>
   );
 }
@@ -104,4 +149,5 @@ const styles = StyleSheet.create({
     color: colors.ink,
     backgroundColor: colors.card,
   },
+  temperatureInputProblem: { borderColor: colors.danger },
 });

@@ -35,6 +35,8 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
   const wide = useWideLayout();
   const [formula, setFormula] = useState(initialFormula);
   const [temperatureC, setTemperatureC] = useState(25);
+  // An unusable temperature in the field: no result is shown rather than one for another temperature.
+  const [temperatureProblem, setTemperatureProblem] = useState<string | null>(null);
   const [geometry, setGeometry] = useState<Geometry | null>(null);
   const settled = useDebouncedValue(formula, 180);
   const state = useClassification(settled, temperatureC, geometry);
@@ -83,14 +85,22 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
         <GeometryChoice
           value={geometry}
           predicted={geometry === null ? state.result.geometry : null}
+          coordinationNumber={state.result.coordinationNumber}
           onChange={setGeometry}
         />
-        <TemperatureChoice valueC={temperatureC} onChange={setTemperatureC} />
+        <TemperatureChoice valueC={temperatureC} onChange={setTemperatureC} onProblem={setTemperatureProblem} />
       </View>
     ) : null;
 
   const results =
-    state.kind === 'result' ? (
+    state.kind === 'result' && temperatureProblem ? (
+      <View style={styles.cards}>
+        <View style={styles.placeholder} testID="check-temperature-problem">
+          <AppText tone="danger">No result: {temperatureProblem}</AppText>
+        </View>
+        {wide ? null : options}
+      </View>
+    ) : state.kind === 'result' ? (
       <View style={styles.cards} testID="check-result">
         <VerdictCard result={shown ?? state.result} />
         <LibraryMeasuredCard formula={state.result.formula} temperatureC={temperatureC} onDecision={onDecision} />

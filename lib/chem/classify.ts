@@ -12,7 +12,8 @@ import * as numberFormat from './number-format';
 import type { ElectronConfiguration, MetalElement } from './metal-ions';
 import * as measuredDeltaOModule from './measured-delta-o';
 import * as orbitalFilling from './orbital-filling';
-import { FormulaError, type Classification, type ClassifyOptions, type EngineDecidedBy, type LigandInstance, type MeasuredRate } from './types';
+import * as geometryFit from './geometry-fit';
+import { FormulaError, GeometryMismatchError, type Classification, type ClassifyOptions, type EngineDecidedBy, type LigandInstance, type MeasuredRate } from './types';
 
 // Under tsx (the server, the bench, scripts) every module is compiled to CommonJS and each use of
 // an imported name becomes a call through a shared getter, a measurable cost in a function that
@@ -20,6 +21,7 @@ import { FormulaError, type Classification, type ClassifyOptions, type EngineDec
 const { cautionsFor } = cautionsModule;
 const { measuredDeltaOFor } = measuredDeltaOModule;
 const { fillOrbitals, splittingSchemeFor } = orbitalFilling;
+const { geometryMismatch } = geometryFit;
 const { coordinationNumber, predictGeometry, valenceElectronCount, settleFlexibleDenticity } = electronCounting;
 const { parseFormulaWithMolarMass } = formulaParser;
 const {
@@ -237,6 +239,10 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
 
   const cn = coordinationNumber(ligands);
   const predictedGeometry = predictGeometry({ coordinationNumber: cn, dElectrons, electronShell, series: element.series, metal, oxidationState, ligands });
+  if (options.geometry) {
+    const mismatch = geometryMismatch(options.geometry, cn);
+    if (mismatch) throw new GeometryMismatchError(`Geometry ${mismatch}`, formula);
+  }
   const geometry = options.geometry ?? predictedGeometry;
   const geometrySource = options.geometry ? 'given' : 'predicted';
 
@@ -481,7 +487,7 @@ function ligandSummaries(ligands: readonly LigandInstance[]): Classification['li
   return summaries;
 }
 
-export type ClassifyManyResult = Classification | { formula: string; error: string; position: number };
+export type ClassifyManyResult = Classification | { formula: string; error: string; position: number | null };
 
 export function classifyMany(formulas: readonly string[], options?: ClassifyOptions): ClassifyManyResult[] {
   const results: ClassifyManyResult[] = new Array(formulas.length);
@@ -490,7 +496,8 @@ export function classifyMany(formulas: readonly string[], options?: ClassifyOpti
     try {
       results[index] = classifyFormula(formula, options);
     } catch (error) {
-      if (error instanceof FormulaError) results[index] = { formula, error: error.message, position: error.position };
+      if (error instanceof GeometryMismatchError) results[index] = { formula, error: error.message, position: null };
+      else if (error instanceof FormulaError) results[index] = { formula, error: error.message, position: error.position };
       else throw error;
     }
   }

@@ -18,6 +18,18 @@ export class FormulaError extends Error {
   }
 }
 
+/**
+ * A geometry override that cannot hold the complex's ligands (square-planar for six donor atoms).
+ * A FormulaError so batch callers report it per formula; `field` says which input is wrong.
+ */
+export class GeometryMismatchError extends FormulaError {
+  readonly field = 'geometry';
+  constructor(message: string, formula: string) {
+    super(message, formula, -1);
+    this.name = 'GeometryMismatchError';
+  }
+}
+
 export type Geometry =
   | 'linear'
   | 'trigonal-planar'
@@ -271,6 +283,7 @@ export interface CentreClassification {
 }
 
 /** A formula problem for people: the message, with the character (from 1) unless it already names it. */
-export function formulaProblemText(message: string, position: number): string {
+export function formulaProblemText(message: string, position: number | null): string {
+  if (position === null || position < 0) return message;
   return /character \d+/.test(message) ? message : `${message} (character ${position + 1})`;
 }

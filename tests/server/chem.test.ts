@@ -75,6 +75,14 @@ describe('POST /api/classify', () => {
     expect(Object.keys(parsed.error.fields ?? {}).join(' ')).toContain(field);
   });
 
+  it('refuses a geometry that cannot hold the ligands, naming the field (common practice: six donors are octahedral)', async () => {
+    const response = await request(testApp.app).post('/api/classify').send({ formula: '[Co(NH3)6]3+', geometry: 'square-planar' });
+    expect(response.status).toBe(400);
+    const body = apiErrorBodySchema.parse(response.body);
+    expect(body.error.code).toBe('VALIDATION_FAILED');
+    expect(body.error.fields?.geometry).toMatch(/needs coordination number 4, but this complex has 6/);
+  });
+
   it('rejects a JSON array or a string body with 400, not 500', async () => {
     expect((await post('/api/classify', ['[Co(NH3)6]3+'])).status).toBe(400);
     const asText = await request(testApp.app).post('/api/classify').set('Content-Type', 'application/json').send('"x"');

@@ -7,7 +7,7 @@ import {
 import { decideByLibrary, pickDecidingMeasurement } from '@/lib/chem/library-decision';
 import { marcusCrossRate, MarcusInputError, type MarcusInput } from '@/lib/chem/marcus';
 import { predictRoute, predictRoutes, RouteInputError } from '@/lib/chem/route';
-import { FormulaError, formulaProblemText, type Classification, type LibraryMeasurementRef } from '@/lib/chem/types';
+import { FormulaError, formulaProblemText, GeometryMismatchError, type Classification, type LibraryMeasurementRef } from '@/lib/chem/types';
 import type { ClassifyRequest, MarcusRequest, RouteRequest } from '@/lib/schemas/chem';
 import { AppError } from '@/server/http/errors';
 import { ligandSetKeyOf } from '@/server/modules/library/derive';
@@ -21,6 +21,9 @@ export function classify(request: ClassifyRequest) {
   try {
     return classifyFormula(formula, options);
   } catch (error) {
+    if (error instanceof GeometryMismatchError) {
+      throw new AppError('VALIDATION_FAILED', error.message, { geometry: error.message });
+    }
     if (error instanceof FormulaError) {
       throw new AppError(
         'VALIDATION_FAILED',

@@ -138,3 +138,13 @@ describe('verdict bands: one definition, consistent with the one-minute line', (
     }
   });
 });
+
+describe('a geometry override must fit the coordination number', () => {
+  it('refuses square-planar for six donor atoms, with the geometries that would fit', () => {
+    expect(() => classifyFormula('[Co(NH3)6]3+', { geometry: 'square-planar' })).toThrow(/square-planar needs coordination number 4, but this complex has 6 \(it can be octahedral\)/);
+  });
+
+  it('takes an override that fits (common practice: CN 4 is tetrahedral or square planar)', () => {
+    expect(classifyFormula('[NiCl4]2-', { geometry: 'square-planar' }).geometry).toBe('square-planar');
+  });
+});
