@@ -41,7 +41,9 @@ async function main() {
   let serverLog = '';
   const server = spawn(process.execPath, [require.resolve('tsx/cli'), 'server/index.ts'], {
     cwd: root,
-    env: { ...process.env, PORT: String(port), DATABASE_URL: cluster.url, LOG_REQUESTS: '0', NODE_ENV: 'production' },
+    // Development mode: the demo lab is seeded only outside production (the production start is
+    // checked by `npm run test:smoke`). The web app is the same exported build either way.
+    env: { ...process.env, PORT: String(port), DATABASE_URL: cluster.url, LOG_REQUESTS: '0', NODE_ENV: 'development' },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   server.stdout?.on('data', (chunk: Buffer) => (serverLog += chunk.toString()));
