@@ -66,7 +66,7 @@ describe('which writes empty which cache', () => {
 });
 
 describe('session lookups', () => {
-  it('are read once, then answered from memory', async () => {
+  it('are read once, then answered from the in-process cache', async () => {
     expect((await viewer.get('/api/auth/me')).status).toBe(200);
     expect(await statementsOf(() => viewer.get('/api/auth/me'))).toBe(0);
   });
@@ -92,7 +92,7 @@ describe('session lookups', () => {
 });
 
 describe('library searches', () => {
-  it('repeat from memory, and a write in this process shows on the very next search', async () => {
+  it('repeat from the in-process cache, and a write in this process shows on the very next search', async () => {
     const first = await viewer.get(searchPath());
     expect(first.status).toBe(200);
     expect(first.body.total).toBe(12);

@@ -71,7 +71,7 @@ describe('the signed-in path', () => {
     expect(writes(cold)).toEqual([]);
     statements.length = 0;
     for (let i = 0; i < 5; i += 1) expect((await curator.get('/api/auth/me')).status).toBe(200);
-    // The first may look the session up again; the rest are answered from memory.
+    // The first may look the session up again; the rest are answered from the in-process cache.
     expect(statements.length).toBeLessThanOrEqual(1);
     expect(writes(statements)).toEqual([]);
   });

@@ -21,7 +21,7 @@ import type { CitationRef } from '@/lib/chem/types';
 // Xu, Krouse & Swaddle, Inorg. Chem. 1985, 24, 267: [Cr(H2O)6]3+ k_ex = 2.4e-6 s⁻¹ at 298 K.
 const xu1985: CitationRef = { authors: 'F.-C. Xu, H. R. Krouse, T. W. Swaddle', title: null, journal: 'Inorg. Chem.', year: 1985, volume: '24', pages: '267-270', doi: null };
 const CR_AQUA_K = 2.4e-6;
-// Ducommun, Newman & Merbach, Inorg. Chem. 1980, 19, 3696: [Ni(H2O)6]2+ k_ex = 3.2e4 s⁻¹ at 298 K (from memory; as in the water-exchange reference table).
+// Ducommun, Newman & Merbach, Inorg. Chem. 1980, 19, 3696: [Ni(H2O)6]2+ k_ex = 3.2e4 s⁻¹ at 298 K (recalled; as in the water-exchange reference table).
 const ducommun1980: CitationRef = { authors: 'Y. Ducommun, K. E. Newman, A. E. Merbach', title: null, journal: 'Inorg. Chem.', year: 1980, volume: '19', pages: '3696-3703', doi: null };
 const NI_AQUA_K = 3.2e4;
 // Laurenczy et al., Magn. Reson. Chem. 1991, 29, S45: [Rh(H2O)6]3+ k_ex = 2.2e-9 s⁻¹ at 298 K.
