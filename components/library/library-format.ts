@@ -46,11 +46,23 @@ export function conditionsText(measurement: Pick<Measurement, 'temperatureK' | '
   return parts.length > 0 ? parts.join(' · ') : 'conditions not recorded';
 }
 
-/** "L. Helm, A. E. Merbach, Chem. Rev. 2005, 105, 1923–1960" */
+/**
+ * A clean reference: "L. Helm, A. E. Merbach, Chem. Rev., 2005, 105, 1923–1960"; a book
+ * "A. J. Bard, R. Parsons, J. Jordan, Standard Potentials in Aqueous Solution, Marcel Dekker, New York, 1985";
+ * a chapter "…, title, in Book, Publisher, 2026, 11–40"; a web page without its address.
+ */
 export function citationText(citation: Citation): string {
-  const where = [citation.journal, citation.year, citation.volume, citation.pages?.replace('-', '–')]
-    .filter((part) => part !== null && part !== undefined && part !== '')
-    .join(', ');
+  const pages = citation.pages?.replace('-', '–');
+  const kind = citation.kind ?? 'article';
+  const parts =
+    kind === 'book'
+      ? [citation.title ?? citation.journal, citation.publisher, citation.place, citation.year]
+      : kind === 'chapter'
+        ? [citation.title, citation.journal ? `in ${citation.journal}` : null, citation.publisher, citation.year, pages]
+        : kind === 'web-page'
+          ? [citation.title, citation.journal, citation.year]
+          : [citation.journal, citation.year, citation.volume, pages];
+  const where = parts.filter((part) => part !== null && part !== undefined && part !== '').join(', ');
   return `${citation.authors}, ${where}`;
 }
 

@@ -52,7 +52,7 @@ export function candidatesFromRows(
       value: row.value,
       unit: row.unit,
       temperatureK: row.temperatureK,
-      citation: c ? { authors: c.authors, title: c.title, journal: c.journal, year: c.year, volume: c.volume, pages: c.pages, doi: c.doi } : null,
+      citation: c ? { authors: c.authors, title: c.title, journal: c.journal, year: c.year, volume: c.volume, pages: c.pages, doi: c.doi, kind: c.kind, publisher: c.publisher } : null,
     });
   }
   return [...byEntry.values()];
@@ -119,6 +119,9 @@ export function logKMovedTo(kPerSecond: number, measuredAtK: number, temperature
 /** "Helm, Merbach, Chem. Rev. 2005, 105, 1923" — authors, journal, year, volume, pages, in one line. */
 export function shortCitation(citation: CitationRef | null): string {
   if (!citation) return 'no citation given';
+  if (citation.kind === 'book') {
+    return [citation.authors, citation.title ?? citation.journal, citation.publisher, citation.year].filter((p) => p !== null && p !== undefined && p !== '').join(', ');
+  }
   const parts = [citation.authors, [citation.journal, citation.year ?? undefined].filter((p) => p !== undefined && p !== '').join(' ')];
   if (citation.volume) parts.push(citation.volume);
   if (citation.pages) parts.push(citation.pages);

@@ -174,6 +174,9 @@ export interface CitationRef {
   volume: string | null;
   pages: string | null;
   doi: string | null;
+  /** article (default), book, chapter or web-page; books name their publisher. */
+  kind?: 'article' | 'book' | 'chapter' | 'web-page';
+  publisher?: string | null;
 }
 
 /** The group-library measurement that decides a verdict (POST /api/classify with groupId). */

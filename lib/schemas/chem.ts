@@ -65,6 +65,8 @@ export const citationRefSchema = z.object({
   volume: z.string().nullable(),
   pages: z.string().nullable(),
   doi: z.string().nullable(),
+  kind: z.enum(['article', 'book', 'chapter', 'web-page']).optional(),
+  publisher: z.string().nullable().optional(),
 });
 
 /** The group-library measurement that decided (decidedBy "library"). */

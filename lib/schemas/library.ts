@@ -112,12 +112,24 @@ export const doiSchema = z
 const shortText = (what: string, max: number) =>
   z.string({ error: `${what} must be text.` }).trim().max(max, `${what} has at most ${max} characters.`);
 
+/** What kind of work a citation is; decides the BibTeX and RIS entry type of an export. */
+export const citationKinds = ['article', 'book', 'chapter', 'web-page'] as const;
+export const citationKindSchema = z.enum(citationKinds, { error: `Choose a kind of source: ${citationKinds.join(', ')}.` });
+export type CitationKind = z.infer<typeof citationKindSchema>;
+
+/** A stored kind, or "article" for records from before kinds were kept. */
+export function citationKindOf(kind: unknown): CitationKind {
+  return (citationKinds as readonly unknown[]).includes(kind) ? (kind as CitationKind) : 'article';
+}
+
 export const citationInputSchema = z
   .object({
     doi: doiSchema.nullish(),
+    kind: citationKindSchema.optional(),
     authors: shortText('Authors', 1000).min(1, 'Give the authors (e.g. "L. Helm, A. E. Merbach").'),
     title: shortText('Title', 500).nullish(),
-    journal: shortText('Journal', 200).min(1, 'Give the journal or book.'),
+    /** The journal of an article, the book a chapter is in, the site of a web page; books leave it empty. */
+    journal: shortText('Journal', 200).default(''),
     year: z
       .number({ error: 'The year must be a number.' })
       .int('The year must be a whole number.')
@@ -127,8 +139,24 @@ export const citationInputSchema = z
       .nullish(),
     volume: shortText('Volume', 40).nullish(),
     pages: shortText('Pages', 40).nullish(),
+    publisher: shortText('Publisher', 200).nullish(),
+    place: shortText('Place', 120).nullish(),
+    url: z
+      .string({ error: 'The address must be text.' })
+      .trim()
+      .max(500, 'The address has at most 500 characters.')
+      .regex(/^https?:\/\/\S+$/, 'The address starts with https:// or http://.')
+      .nullish(),
   })
-  .strict();
+  .strict()
+  .superRefine((c, ctx) => {
+    const kind = c.kind ?? 'article';
+    if ((kind === 'article' || kind === 'chapter') && !c.journal) {
+      ctx.addIssue({ code: 'custom', path: ['journal'], message: kind === 'chapter' ? 'Give the book the chapter is in.' : 'Give the journal or book.' });
+    }
+    if (kind === 'book' && !c.title && !c.journal) ctx.addIssue({ code: 'custom', path: ['title'], message: 'Give the title of the book.' });
+    if (kind === 'web-page' && !c.url) ctx.addIssue({ code: 'custom', path: ['url'], message: 'Give the address of the web page.' });
+  });
 export type CitationInput = z.infer<typeof citationInputSchema>;
 
 /**
@@ -145,6 +173,11 @@ export const citationSchema = z.object({
   year: z.number().int().nullable(),
   volume: z.string().nullable(),
   pages: z.string().nullable(),
+  // Records and snapshots from before kinds were kept read as articles.
+  kind: citationKindSchema.default('article'),
+  publisher: z.string().nullable().default(null),
+  place: z.string().nullable().default(null),
+  url: z.string().nullable().default(null),
 });
 export type Citation = z.infer<typeof citationSchema>;
 

@@ -4,6 +4,7 @@ import { Migration20261215000000_library } from './Migration20261215000000_libra
 import { Migration20261220000000_exchange } from './Migration20261220000000_exchange';
 import { Migration20261230000000_library_search } from './Migration20261230000000_library_search';
 import { Migration20261231000000_library_search_order } from './Migration20261231000000_library_search_order';
+import { Migration20270125000000_citation_kind } from './Migration20270125000000_citation_kind';
 import { Migration20270130000000_change_feed } from './Migration20270130000000_change_feed';
 
 /**
@@ -17,5 +18,6 @@ export const migrationsList = [
   { name: 'Migration20261220000000_exchange', class: Migration20261220000000_exchange },
   { name: 'Migration20261230000000_library_search', class: Migration20261230000000_library_search },
   { name: 'Migration20261231000000_library_search_order', class: Migration20261231000000_library_search_order },
+  { name: 'Migration20270125000000_citation_kind', class: Migration20270125000000_citation_kind },
   { name: 'Migration20270130000000_change_feed', class: Migration20270130000000_change_feed },
 ];

@@ -10,6 +10,19 @@ import type { Citation } from '@/lib/schemas/library';
 
 const particles = new Set(['van', 'von', 'de', 'der', 'den', 'da', 'del', 'di', 'du', 'la', 'le', 'dos', 'ten', 'ter']);
 
+/** Words that make a name a body rather than a person (common practice in reference managers). */
+const corporateWords = /\b(union|society|commission|committee|council|institute|institution|agency|association|organi[sz]ation|office|laboratory|lab|department|academy|bureau|consortium|foundation|university|group|federation)\b/i;
+
+/**
+ * A corporate author kept whole: an acronym ("IUPAC", "NIST"), a body's name ("International Union
+ * of Pure and Applied Chemistry"), or a name the person wrapped in braces ("{Larkspur Lab}").
+ */
+export function isCorporateAuthor(part: string): boolean {
+  if (/^\{.*\}$/.test(part)) return true;
+  if (/^[A-Z][A-Z0-9&-]{1,}$/.test(part)) return true;
+  return corporateWords.test(part) && !/\b[A-Z]\./.test(part);
+}
+
 /**
  * The library stores authors as typed: "F.-C. Xu, H. R. Krouse, T. W. Swaddle", "L. Helm & A. E.
  * Merbach" or "Xu, F.-C.; Krouse, H. R.". Names are split on ";" when present (then "Family, Given"),
@@ -25,15 +38,19 @@ export function splitAuthors(authors: string): CslName[] {
       .map((part) => part.trim())
       .filter(Boolean)
       .map((part) => {
+        if (isCorporateAuthor(part)) return { literal: part.replace(/^\{(.*)\}$/, '$1') };
         const [family, given] = part.split(',').map((s) => s.trim());
         return given ? { family: family ?? part, given } : { literal: part };
       });
   }
+  // A whole-name body ("International Union of Pure and Applied Chemistry") holds "and": keep it in one piece.
+  if (isCorporateAuthor(text) && !text.includes(',')) return [{ literal: text.replace(/^\{(.*)\}$/, '$1') }];
   return text
     .split(/\s*(?:,|&|\band\b)\s*/)
     .map((part) => part.trim())
     .filter(Boolean)
     .map((part) => {
+      if (isCorporateAuthor(part)) return { literal: part.replace(/^\{(.*)\}$/, '$1') };
       const words = part.split(/\s+/);
       if (words.length === 1) return { family: part };
       let start = words.length - 1;
@@ -50,9 +67,24 @@ export function joinAuthors(names: readonly { given?: string; family?: string; l
     .join(', ');
 }
 
+/** CSL types per kind: BibTeX @article/@book/@inbook/@misc(url), RIS JOUR/BOOK/CHAP/ELEC (citation-js mappings). */
+const CSL_TYPES = { article: 'article-journal', book: 'book', chapter: 'chapter', 'web-page': 'webpage' } as const;
+
 export function toCslItem(citation: Citation): CslItem {
-  const item: CslItem = { id: citation.id, type: 'article-journal', author: splitAuthors(citation.authors), 'container-title': citation.journal };
-  if (citation.title) item.title = citation.title;
+  const kind = citation.kind ?? 'article';
+  const item: CslItem = { id: citation.id, type: CSL_TYPES[kind], author: splitAuthors(citation.authors) };
+  if (kind === 'book') {
+    // A book's title is the work itself; what older records kept in "journal" is its title when none was given.
+    const title = citation.title ?? (citation.journal || undefined);
+    if (title) item.title = title;
+  } else {
+    if (citation.title) item.title = citation.title;
+    // The journal, the book a chapter is in, or the site a web page belongs to.
+    if (citation.journal) item['container-title'] = citation.journal;
+  }
+  if (citation.publisher && kind !== 'article') item.publisher = citation.publisher;
+  if (citation.place && kind !== 'article') item['publisher-place'] = citation.place;
+  if (citation.url && kind === 'web-page') item.URL = citation.url;
   if (citation.year !== null) item.issued = { 'date-parts': [[citation.year]] };
   if (citation.volume) item.volume = citation.volume;
   if (citation.pages) item.page = citation.pages;

@@ -15,6 +15,11 @@ export const Citation = defineEntity({
     year: p.integer().nullable(),
     volume: p.string().length(40).nullable(),
     pages: p.string().length(40).nullable(),
+    /** article | book | chapter | web-page (migration 20270125). */
+    kind: p.string().length(16).default('article'),
+    publisher: p.string().length(200).nullable(),
+    place: p.string().length(120).nullable(),
+    url: p.string().length(500).nullable(),
     createdById: p.uuid().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
   },

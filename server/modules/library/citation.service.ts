@@ -25,14 +25,18 @@ export async function findOrCreateCitation(
     year: input.year ?? null,
     volume: input.volume ?? null,
     pages: input.pages ?? null,
+    kind: input.kind ?? 'article',
+    publisher: input.publisher ?? null,
+    place: input.place ?? null,
+    url: input.url ?? null,
   };
   if (doi) {
     const id = randomUUID();
     const inserted = await em.execute<{ id: string }[]>(
-      `insert into citation (id, group_id, doi, authors, title, journal, year, volume, pages, created_by_id, created_at)
-       values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, now())
+      `insert into citation (id, group_id, doi, authors, title, journal, year, volume, pages, kind, publisher, place, url, created_by_id, created_at)
+       values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, now())
        on conflict (group_id, lower(doi)) where doi is not null do nothing returning id`,
-      [id, groupId, doi, values.authors, values.title, values.journal, values.year, values.volume, values.pages, actorId],
+      [id, groupId, doi, values.authors, values.title, values.journal, values.year, values.volume, values.pages, values.kind, values.publisher, values.place, values.url, actorId],
     );
     const existing = await em.execute<Record<string, unknown>[]>(
       'select * from citation where group_id = ? and lower(doi) = lower(?)',
@@ -44,8 +48,9 @@ export async function findOrCreateCitation(
   }
   const same = await em.execute<Record<string, unknown>[]>(
     `select * from citation where group_id = ? and doi is null and authors = ? and journal = ?
-       and year is not distinct from ? and volume is not distinct from ? and pages is not distinct from ? limit 1`,
-    [groupId, values.authors, values.journal, values.year, values.volume, values.pages],
+       and year is not distinct from ? and volume is not distinct from ? and pages is not distinct from ?
+       and kind = ? and title is not distinct from ? and publisher is not distinct from ? and url is not distinct from ? limit 1`,
+    [groupId, values.authors, values.journal, values.year, values.volume, values.pages, values.kind, values.title, values.publisher, values.url],
   );
   if (same[0]) return { citation: fromRow(same[0]), created: false };
   const id = randomUUID();
@@ -64,6 +69,10 @@ function fromRow(row: Record<string, unknown>): CitationDto {
     year: (row.year as number | null) ?? null,
     volume: (row.volume as string | null) ?? null,
     pages: (row.pages as string | null) ?? null,
+    kind: (row.kind as string | null) ?? null,
+    publisher: (row.publisher as string | null) ?? null,
+    place: (row.place as string | null) ?? null,
+    url: (row.url as string | null) ?? null,
   });
 }
 

@@ -1,3 +1,4 @@
+import { citationKindOf } from '@/lib/schemas/library';
 import type { Citation as CitationDto, ComplexSnapshot, Measurement as MeasurementDto, MeasurementUnit, PersonRef } from '@/lib/schemas/library';
 
 /** Entities never leave server/: these turn rows into the shared DTOs. */
@@ -12,6 +13,10 @@ export interface CitationRow {
   year?: number | null;
   volume?: string | null;
   pages?: string | null;
+  kind?: string | null;
+  publisher?: string | null;
+  place?: string | null;
+  url?: string | null;
 }
 
 export function toCitationDto(row: CitationRow): CitationDto {
@@ -25,6 +30,10 @@ export function toCitationDto(row: CitationRow): CitationDto {
     year: row.year ?? null,
     volume: row.volume ?? null,
     pages: row.pages ?? null,
+    kind: citationKindOf(row.kind),
+    publisher: row.publisher ?? null,
+    place: row.place ?? null,
+    url: row.url ?? null,
   };
 }
 

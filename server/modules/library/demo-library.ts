@@ -122,7 +122,7 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
     if (!id) {
       id = randomUUID();
       citationIds.set(key, id);
-      citationRows.push({ id, groupId: group.id, doi: input.doi ?? null, authors: input.authors, title: input.title ?? null, journal: input.journal, year: input.year ?? null, volume: input.volume ?? null, pages: input.pages ?? null, createdById: people.get('curator') ?? null, createdAt: new Date(startMs) });
+      citationRows.push({ id, groupId: group.id, doi: input.doi ?? null, authors: input.authors, title: input.title ?? null, journal: input.journal, year: input.year ?? null, volume: input.volume ?? null, pages: input.pages ?? null, kind: input.kind ?? 'article', publisher: input.publisher ?? null, place: input.place ?? null, url: input.url ?? null, createdById: people.get('curator') ?? null, createdAt: new Date(startMs) });
     }
     return toCitationDto({ id, groupId: group.id, ...input });
   };
