@@ -6,6 +6,7 @@ import { readEnv, type Env } from './env';
 import { attachAccounts, originCheck } from './http/auth-middleware';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { requestLog } from './http/request-log';
+import { hostAllowList } from './http/host-allow-list';
 import { rejectUnstorableText } from './http/unstorable-text';
 import { serveWebApp } from './web/serve-web-app';
 import { defaultAuthSettings, type AccountsContext, type AuthSettings } from './modules/auth/auth-context';
@@ -77,6 +78,7 @@ export function createApp({ orm, webDir, logRequests = false, ...options }: AppO
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  app.use(hostAllowList(env.appUrl, env.ALLOWED_HOSTS));
   app.use(
     helmet({
       contentSecurityPolicy: {

@@ -22,6 +22,11 @@ const envSchema = z.object({
   /** The address people reach the app at, for links in e-mails (default http://HOST:PORT). */
   APP_URL: z.url('must be a URL like https://sphereline.example.org').optional(),
   MAIL_FROM: z.string().min(3).default('Sphereline <no-reply@sphereline.example.org>'),
+  /**
+   * Further host names this server answers for, comma-separated, besides APP_URL's host and loopback
+   * (e.g. a second public name). Any other Host header is refused (DNS rebinding, Host spoofing).
+   */
+  ALLOWED_HOSTS: z.string().default(''),
   /** Bibliographic metadata service for DOI look-up (GET {METADATA_URL}/works/{doi}). Unset outside production: a local fake. */
   METADATA_URL: z.url('must be a URL like https://api.example.org').optional(),
   /** S3-compatible store for attachments. Unset outside production: a local fake S3 under DATA_DIR/s3. */

@@ -39,7 +39,8 @@ async function main() {
   let interrupted = false;
   const child = spawn(process.execPath, [require.resolve('jest/bin/jest'), ...jestArgs], {
     stdio: 'inherit',
-    env: { ...env, NODE_ENV: 'test' },
+    // The server tests' browser helper addresses the app as sphereline.test (tests/server/auth-helpers.ts).
+    env: { ...env, NODE_ENV: 'test', ALLOWED_HOSTS: env.ALLOWED_HOSTS ?? 'sphereline.test' },
   });
   const forward = (signal: NodeJS.Signals) => {
     interrupted = true;

@@ -2,7 +2,7 @@
  * `npm run test:smoke`: the product as a production server starts it, on a fresh database.
  * Starts `server/index.ts` with NODE_ENV=production (its own private PostgreSQL under a temporary
  * DATA_DIR), then checks from outside: no demo sign-in works, the development outbox answers 404,
- * the first-administrator command prints a link that sets a password exactly once, that person can
+ * a forged Host is refused, the first-administrator command prints a link that sets a password exactly once, that person can
  * sign in, and stopping the server stops the PostgreSQL it started. Exits non-zero on the first failure.
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
@@ -96,6 +96,15 @@ async function main() {
       check(response.status === 401, `demo sign-in of ${account.email} is refused (401)`);
     }
     check((await send('GET', '/api/dev/outbox')).status === 404, 'the development outbox answers 404');
+    const forged = await new Promise<number>((resolve, reject) => {
+      // fetch() will not send another Host; a raw request does.
+      const socket = net.connect(port, '127.0.0.1', () => socket.write('GET /api/health/live HTTP/1.1\r\nHost: attacker.example.com\r\nConnection: close\r\n\r\n'));
+      let reply = '';
+      socket.on('data', (chunk: Buffer) => (reply += chunk.toString()));
+      socket.on('end', () => resolve(Number(/^HTTP\/1\.1 (\d+)/.exec(reply)?.[1] ?? 0)));
+      socket.on('error', reject);
+    });
+    check(forged === 403, 'a forged Host header is refused (403)');
 
     const admin = spawnSync(
       process.execPath,

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import type { Orm } from '@/server/db/orm';
+import { isLoopbackHost } from '@/server/http/host-allow-list';
 import { extractLinks, parseMail } from './mime';
 import { DevOutboxMessage } from './outbox-message.entity';
 
@@ -23,11 +24,13 @@ function outboxPage(messages: { receivedAt: string; to: string[]; subject: strin
 
 /**
  * GET /api/dev/outbox[?to=address]: what the local mail sink received, newest first, so a person
- * (or a test) can follow the links. Only mounted outside production.
+ * (or a test) can follow the links. Only mounted outside production, and it answers only requests
+ * addressed to a loopback host (127.0.0.1, localhost): the links in it take over accounts.
  */
 export function devOutboxRoutes(orm: Orm): Router {
   const router = Router();
-  router.get('/dev/outbox', async (req, res) => {
+  router.get('/dev/outbox', async (req, res, next) => {
+    if (!isLoopbackHost(req)) return next();
     const to = typeof req.query.to === 'string' ? req.query.to.trim().toLowerCase() : null;
     const rows = await orm.em.fork().find(DevOutboxMessage, {}, { orderBy: { receivedAt: 'desc' }, limit: 200 });
     const messages = rows
