@@ -70,9 +70,34 @@ export function joinAuthors(names: readonly { given?: string; family?: string; l
 /** CSL types per kind: BibTeX @article/@book/@inbook/@misc(url), RIS JOUR/BOOK/CHAP/ELEC (citation-js mappings). */
 const CSL_TYPES = { article: 'article-journal', book: 'book', chapter: 'chapter', 'web-page': 'webpage' } as const;
 
+/**
+ * Line breaks, tabs and other control characters in any field become one space: in RIS a line break
+ * starts a new tag (a forged record), and no bibliographic field needs one.
+ */
+export function oneLine(value: string): string {
+   
+  return value.replace(/[\u0000-\u001f\u007f\u2028\u2029]+/g, ' ').replace(/ {2,}/g, ' ').trim();
+}
+
+const TEX_SPECIALS: Record<string, string> = {
+  '\\': '\\textbackslash{}',
+  '{': '\\textbraceleft{}',
+  '}': '\\textbraceright{}',
+  '%': '\\%',
+  '&': '\\&',
+  '#': '\\#',
+  '$': '\\$',
+  '_': '\\_',
+};
+
+/** TeX's special characters written as text (for the names the citation library writes unescaped). */
+export function texEscape(value: string): string {
+  return value.replace(/[\\{}%&#$_]/g, (ch) => TEX_SPECIALS[ch] ?? ch);
+}
+
 export function toCslItem(citation: Citation): CslItem {
   const kind = citation.kind ?? 'article';
-  const item: CslItem = { id: citation.id, type: CSL_TYPES[kind], author: splitAuthors(citation.authors) };
+  const item: CslItem = { id: citation.id, type: CSL_TYPES[kind], author: splitAuthors(oneLine(citation.authors)) };
   if (kind === 'book') {
     // A book's title is the work itself; what older records kept in "journal" is its title when none was given.
     const title = citation.title ?? (citation.journal || undefined);
@@ -89,12 +114,30 @@ export function toCslItem(citation: Citation): CslItem {
   if (citation.volume) item.volume = citation.volume;
   if (citation.pages) item.page = citation.pages;
   if (citation.doi) item.DOI = citation.doi;
+  for (const key of Object.keys(item) as (keyof CslItem)[]) {
+    const value = item[key];
+    if (typeof value === 'string') (item as Record<string, unknown>)[key] = oneLine(value);
+  }
   return item;
+}
+
+/**
+ * The citation library escapes the names it splits into given and family parts, but writes a
+ * single-word or corporate name as it is, inside braces: "\\input{…}" or a "}" would pass into the
+ * file. Those names are escaped here first.
+ */
+function forBibtex(item: CslItem): CslItem {
+  const author = (item.author ?? []).map((name) => {
+    if (name.literal !== undefined) return { ...name, literal: texEscape(name.literal) };
+    if (name.given === undefined && name.family !== undefined) return { ...name, family: texEscape(name.family) };
+    return name;
+  });
+  return { ...item, author };
 }
 
 export function citationsAsBibtex(citations: readonly Citation[]): string {
   if (citations.length === 0) return '';
-  return new Cite(citations.map(toCslItem)).format('bibtex');
+  return new Cite(citations.map((citation) => forBibtex(toCslItem(citation)))).format('bibtex');
 }
 
 /**

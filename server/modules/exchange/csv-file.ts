@@ -2,6 +2,7 @@ import { parse } from 'csv-parse/sync';
 import { csvColumns, csvColumnSynonyms, IMPORT_MAX_ROWS, type CsvColumn, type CsvMapping, type ImportIssue } from '@/lib/schemas/exchange';
 import { AppError } from '@/server/http/errors';
 import { binaryKindOf, binaryKindWords, decodeText } from '@/server/modules/attachments/file-sniff';
+import { readSpreadsheetCell } from './spreadsheet-safety';
 
 /**
  * Reading an uploaded CSV file before any row is validated: what the bytes are (magic numbers,
@@ -73,7 +74,7 @@ export function readCsvTable(bytes: Buffer): CsvTable {
       });
       return;
     }
-    rows.push(record);
+    rows.push(record.map(readSpreadsheetCell));
     rowNumbers.push(row);
   });
   if (ragged.length > 0) {

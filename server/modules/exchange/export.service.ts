@@ -1,6 +1,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { stringify } from 'csv-stringify/sync';
 import { csvColumns, type CsvColumn, type ExportQuery } from '@/lib/schemas/exchange';
+import { spreadsheetSafe } from './spreadsheet-safety';
 import type { Citation as CitationDto, ComplexSnapshot } from '@/lib/schemas/library';
 import { Citation } from '@/server/modules/library/citation.entity';
 import { Complex } from '@/server/modules/library/complex.entity';
@@ -94,11 +95,11 @@ export function snapshotsAsCsv(snapshots: readonly ComplexSnapshot[]): string {
           });
         }
       }
-      rows.push(csvColumns.map((column) => values[column] ?? ''));
+      rows.push(csvColumns.map((column) => spreadsheetSafe(values[column] ?? '')));
     }
   });
-  // Cells starting with = + - @ are not prefixed: formulas such as "-" signs in values must round-trip;
-  // spreadsheets open the file as text when imported as CSV UTF-8.
+  // Cells a spreadsheet would run as formulas carry a leading apostrophe (spreadsheet-safety.ts);
+  // the importer takes it off again, so an export still imports back unchanged.
   return stringify([csvColumns as unknown as string[], ...rows], { record_delimiter: '\r\n' });
 }
 
