@@ -45,6 +45,27 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
     onPairSettled?.(settledOxidant.trim(), settledReductant.trim());
   }, [settledOxidant, settledReductant, onPairSettled]);
 
+  // A pair given the wrong way round is swapped once, in the fields too, and said once.
+  const [swapNotice, setSwapNotice] = useState<string | null>(null);
+  const swappedResult = state.kind === 'result' && state.result.roles.swapped ? state.result : null;
+  const [handledSwap, setHandledSwap] = useState<typeof swappedResult>(null);
+  if (swappedResult && swappedResult !== handledSwap) {
+    // Adjusted while rendering (not in an effect): the fields take the swapped order at once, and
+    // the answer for them comes in the right order, so this happens once per pair.
+    setHandledSwap(swappedResult);
+    setSwapNotice(swappedResult.roles.note);
+    setOxidant(settledReductant);
+    setReductant(settledOxidant);
+  }
+  const editOxidant = (text: string) => {
+    setSwapNotice(null);
+    setOxidant(text);
+  };
+  const editReductant = (text: string) => {
+    setSwapNotice(null);
+    setReductant(text);
+  };
+
   const inputs = (
     <View style={styles.inputs}>
       <View style={styles.intro}>
@@ -54,7 +75,7 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
       <FormulaInput
         label="Oxidant"
         value={oxidant}
-        onChangeText={setOxidant}
+        onChangeText={editOxidant}
         problem={state.kind === 'problem' && state.field === 'oxidant' ? state.problem : null}
         placeholder="e.g. [Co(NH3)5Cl]2+"
         testID="oxidant-input"
@@ -63,6 +84,7 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
         label="⇅ Swap"
         kind="quiet"
         onPress={() => {
+          setSwapNotice(null);
           setOxidant(reductant);
           setReductant(oxidant);
         }}
@@ -72,7 +94,7 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
       <FormulaInput
         label="Reductant"
         value={reductant}
-        onChangeText={setReductant}
+        onChangeText={editReductant}
         problem={state.kind === 'problem' && state.field === 'reductant' ? state.problem : null}
         placeholder="e.g. [Cr(H2O)6]2+"
         testID="reductant-input"
@@ -86,6 +108,7 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
               label={`${ox} + ${red}`}
               mono
               onPress={() => {
+                setSwapNotice(null);
                 setOxidant(ox);
                 setReductant(red);
               }}
@@ -111,10 +134,14 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
             <PartnerLine role="Oxidant" formula={result.oxidant.formula} verdict={result.oxidant.verdict} />
             <PartnerLine role="Reductant" formula={result.reductant.formula} verdict={result.reductant.verdict} />
           </View>
-          {result.roles.swapped || result.roles.oxidant !== 'given' ? (
+          {swapNotice ? (
+            <AppText tone="accent" testID="roles-swapped">{swapNotice} The fields have been swapped to match.</AppText>
+          ) : null}
+          {!result.roles.swapped && result.roles.oxidant !== 'given' ? (
             <AppText tone="soft" testID="roles-note">{result.roles.note}</AppText>
           ) : null}
-          <BulletList items={result.reasons} testID="route-reasons" />
+          {/* A swapped answer is replaced at once by the one for the swapped fields; its note is not repeated. */}
+          <BulletList items={result.roles.swapped ? result.reasons.filter((r) => r !== result.roles.note) : result.reasons} testID="route-reasons" />
         </Card>
         <CautionBox cautions={result.cautions} testID="route-cautions" />
         <Card title="Expected products" testID="expected-products">

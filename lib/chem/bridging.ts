@@ -284,8 +284,8 @@ export interface RankOptions {
 }
 
 /**
- * Candidate bridging ligands for a pair, best first: the bridgeable ligands already on the host
- * (present: true) and bridges that could be installed on it (present: false).
+ * Candidate bridging ligands for a pair: the bridgeable ligands already on the host (present: true)
+ * first, best first, then bridges that could be installed on it (present: false), best first.
  */
 export function rankBridgingCandidates(
   oxidant: BridgingPartnerInput,
@@ -338,6 +338,7 @@ export function rankBridgingCandidates(
       });
     }
   }
-  // Highest score first; present ligands before installable ones on a tie; then by name for a stable order.
-  return candidates.sort((a, b) => b.score - a.score || Number(b.present) - Number(a.present) || (a.ligand < b.ligand ? -1 : a.ligand > b.ligand ? 1 : 0));
+  // The bridges already on the complex first (the reaction can only use those), each group by score;
+  // then by name for a stable order. Installable ones are what a chemist could make instead.
+  return candidates.sort((a, b) => Number(b.present) - Number(a.present) || b.score - a.score || (a.ligand < b.ligand ? -1 : a.ligand > b.ligand ? 1 : 0));
 }

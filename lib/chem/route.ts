@@ -164,11 +164,14 @@ function assignRoles(first: RoutePartner, second: RoutePartner, options: RouteOp
     const eRed = swapped ? e1 : e2;
     const oxLabel = swapped ? coupleSecond.couple.label : coupleFirst.couple.label;
     const redLabel = swapped ? coupleFirst.couple.label : coupleSecond.couple.label;
-    const direction =
-      eOx >= eRed
+    const selfExchange = coupleFirst.couple.label === coupleSecond.couple.label;
+    const direction = selfExchange
+      ? `Self-exchange of the ${oxLabel} couple: the same couple on both sides, so ΔE° = 0 and K12 = 1 — no driving force; the electron swaps between the two oxidation states (measurable by isotope labelling or NMR line broadening).`
+      : eOx >= eRed
         ? `E°(${oxLabel}) = ${eOx} V > E°(${redLabel}) = ${eRed} V: downhill (ΔE° = ${(eOx - eRed).toFixed(3)} V).`
         : `E°(${oxLabel}) = ${eOx} V < E°(${redLabel}) = ${eRed} V: this direction is uphill (K12 < 1); the reverse reaction is favoured.`;
-    return make(swapped, 'from-potentials', `${swapped ? 'Order reversed: ' : ''}oxidant is the oxidised form of the higher-potential couple as given. ${direction}`);
+    const lead = selfExchange ? 'oxidant is the oxidised form of the couple.' : 'oxidant is the oxidised form of the higher-potential couple as given.';
+    return make(swapped, 'from-potentials', `${swapped ? 'Order reversed: ' : ''}${lead} ${direction}`);
   }
 
   // Only one (or no) couple known: a known reduced form given as the oxidant, or two oxidation
@@ -204,12 +207,15 @@ function chargeText(charge: number): string {
   return Math.abs(charge) === 1 ? sign : `${Math.abs(charge)}${sign}`;
 }
 
-function writeFormula(metal: string, slots: LigandSlot[], charge: number): string {
-  const body = slots
+function slotText(slots: LigandSlot[]): string {
+  return slots
     .filter((slot) => slot.count > 0)
     .map((slot) => `${slot.token}${slot.count > 1 ? slot.count : ''}`)
     .join('');
-  return `[${metal}${body}]${chargeText(charge)}`;
+}
+
+function writeFormula(metal: string, slots: LigandSlot[], charge: number): string {
+  return `[${metal}${slotText(slots)}]${chargeText(charge)}`;
 }
 
 function slotsOf(parsed: ParsedFormula): LigandSlot[] {
@@ -294,11 +300,27 @@ function bridgedProducts(
     openerSlots.find((slot) => slot.instance !== null && slot.instance.ligand.denticity === 1 && slot.instance.ligand.charge === 0);
   const oxidationWord = `${opener.classification.metal}(${roman(opener.classification.oxidationState - electronShift)})`;
   const bridgeToken = attack === 'remote' ? (REMOTE_PRODUCT_TOKEN[bridge.ligand.id] ?? ligandToken(bridge.ligand)) : ligandToken(bridge.ligand);
+  let openerClass: Classification | null = null;
+  // The opener's ligands besides the bridge in its product, and the charge of the ligand it lost.
+  let openerTerminal: LigandSlot[] = [];
+  let leavingChargeLost = 0;
   let openerProduct: string | null = null;
   let openerWords: string;
-  if (leaving || opener.parsed.ligands.length === 0) {
+  const openerCn = opener.classification.coordinationNumber;
+  if (opener.parsed.ligands.length > 0 && openerCn <= 5 && opener.classification.geometry !== 'square-planar' && !opener.classification.centres) {
+    // Already five-coordinate (e.g. [Co(CN)5]3-): the site is open, the bridge simply adds.
+    openerTerminal = openerSlots;
+    const slots = [...openerSlots, { token: bridgeToken, count: 1, instance: null }];
+    openerProduct = writeFormula(opener.parsed.metal, slots, opener.parsed.complexCharge + q - electronShift);
+    const cls = tryClassify(openerProduct, options.temperatureC);
+    const boundVia = attack === 'remote' ? `, now bound through ${bridgingAtom}` : '';
+    openerWords = `${openerProduct} (${bridge.ligand.name} added to the open sixth site of five-coordinate ${opener.parsed.input}${boundVia}, now ${cls?.verdict === 'inert' ? 'inert ' : ''}${oxidationWord}; no ligand has to leave)`;
+    openerClass = cls;
+  } else if (leaving || opener.parsed.ligands.length === 0) {
     const slots = leaving ? openerSlots.map((slot) => (slot === leaving ? { ...slot, count: slot.count - 1 } : slot)) : [];
     const leavingCharge = leaving?.instance?.ligand.charge ?? 0;
+    openerTerminal = slots.slice();
+    leavingChargeLost = leavingCharge;
     slots.push({ token: bridgeToken, count: 1, instance: null });
     const openerCharge = opener.parsed.complexCharge - leavingCharge + q - electronShift;
     openerProduct =
@@ -306,6 +328,7 @@ function bridgedProducts(
         ? `${oxidationWord}–${bridge.ligand.id} (aqua ion with ${bridge.ligand.id} bound)`
         : writeFormula(opener.parsed.metal, slots, openerCharge);
     const cls = opener.parsed.ligands.length === 0 ? null : tryClassify(openerProduct, options.temperatureC);
+    openerClass = cls;
     const boundVia = attack === 'remote' ? `, now bound through ${bridgingAtom}` : '';
     if (cls === null) {
       openerWords = `${openerProduct} (${bridge.ligand.name} transferred to ${opener.classification.metal}${boundVia}, now ${oxidationWord})`;
@@ -324,9 +347,22 @@ function bridgedProducts(
     openerWords += `; a main-group ${oxidationWord} intermediate usually goes on to a two-electron product`;
   }
 
-  const products = hostIsOxidant
+  let products = hostIsOxidant
     ? [openerWords, aquationWords(hostProduct, hostProductClass, hostSlots, options.medium)]
     : [aquationWords(hostProduct, hostProductClass, hostSlots, options.medium), openerWords];
+  // Both metals inert after the transfer: the bridged binuclear complex is what is seen, not two
+  // separate ions (e.g. [(NC)5Fe(µ-CN)Co(CN)5]6− from [Fe(CN)6]3− and [Co(CN)5]3−: Haim & Wilmarth 1961).
+  if (hostProductClass?.verdict === 'inert' && openerClass?.verdict === 'inert' && openerProduct !== null) {
+    const hostTerminal = slotsOf(host.parsed).map((slot) => (slot.instance === bridge ? { ...slot, count: slot.count - 1 } : slot));
+    const charge = host.parsed.complexCharge + opener.parsed.complexCharge - leavingChargeLost;
+    // Oxidation states written after each metal, so the formula parses back to the same two centres.
+    const openerOxidationState = opener.classification.oxidationState - electronShift;
+    const binuclear = `[${host.parsed.metal}(${roman(hostProductClass.oxidationState)})${slotText(hostTerminal)}(μ-${ligandToken(bridge.ligand).replace(/^\(|\)$/g, '')})${opener.parsed.metal}(${roman(openerOxidationState)})${slotText(openerTerminal)}]${chargeText(charge)}`;
+    products = [
+      `${binuclear}: the bridged binuclear complex is kept — both ${host.parsed.metal}(${roman(hostProductClass.oxidationState)}) and ${oxidationWord} are inert after the transfer, so the bridge does not break on the time scale of the reaction`,
+      ...products.map((p) => `only on slow cleavage: ${p}`),
+    ];
+  }
   return {
     products,
     transferred: {
@@ -462,11 +498,19 @@ export function predictRoute(oxidantFormula: string, reductantFormula: string, o
       reasons.push(
         `${opener.parsed.input} substitutes only moderately fast (log k ≈ ${(hostIsOxidant ? red : ox).logKPerSecond.toFixed(1)} s⁻¹): a bridged path would be limited by its substitution rate, and the outer-sphere path may win (e.g. V(II) reductions are often substitution-controlled or outer-sphere, common practice).`,
       );
+    } else if (openerSpeed === 'fast' && hostIsOxidant) {
+      // Murmann, Taube & Posey, J. Am. Chem. Soc. 1957, 79, 262: with Cr(II), the 18O of
+      // [Co(NH3)5(OH2)]3+ ends up on Cr(III); the rate has a term in 1/[H+] (the hydroxo form).
+      route = 'inner-sphere';
+      aquaBridgeOnly = true;
+      reasons.push(
+        `Only coordinated water could bridge on ${host.parsed.input}, and water itself is a poor bridge; its conjugate base, the hydroxo form, bridges well. Acid dependence: the hydroxo form is a small fraction set by the acid dissociation constant Ka of the aqua ligand, so the bridged rate grows as 1/[H+] — inner-sphere through hydroxide at low acid; in strong acid this path slows and the outer-sphere path competes. The oxygen moves from ${host.classification.metal} to ${opener.classification.metal} (an 18O label shows it: Murmann, Taube & Posey 1957).`,
+      );
     } else {
       route = 'either';
       aquaBridgeOnly = true;
       reasons.push(
-        `Only coordinated water could bridge on ${host.parsed.input}: the aqua form reacts slowly through its conjugate base (hydroxo-bridged path, faster at low acid) and the outer-sphere path competes.`,
+        `Only coordinated water could bridge on ${host.parsed.input}: the aqua form reacts slowly through its conjugate base (hydroxo-bridged path, rate ∝ 1/[H+], faster at low acid) and the outer-sphere path competes.`,
       );
     }
 
@@ -520,10 +564,15 @@ export function predictRoute(oxidantFormula: string, reductantFormula: string, o
       : [...bridged.products.map((p) => `if bridged: ${p}`), ...outerSphereProducts(oxidant, reductant, productOptions).map((p) => `if outer-sphere: ${p}`)];
   } else {
     expectedProducts = outerSphereProducts(oxidant, reductant, productOptions);
-    if (route === 'either' && aquaBridgeOnly && bridgeHost !== null) {
+    if (aquaBridgeOnly && bridgeHost !== null) {
       const opener = bridgeHost === 'oxidant' ? reductant : oxidant;
+      if (route === 'inner-sphere') {
+        expectedProducts = expectedProducts.map((p) => p.replace(' (same ligands, no ligand transfer)', ` (one of its waters is the oxygen that was on ${(bridgeHost === 'oxidant' ? oxidant : reductant).classification.metal})`));
+      }
       expectedProducts.push(
-        `if bridged through the hydroxo form: O transferred to ${opener.classification.metal} as hydroxide, protonated in acid — same products, provable only by isotope (18O) labelling`,
+        route === 'inner-sphere'
+          ? `through the hydroxo bridge: the O of the aqua ligand goes to ${opener.classification.metal} as hydroxide and is protonated in acid — the same products as without a bridge, told apart only by isotope (18O) labelling`
+          : `if bridged through the hydroxo form: O transferred to ${opener.classification.metal} as hydroxide, protonated in acid — same products, provable only by isotope (18O) labelling`,
       );
     }
   }

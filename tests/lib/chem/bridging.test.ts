@@ -82,7 +82,7 @@ describe('rankBridgingCandidates', () => {
     expect(br).toBeGreaterThan(i);
   });
 
-  it('lists present ligands once and installable bridges beside them, best first', () => {
+  it('lists present ligands once, first, and installable bridges after them, each group best first', () => {
     const candidates = rankBridgingCandidates('[Co(NH3)5Cl]2+', '[Cr(H2O)6]2+');
     expect(candidates.filter((candidate) => candidate.ligand === 'Cl')).toHaveLength(1);
     expect(candidates.find((candidate) => candidate.ligand === 'Cl')?.present).toBe(true);
@@ -90,7 +90,11 @@ describe('rankBridgingCandidates', () => {
     for (const id of ['F', 'Br', 'I', 'OH', 'N3', 'SCN', 'NCS', 'OAc', 'pz']) {
       expect(candidates.find((candidate) => candidate.ligand === id)?.present).toBe(false);
     }
+    const firstInstallable = candidates.findIndex((candidate) => !candidate.present);
+    expect(candidates.slice(0, firstInstallable).every((candidate) => candidate.present)).toBe(true);
+    expect(candidates.slice(firstInstallable).every((candidate) => !candidate.present)).toBe(true);
     for (let k = 1; k < candidates.length; k++) {
+      if (candidates[k - 1]!.present !== candidates[k]!.present) continue;
       expect(candidates[k - 1]!.score).toBeGreaterThanOrEqual(candidates[k]!.score);
     }
     for (const candidate of candidates) {

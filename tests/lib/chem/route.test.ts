@@ -133,10 +133,13 @@ describe('predictRoute: hard and moderately labile reductants', () => {
     expect(result.route).toBe('either');
   });
 
-  it('aqua ligand only ⇒ either, pointing to the hydroxo path (electron_transfer.json OH_vs_H2O_diagnostic)', () => {
+  // The aqua complex reacts with Cr(II) through its hydroxo form, oxygen transferred (18O tracer:
+  // Murmann, Taube & Posey, J. Am. Chem. Soc. 1957, 79, 262 — recalled): inner-sphere at low acid.
+  it('aqua ligand only ⇒ inner-sphere through the hydroxo path, acid dependence stated (electron_transfer.json OH_vs_H2O_diagnostic)', () => {
     const result = predictRoute('[Co(NH3)5(OH2)]3+', CR2);
-    expect(result.route).toBe('either');
+    expect(result.route).toBe('inner-sphere');
     expect(result.reasons.join(' ')).toMatch(/hydroxide|hydroxo/);
+    expect(result.reasons.join(' ')).toMatch(/1\/\[H\+\]/);
   });
 
   it('a main-group reductant gets an answer and a note', () => {
