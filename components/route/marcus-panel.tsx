@@ -37,7 +37,12 @@ function compute(values: MarcusForm): MarcusResult | string {
  * The Marcus cross relation for the pair: prefilled from the couples table when both are known,
  * editable for any couple, with the predicted and observed k12 placed on one axis.
  */
-export function MarcusPanel({ prefill, sourceNotes }: { prefill: MarcusForm; sourceNotes: string[] }) {
+/**
+ * `sourceNotes` come from the route engine: where the couples table gave its own estimate, the
+ * sources of k11 and E°; where it gave none, why. Once the fields hold an estimate, a "no estimate"
+ * note would contradict it: the panel then says where this estimate comes from instead.
+ */
+export function MarcusPanel({ prefill, sourceNotes, tableEstimate = true }: { prefill: MarcusForm; sourceNotes: string[]; tableEstimate?: boolean }) {
   const { control, reset, formState } = useForm<MarcusForm>({
     resolver: zodResolver(marcusFormSchema),
     mode: 'onChange',
@@ -51,6 +56,8 @@ export function MarcusPanel({ prefill, sourceNotes }: { prefill: MarcusForm; sou
   // The cross relation is a few arithmetic steps: recompute on every keystroke.
   const parsed = marcusFormSchema.safeParse(useWatch({ control }));
   const result = parsed.success ? compute(parsed.data) : null;
+  const computed = result !== null && typeof result !== 'string';
+  const notesShown = computed && !tableEstimate ? [] : sourceNotes;
 
   return (
     <Card title="Marcus cross relation" testID="marcus-panel">
@@ -103,9 +110,14 @@ export function MarcusPanel({ prefill, sourceNotes }: { prefill: MarcusForm; sou
           )}
         </View>
       ) : null}
-      {sourceNotes.length > 0 ? (
-        <View style={styles.notes}>
-          {sourceNotes.map((note) => (
+      {computed && !tableEstimate ? (
+        <AppText variant="caption" tone="muted" testID="marcus-own-values">
+          This estimate is the cross relation applied to the values in the fields above; the route above makes no estimate of its own for this pair.
+        </AppText>
+      ) : null}
+      {notesShown.length > 0 ? (
+        <View style={styles.notes} testID="marcus-notes">
+          {notesShown.map((note) => (
             <AppText key={note} variant="caption" tone="muted">{note}</AppText>
           ))}
         </View>

@@ -148,7 +148,7 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
           <BulletList items={result.expectedProducts} />
         </Card>
         <BridgingCandidates candidates={result.bridgingCandidates} />
-        <MarcusPanel prefill={state.marcusPrefill} sourceNotes={result.marcusNotes} />
+        <MarcusPanel prefill={state.marcusPrefill} sourceNotes={result.marcusNotes} tableEstimate={result.marcus !== null} />
       </View>
     );
   } else if (state.kind === 'incomplete') {

@@ -1,5 +1,6 @@
 import { act, render, screen } from '@testing-library/react-native';
 import { BridgingCandidates } from '@/components/route/bridging-candidates';
+import { MarcusPanel } from '@/components/route/marcus-panel';
 import { RouteScreen } from '@/components/route/route-screen';
 import { predictRoute } from '@/lib/chem/route';
 
@@ -35,5 +36,25 @@ describe('RouteScreen with a pair given the wrong way round', () => {
     expect(screen.getByTestId('reductant-input').props.value).toBe('[Cr(H2O)6]2+');
     expect(screen.getAllByText(/Order reversed/)).toHaveLength(1);
     expect(screen.getByTestId('roles-swapped')).toHaveTextContent(/fields have been swapped/);
+  });
+});
+
+describe('MarcusPanel messages match what is shown', () => {
+  // Fe(H2O)6 3+/2+ self-exchange k11 = 4.0 M⁻¹ s⁻¹ (Silverman & Dodson, J. Phys. Chem. 1952, 56, 846);
+  // Ru(bpy)3 3+/2+ k22 ≈ 4.2e8 M⁻¹ s⁻¹ and ΔE° = 1.26 − 0.771 V (electron-transfer reference notes, section a).
+  const filled = { k11: '4', k22: '4.2e8', dE: '0.489', T: '25', observed: '' };
+  const none = ['No Marcus estimate: no self-exchange constant and potential for [X] in the couples table.'];
+
+  it('with an estimate in the fields, no "no estimate" note sits under it', async () => {
+    render(<MarcusPanel prefill={filled} sourceNotes={none} tableEstimate={false} />);
+    expect(await screen.findByTestId('marcus-result')).toBeTruthy();
+    expect(screen.queryByText(/No Marcus estimate/)).toBeNull();
+    expect(screen.getByTestId('marcus-own-values')).toHaveTextContent(/values in the fields above/);
+  });
+
+  it('without an estimate, the reason is shown', async () => {
+    render(<MarcusPanel prefill={{ k11: '', k22: '', dE: '', T: '25', observed: '' }} sourceNotes={none} tableEstimate={false} />);
+    expect(await screen.findByText(/No Marcus estimate/)).toBeTruthy();
+    expect(screen.queryByTestId('marcus-result')).toBeNull();
   });
 });
