@@ -37,7 +37,7 @@ export interface AppOptions {
   /** Throttle limits and token lifetimes (tests tighten them). */
   auth?: Partial<AuthSettings>;
   /** Overrides for values otherwise read from the environment (APP_URL, NODE_ENV). */
-  env?: Partial<Pick<Env, 'appUrl' | 'NODE_ENV'>>;
+  env?: Partial<Pick<Env, 'appUrl' | 'NODE_ENV' | 'TRUST_PROXY'>>;
   /**
    * Change notifications for the in-memory caches (session lookups, library searches); without one
    * nothing is cached. The caller starts and stops it (server/index.ts).
@@ -52,6 +52,14 @@ export interface AppOptions {
 }
 
 /** The whole HTTP app without listen(), so tests drive it with supertest. */
+/** Express's "trust proxy" from TRUST_PROXY: off when unset, a hop count when a number, else as written. */
+export function trustProxySetting(value: string | undefined): boolean | number | string {
+  const text = value?.trim() ?? '';
+  if (text === '' || text === 'false' || text === '0') return false;
+  if (/^\d+$/.test(text)) return Number(text);
+  return text;
+}
+
 export function createApp({ orm, webDir, logRequests = false, ...options }: AppOptions): Express {
   const env = { ...readEnv(), ...options.env };
   const accounts: AccountsContext = {
@@ -77,7 +85,7 @@ export function createApp({ orm, webDir, logRequests = false, ...options }: AppO
   options.onReviewMail?.(reviewMail);
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', trustProxySetting(env.TRUST_PROXY));
   app.use(hostAllowList(env.appUrl, env.ALLOWED_HOSTS));
   app.use(
     helmet({

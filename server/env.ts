@@ -27,6 +27,12 @@ const envSchema = z.object({
    * (e.g. a second public name). Any other Host header is refused (DNS rebinding, Host spoofing).
    */
   ALLOWED_HOSTS: z.string().default(''),
+  /**
+   * Which reverse proxies to believe about the client (X-Forwarded-For, -Proto, -Host): unset means
+   * none (the socket's address counts); "loopback", a number of hops, or comma-separated addresses
+   * or CIDR ranges (Express "trust proxy" syntax). Set it only when a proxy you run sits in front.
+   */
+  TRUST_PROXY: z.string().optional(),
   /** Bibliographic metadata service for DOI look-up (GET {METADATA_URL}/works/{doi}). Unset outside production: a local fake. */
   METADATA_URL: z.url('must be a URL like https://api.example.org').optional(),
   /** S3-compatible store for attachments. Unset outside production: a local fake S3 under DATA_DIR/s3. */

@@ -1,5 +1,6 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { Session, User } from 'lucia';
+import { parseCookies } from 'oslo/cookie';
 import { verifyRequestOrigin } from 'oslo/request';
 import { roleAtLeast, type Role } from '@/lib/schemas/groups';
 import type { AccountsContext } from '@/server/modules/auth/auth-context';
@@ -43,14 +44,23 @@ export const ABSOLUTE_SESSION_LIFETIME_MS = 30 * 86_400_000;
 const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 export const isUuid = (value: unknown): value is string => typeof value === 'string' && uuidPattern.test(value);
 
-/** Writes the session cookie: HttpOnly, SameSite=Lax, Path=/, Secure when the request came over HTTPS. */
+/**
+ * Over HTTPS the cookie carries the `__Host-` prefix: browsers then accept it only when Secure, with
+ * Path=/ and no Domain, so a sibling subdomain cannot plant or overwrite it (RFC 6265bis, cookie
+ * prefixes). Over plain HTTP (development) the name has no prefix, which browsers would refuse.
+ */
+export function sessionCookieNameFor(req: Request): string {
+  return req.secure ? `__Host-${SESSION_COOKIE_NAME}` : SESSION_COOKIE_NAME;
+}
+
+/** Writes the session cookie: HttpOnly, SameSite=Lax, Path=/, Secure (and `__Host-`) when the request came over HTTPS. */
 function setSessionCookie(req: Request, res: Response, ctx: AccountsContext, sessionId: string | null) {
   const cookie = sessionId ? ctx.lucia.createSessionCookie(sessionId) : ctx.lucia.createBlankSessionCookie();
-  res.cookie(cookie.name, cookie.value, {
+  res.cookie(sessionCookieNameFor(req), cookie.value, {
     httpOnly: true,
     sameSite: 'lax',
     path: '/',
-    // req.secure honours X-Forwarded-Proto only from a trusted proxy ('trust proxy' = loopback).
+    // req.secure honours X-Forwarded-Proto only from a proxy named in TRUST_PROXY (none by default).
     secure: req.secure,
     maxAge: (cookie.attributes.maxAge ?? 0) * 1000,
   });
@@ -70,8 +80,9 @@ function accountsOf(res: Response): AccountsContext {
   return ctx;
 }
 
-export function readSessionId(req: Request, res: Response): string | null {
-  return accountsOf(res).lucia.readSessionCookie(req.headers.cookie ?? '');
+/** The session id from the cookie this request's scheme uses (only the prefixed one over HTTPS). */
+export function readSessionId(req: Request, _res: Response): string | null {
+  return parseCookies(req.headers.cookie ?? '').get(sessionCookieNameFor(req)) || null;
 }
 
 /** The signed-in person for this request, or null; looked up once, only when a route asks. */
@@ -158,7 +169,7 @@ export function originCheck(appUrl: string): RequestHandler {
     if (!stateChanging.has(req.method)) return next();
     const allowed = [req.get('host') ?? '', appHost].filter(Boolean);
     const origin = req.get('origin');
-    const hasSessionCookie = (req.headers.cookie ?? '').split(';').some((c) => c.trim().startsWith(`${SESSION_COOKIE_NAME}=`));
+    const hasSessionCookie = (req.headers.cookie ?? '').split(';').some((c) => /^(__Host-)?[^=]+=/.test(c.trim()) && c.trim().replace(/^__Host-/, '').startsWith(`${SESSION_COOKIE_NAME}=`));
     if (origin !== undefined) {
       if (verifyRequestOrigin(origin, allowed)) return next();
       return next(new AppError('FORBIDDEN', 'This request came from another site and was refused.'));

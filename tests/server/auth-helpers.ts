@@ -23,9 +23,10 @@ export function sessionCookieFrom(response: request.Response): string | undefine
   return line === undefined ? undefined : (line.split(';')[0] ?? '').slice(SESSION_COOKIE.length + 1);
 }
 
+/** The Set-Cookie line of the session cookie, plain or `__Host-` prefixed (over HTTPS). */
 export function setCookieLine(response: request.Response): string | undefined {
   const raw = response.headers['set-cookie'] as unknown as string[] | undefined;
-  return raw?.find((c) => c.startsWith(`${SESSION_COOKIE}=`));
+  return raw?.find((c) => c.startsWith(`${SESSION_COOKIE}=`) || c.startsWith(`__Host-${SESSION_COOKIE}=`));
 }
 
 /** A browser-like client: same-origin requests, remembers the session cookie. */

@@ -68,20 +68,50 @@ describe('no account enumeration', () => {
 });
 
 describe('throttling (counters in PostgreSQL)', () => {
-  it('per address: after 5 failures the 6th attempt is 429 with Retry-After, even with the right password', async () => {
+  it('per address and IP: after 5 failures from one IP the 6th from there is 429 with Retry-After, even with the right password', async () => {
     const email = 'throttled@larkspur.example.org';
     await makeUser(t.orm, email);
     for (let i = 0; i < 5; i += 1) {
-      // Different IPs, so only the per-address counter can trip.
-      expect((await signInFrom(t.app, `192.0.2.${10 + i}`, email, 'wrong-password-guess')).status).toBe(401);
+      expect((await signInFrom(t.app, '192.0.2.10', email, 'wrong-password-guess')).status).toBe(401);
     }
-    const blocked = await signInFrom(t.app, '192.0.2.99', email, FIXTURE_PASSWORD);
+    const blocked = await signInFrom(t.app, '192.0.2.10', email, FIXTURE_PASSWORD);
     expect(blocked.status).toBe(429);
     expect(apiErrorBodySchema.parse(blocked.body).error.code).toBe('RATE_LIMITED');
     const retryAfter = Number(blocked.headers['retry-after']);
     expect(Number.isInteger(retryAfter)).toBe(true);
     expect(retryAfter).toBeGreaterThan(0);
     expect(retryAfter).toBeLessThanOrEqual(15 * 60);
+  });
+
+  it('a stranger cannot lock the owner out: failures from other IPs leave the owner’s own sign-in working (OWASP Authentication Cheat Sheet, account lockout)', async () => {
+    const email = 'owner@larkspur.example.org';
+    await makeUser(t.orm, email);
+    for (let i = 0; i < 10; i += 1) {
+      const status = (await signInFrom(t.app, '192.0.2.50', email, 'wrong-password-guess')).status;
+      expect([401, 429]).toContain(status);
+    }
+    expect((await signInFrom(t.app, '198.51.100.60', email, FIXTURE_PASSWORD)).status).toBe(200);
+  });
+
+  it('guessing spread over many IPs meets the per-address cap', async () => {
+    const email = 'spread@larkspur.example.org';
+    await makeUser(t.orm, email);
+    const app = createApp({ orm: t.orm, auth: { signInFailuresPerAddress: 6 } });
+    for (let i = 0; i < 6; i += 1) expect((await signInFrom(app, `192.0.2.${100 + i}`, email, 'wrong-password-guess')).status).toBe(401);
+    expect((await signInFrom(app, '192.0.2.120', email, 'wrong-password-guess')).status).toBe(429);
+  });
+
+  it('the owner’s password-reset link lifts every counter of the address', async () => {
+    const email = 'reset-lifts@larkspur.example.org';
+    await makeUser(t.orm, email);
+    const app = createApp({ orm: t.orm, auth: { signInFailuresPerAddress: 3 } });
+    for (let i = 0; i < 3; i += 1) await signInFrom(app, `192.0.2.${130 + i}`, email, 'wrong-password-guess');
+    expect((await signInFrom(app, '192.0.2.140', email, FIXTURE_PASSWORD)).status).toBe(429);
+    await request(app).post('/api/auth/password-reset/request').set('X-Forwarded-For', '192.0.2.141').send({ email });
+    const token = await latestLinkToken(app, email, '/reset-password');
+    const confirmed = await request(app).post('/api/auth/password-reset/confirm').set('Host', TEST_HOST).set('Origin', TEST_ORIGIN).send({ token, password: 'basalt-ligand-trans-effect-5' });
+    expect(confirmed.status).toBe(200);
+    expect((await signInFrom(app, '192.0.2.140', email, 'basalt-ligand-trans-effect-5')).status).toBe(200);
   });
 
   it('per IP, shared by two app instances over the same database', async () => {
@@ -122,6 +152,21 @@ describe('sessions and cookies', () => {
   it('adds Secure when a loopback proxy says the request came over HTTPS', async () => {
     const response = await signInFrom(t.app, '198.51.100.21', known, FIXTURE_PASSWORD).set('X-Forwarded-Proto', 'https');
     expect(setCookieLine(response)).toMatch(/; Secure/);
+  });
+
+  it('over HTTPS names the cookie with the __Host- prefix (RFC 6265bis), and reads only that name there', async () => {
+    const response = await signInFrom(t.app, '198.51.100.23', known, FIXTURE_PASSWORD).set('X-Forwarded-Proto', 'https');
+    const line = setCookieLine(response) ?? '';
+    expect(line).toMatch(/^__Host-sphereline_session=/);
+    expect(line).toMatch(/; Secure/);
+    expect(line).toMatch(/; Path=\//);
+    expect(line).not.toMatch(/; Domain=/i);
+    const value = (line.split(';')[0] ?? '').split('=')[1] ?? '';
+    const over = (cookie: string) =>
+      request(t.app).get('/api/auth/me').set('Host', TEST_HOST).set('X-Forwarded-Proto', 'https').set('Cookie', cookie);
+    expect((await over(`__Host-sphereline_session=${value}`)).status).toBe(200);
+    // A cookie without the prefix (which a sibling subdomain could have set) is not read over HTTPS.
+    expect((await over(`sphereline_session=${value}`)).status).toBe(401);
   });
 
   it('stores only the SHA-256 of the session id, and Argon2id password hashes', async () => {
@@ -306,5 +351,24 @@ describe('bad input is always 400 with the error shape', () => {
   it('malformed JSON on sign-in → 400, not 500', async () => {
     const response = await request(t.app).post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email":');
     expect(response.status).toBe(400);
+  });
+});
+
+describe('TRUST_PROXY', () => {
+  // Express "trust proxy": forwarded headers count only from proxies the operator names.
+  it('off (the default outside tests): X-Forwarded-For and X-Forwarded-Proto are ignored', async () => {
+    const app = createApp({ orm: t.orm, env: { TRUST_PROXY: undefined }, auth: { signInFailuresPerIp: 2, signInFailuresPerAddress: 100, signInFailuresPerAddressAndIp: 100 } });
+    // Each attempt claims another client IP; all come from the same socket, so the per-IP limit trips.
+    for (let i = 0; i < 2; i += 1) expect((await signInFrom(app, `192.0.2.${200 + i}`, `nobody${i}@example.org`, 'wrong-password-guess')).status).toBe(401);
+    expect((await signInFrom(app, '192.0.2.210', 'nobody9@example.org', 'wrong-password-guess')).status).toBe(429);
+    const https = await signInFrom(createApp({ orm: t.orm, env: { TRUST_PROXY: undefined } }), '192.0.2.211', known, FIXTURE_PASSWORD).set('X-Forwarded-Proto', 'https');
+    expect(setCookieLine(https)).not.toMatch(/; Secure/);
+  });
+
+  it('on ("loopback"): each forwarded client IP is counted apart, and HTTPS behind the proxy gives a Secure cookie', async () => {
+    const app = createApp({ orm: t.orm, env: { TRUST_PROXY: 'loopback' }, auth: { signInFailuresPerIp: 2, signInFailuresPerAddress: 100, signInFailuresPerAddressAndIp: 100 } });
+    for (let i = 0; i < 3; i += 1) expect((await signInFrom(app, `192.0.2.${220 + i}`, `someone${i}@example.org`, 'wrong-password-guess')).status).toBe(401);
+    const https = await signInFrom(app, '192.0.2.230', known, FIXTURE_PASSWORD).set('X-Forwarded-Proto', 'https');
+    expect(setCookieLine(https)).toMatch(/; Secure/);
   });
 });

@@ -40,7 +40,8 @@ async function main() {
   const child = spawn(process.execPath, [require.resolve('jest/bin/jest'), ...jestArgs], {
     stdio: 'inherit',
     // The server tests' browser helper addresses the app as sphereline.test (tests/server/auth-helpers.ts).
-    env: { ...env, NODE_ENV: 'test', ALLOWED_HOSTS: env.ALLOWED_HOSTS ?? 'sphereline.test' },
+    // The tests stand in for clients behind a proxy with X-Forwarded-For from the loopback test client.
+    env: { ...env, NODE_ENV: 'test', ALLOWED_HOSTS: env.ALLOWED_HOSTS ?? 'sphereline.test', TRUST_PROXY: env.TRUST_PROXY ?? 'loopback' },
   });
   const forward = (signal: NodeJS.Signals) => {
     interrupted = true;

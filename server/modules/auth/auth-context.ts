@@ -4,10 +4,16 @@ import type { SphereLucia } from './lucia';
 
 /** Limits and lifetimes of the account flows; tests may tighten them through createApp({ auth }). */
 export interface AuthSettings {
-  /** Failed sign-ins allowed per address, and per client IP, in one window. */
+  /**
+   * Failed sign-ins allowed in one window: per address from one client IP (the limit a guesser
+   * meets), per client IP over all addresses, and per address over all IPs (a high cap on guessing
+   * spread over many IPs). A stranger therefore cannot lock the owner out from elsewhere.
+   */
+  signInFailuresPerAddressAndIp: number;
   signInFailuresPerAddress: number;
   signInFailuresPerIp: number;
   signInWindowSeconds: number;
+  passwordChangeFailures: number;
   /** Password-reset requests (and sign-ups) allowed per address and per IP in one window. */
   mailRequestsPerAddress: number;
   mailRequestsPerIp: number;
@@ -18,7 +24,10 @@ export interface AuthSettings {
 }
 
 export const defaultAuthSettings: AuthSettings = {
-  signInFailuresPerAddress: 5,
+  signInFailuresPerAddressAndIp: 5,
+  signInFailuresPerAddress: 50,
+  /** Password changes (current password wrong) per account in one window. */
+  passwordChangeFailures: 5,
   // A whole lab may sit behind one NAT address: the per-IP limit is looser than the per-address one.
   signInFailuresPerIp: 30,
   signInWindowSeconds: 15 * 60,

@@ -144,11 +144,20 @@ export async function verifyEmail(em: EntityManager, token: string) {
   await em.flush();
 }
 
+/**
+ * Sign-in throttling that a stranger cannot turn against the owner (OWASP Authentication Cheat
+ * Sheet, "Account Lockout": lock-out by account alone lets anyone deny service; count per account
+ * and IP, and limit each IP). A guesser meets the address-and-IP limit; the per-IP limit stops one
+ * client trying many addresses; the much higher per-address limit slows guessing spread over many
+ * IPs. The owner, signing in from their own address, is blocked only by that last cap, and their
+ * password-reset link lifts every counter of the address.
+ */
 function signInRules(ctx: AccountsContext, email: string, ip: string): ThrottleRule[] {
   const window = ctx.settings.signInWindowSeconds;
   return [
-    { key: `sign-in:address:${email}`, limit: ctx.settings.signInFailuresPerAddress, windowSeconds: window },
+    { key: `sign-in:address-ip:${email}|${ip}`, limit: ctx.settings.signInFailuresPerAddressAndIp, windowSeconds: window },
     { key: `sign-in:ip:${ip}`, limit: ctx.settings.signInFailuresPerIp, windowSeconds: window },
+    { key: `sign-in:address:${email}`, limit: ctx.settings.signInFailuresPerAddress, windowSeconds: window },
   ];
 }
 
@@ -175,7 +184,7 @@ export async function signIn(ctx: AccountsContext, em: EntityManager, input: Sig
     await countAttempt(em, rules);
     throw signInFailed();
   }
-  await clearAttempts(em, [`sign-in:address:${input.email}`]);
+  await clearAttempts(em, [`sign-in:address-ip:${input.email}|${meta.ip}`]);
   if (!user.emailVerifiedAt) {
     await sendVerification(ctx, em, user);
     throw new AppError(
@@ -219,7 +228,7 @@ export async function confirmPasswordReset(ctx: AccountsContext, em: EntityManag
   const passwordHash = await hashPassword(input.password);
   await em.nativeUpdate(User, { id: userId }, { passwordHash, emailVerifiedAt: owner.emailVerifiedAt ?? new Date(), updatedAt: new Date() });
   await ctx.lucia.invalidateUserSessions(userId);
-  await clearAttempts(em, [`sign-in:address:${owner.email}`]);
+  await clearAttempts(em, [`sign-in:address:${owner.email}`], [`sign-in:address-ip:${owner.email}|`]);
   recordAudit(em, { actorId: userId, action: 'user.password-reset', subjectType: 'user', subjectId: userId });
   await em.flush();
   await ctx.mailer.send(passwordChangedMail(owner.email, owner.displayName, 'reset', link(ctx, '/forgot-password')));
@@ -238,7 +247,7 @@ export async function changePassword(
   input: PasswordChangeInput,
 ) {
   const rules: ThrottleRule[] = [
-    { key: `password-change:user:${userId}`, limit: ctx.settings.signInFailuresPerAddress, windowSeconds: ctx.settings.signInWindowSeconds },
+    { key: `password-change:user:${userId}`, limit: ctx.settings.passwordChangeFailures, windowSeconds: ctx.settings.signInWindowSeconds },
   ];
   const retry = await throttledFor(em, rules);
   if (retry) throw rateLimited(retry);

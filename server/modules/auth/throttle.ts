@@ -45,8 +45,12 @@ export async function countAttempt(em: EntityManager, rules: ThrottleRule[]): Pr
   }
 }
 
-export async function clearAttempts(em: EntityManager, keys: string[]): Promise<void> {
+/** Removes the counters with these keys, and every counter whose key starts with one of `prefixes`. */
+export async function clearAttempts(em: EntityManager, keys: string[], prefixes: string[] = []): Promise<void> {
   for (const key of keys) {
     await em.getConnection().execute('delete from "auth_throttle" where "key" = ?', [key], 'run');
+  }
+  for (const prefix of prefixes) {
+    await em.getConnection().execute(`delete from "auth_throttle" where left("key", ?) = ?`, [prefix.length, prefix], 'run');
   }
 }
