@@ -48,5 +48,9 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
     },
   };
   if (appError.code === 'UNAVAILABLE') res.setHeader('Retry-After', '5');
+  const retryAfter = Number(appError.extra?.retryAfterSeconds);
+  if (appError.code === 'RATE_LIMITED' && Number.isFinite(retryAfter) && !res.getHeader('Retry-After')) {
+    res.setHeader('Retry-After', String(Math.max(1, Math.ceil(retryAfter))));
+  }
   res.status(appError.status).json(body);
 };

@@ -74,7 +74,7 @@ describe('invitations', () => {
     expect(invitationSchema.parse(created.body)).toMatchObject({ email: invitee, role: 'contributor', status: 'pending' });
 
     const [mail] = await outboxFor(t.app, invitee);
-    expect(mail?.subject).toBe('Sphereline: join Larkspur Coordination Lab');
+    expect(mail?.subject).toBe('Sphereline: an invitation to a research group');
     expect(mail?.text).toContain('Dr. Imogen Larkspur invites you to join "Larkspur Coordination Lab"');
     expect(mail?.html).toContain('/invitations/accept?token=');
     const token = await latestLinkToken(t.app, invitee, '/invitations/accept');

@@ -19,6 +19,12 @@ export interface AuthSettings {
   mailRequestsPerIp: number;
   mailWindowSeconds: number;
   verifyTokenHours: number;
+  /** A new verification link on sign-in at most once in this many seconds per account. */
+  verificationResendSeconds: number;
+  /** Invitations allowed per inviter and per group in an hour, and per recipient address in a day. */
+  invitationsPerInviterPerHour: number;
+  invitationsPerGroupPerHour: number;
+  invitationsPerRecipientPerDay: number;
   resetTokenMinutes: number;
   invitationDays: number;
 }
@@ -35,6 +41,10 @@ export const defaultAuthSettings: AuthSettings = {
   mailRequestsPerIp: 30,
   mailWindowSeconds: 60 * 60,
   verifyTokenHours: 48,
+  verificationResendSeconds: 5 * 60,
+  invitationsPerInviterPerHour: 20,
+  invitationsPerGroupPerHour: 40,
+  invitationsPerRecipientPerDay: 3,
   resetTokenMinutes: 60,
   invitationDays: 7,
 };

@@ -36,7 +36,7 @@ const invalidLink = () =>
 /** The one answer to every failed sign-in, whatever the reason (no account enumeration). */
 const signInFailed = () => new AppError('UNAUTHENTICATED', 'The e-mail address or the password is not right.');
 
-function rateLimited(retryAfterSeconds: number) {
+export function rateLimited(retryAfterSeconds: number) {
   return new AppError(
     'RATE_LIMITED',
     `Too many attempts. Try again in ${Math.ceil(retryAfterSeconds / 60)} minute(s).`,
@@ -186,7 +186,12 @@ export async function signIn(ctx: AccountsContext, em: EntityManager, input: Sig
   }
   await clearAttempts(em, [`sign-in:address-ip:${input.email}|${meta.ip}`]);
   if (!user.emailVerifiedAt) {
-    await sendVerification(ctx, em, user);
+    // A new link at most once per window per account: signing in again and again sends no stream of mail.
+    const resend: ThrottleRule[] = [{ key: `verify-mail:user:${user.id}`, limit: 1, windowSeconds: ctx.settings.verificationResendSeconds }];
+    if ((await throttledFor(em, resend)) === null) {
+      await countAttempt(em, resend);
+      await sendVerification(ctx, em, user);
+    }
     throw new AppError(
       'FORBIDDEN',
       'Confirm your e-mail address first: we have sent you a new link.',

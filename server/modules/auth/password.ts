@@ -1,4 +1,5 @@
 import { hash, verify } from '@node-rs/argon2';
+import commonPasswordList from 'fxa-common-password-list';
 import commonPasswords from '@/data/common-passwords.json';
 
 /**
@@ -36,7 +37,11 @@ const commonSet = new Set(commonPasswords.passwords.map((p) => p.toLowerCase()))
 /** Why a new password is refused, or null. Length is checked by the shared schema. */
 export function weakPasswordReason(password: string, context: { email?: string } = {}): string | null {
   const lower = password.toLowerCase();
-  if (commonSet.has(lower)) return 'This password is on a list of commonly used passwords: choose another.';
+  // Our short list, then the registry's list of about 10 000 passwords seen in breaches (Mozilla's
+  // Firefox Accounts list: works offline; includes the digit runs such as 123456789012).
+  if (commonSet.has(lower) || commonPasswordList.test(password) || commonPasswordList.test(lower)) {
+    return 'This password is on a list of commonly used passwords: choose another.';
+  }
   if (/^(.)\1*$/.test(password)) return 'A password of one repeated character is too easy to guess.';
   const localPart = context.email?.split('@')[0]?.toLowerCase();
   if (localPart && localPart.length >= 4 && lower.includes(localPart)) {

@@ -9,6 +9,8 @@ import type {
   Role,
 } from '@/lib/schemas/groups';
 import { AppError } from '@/server/http/errors';
+import { rateLimited } from '@/server/modules/auth/auth.service';
+import { countAttempt, throttledFor, type ThrottleRule } from '@/server/modules/auth/throttle';
 import { recordAudit } from '@/server/modules/audit/audit.service';
 import type { AccountsContext } from '@/server/modules/auth/auth-context';
 import { generateLinkToken, hashSecret } from '@/server/modules/auth/tokens';
@@ -93,6 +95,16 @@ export async function createInvitation(
   if (existingUser && (await em.findOne(GroupMembership, { groupId: input.groupId, userId: existingUser.id }))) {
     throw new AppError('CONFLICT', `${input.email} is already a member of this group.`, { email: 'already a member' });
   }
+  // Limits on invitations, so the app cannot be used to send mail in bulk to one address or many.
+  const hour = 3600;
+  const limits: ThrottleRule[] = [
+    { key: `invite:inviter:${input.inviterId}`, limit: ctx.settings.invitationsPerInviterPerHour, windowSeconds: hour },
+    { key: `invite:group:${input.groupId}`, limit: ctx.settings.invitationsPerGroupPerHour, windowSeconds: hour },
+    { key: `invite:recipient:${input.email.toLowerCase()}`, limit: ctx.settings.invitationsPerRecipientPerDay, windowSeconds: 24 * hour },
+  ];
+  const retry = await throttledFor(em, limits);
+  if (retry) throw rateLimited(retry);
+  await countAttempt(em, limits);
   await em.nativeDelete(GroupInvitation, { groupId: input.groupId, email: input.email, acceptedAt: null });
   const token = generateLinkToken();
   const invitation = em.create(GroupInvitation, {

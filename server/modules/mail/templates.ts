@@ -110,7 +110,8 @@ export function invitationMail(
   to: string,
   details: { groupName: string; role: Role; inviterName: string; url: string; days: number },
 ): OutgoingMail {
-  return render(to, `Sphereline: join ${details.groupName}`, {
+  // The group's name is free text: it is quoted in the body and kept out of the subject.
+  return render(to, 'Sphereline: an invitation to a research group', {
     greeting: 'Hello,',
     paragraphs: [
       `${details.inviterName} invites you to join "${details.groupName}" on Sphereline as ${roleWords[details.role]}.`,
