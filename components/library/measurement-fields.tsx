@@ -25,6 +25,16 @@ const VALUE_HINTS: Record<MeasurementKind, string> = {
   'half-life': 't½ in seconds (e.g. 3600 for one hour).',
 };
 
+/** Kinds of source; the kind sets the BibTeX and RIS entry type of an export. */
+const CITATION_KINDS = [
+  ['article', 'Article'],
+  ['book', 'Book'],
+  ['chapter', 'Chapter'],
+  ['web-page', 'Web page'],
+] as const;
+// A book has no journal: its title is the work.
+const JOURNAL_LABELS: Record<string, string> = { article: 'Journal', chapter: 'Book', 'web-page': 'Site' };
+
 /** One measurement of the entry form: kind, value with its unit, conditions and citation. */
 export function MeasurementFields({ index, control, setValue, onRemove }: {
   index: number;
@@ -36,6 +46,7 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
   const kind = useWatch({ control, name: `${prefix}.kind` });
   const unit = useWatch({ control, name: `${prefix}.unit` });
   const rule = measurementKindRules[kind];
+  const citationKind = useWatch({ control, name: `${prefix}.citation.kind` });
   const id = `complex-form-m-${index}`;
 
   const chooseKind = (next: MeasurementKind) => {
@@ -103,6 +114,17 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
         </View>
       </View>
       <AppText variant="label" tone="muted">Citation</AppText>
+      <View style={styles.chips}>
+        {CITATION_KINDS.map(([value, label]) => (
+          <Chip
+            key={value}
+            label={label}
+            selected={(citationKind || 'article') === value}
+            onPress={() => setValue(`${prefix}.citation.kind`, value, { shouldDirty: true })}
+            testID={`${id}-source-${value}`}
+          />
+        ))}
+      </View>
       <View style={styles.grid}>
         <View style={styles.cell}>
           <FormTextField control={control} name={`${prefix}.citation.doi`} label="DOI" placeholder="10.1021/cr030726o" testID={`${id}-doi`} />
@@ -114,9 +136,26 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
         <View style={styles.cellWide}>
           <FormTextField control={control} name={`${prefix}.citation.title`} label="Title" autoCapitalize="sentences" testID={`${id}-title`} />
         </View>
-        <View style={styles.cell}>
-          <FormTextField control={control} name={`${prefix}.citation.journal`} label="Journal or book" autoCapitalize="words" placeholder="Chem. Rev." testID={`${id}-journal`} />
-        </View>
+        {citationKind === 'book' ? null : (
+          <View style={styles.cell}>
+            <FormTextField control={control} name={`${prefix}.citation.journal`} label={JOURNAL_LABELS[citationKind || 'article'] ?? 'Journal'} autoCapitalize="words" placeholder="Chem. Rev." testID={`${id}-journal`} />
+          </View>
+        )}
+        {citationKind === 'book' || citationKind === 'chapter' ? (
+          <>
+            <View style={styles.cell}>
+              <FormTextField control={control} name={`${prefix}.citation.publisher`} label="Publisher" autoCapitalize="words" testID={`${id}-publisher`} />
+            </View>
+            <View style={styles.cell}>
+              <FormTextField control={control} name={`${prefix}.citation.place`} label="Place" autoCapitalize="words" testID={`${id}-place`} />
+            </View>
+          </>
+        ) : null}
+        {citationKind === 'web-page' ? (
+          <View style={styles.cellWide}>
+            <FormTextField control={control} name={`${prefix}.citation.url`} label="Address" autoCapitalize="none" placeholder="https://…" testID={`${id}-url`} />
+          </View>
+        ) : null}
         <View style={styles.cellSmall}>
           <FormTextField control={control} name={`${prefix}.citation.year`} label="Year" keyboardType="number-pad" testID={`${id}-year`} />
         </View>

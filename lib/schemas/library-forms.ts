@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import {
+  citationKindOf,
   createComplexInputSchema,
   measurementKindRules,
   measurementKindSchema,
@@ -21,6 +22,8 @@ import {
 const text = z.string();
 
 export const citationFormSchema = z.object({
+  /** article | book | chapter | web-page ("" reads as article). */
+  kind: text,
   doi: text,
   authors: text,
   title: text,
@@ -28,6 +31,9 @@ export const citationFormSchema = z.object({
   year: text,
   volume: text,
   pages: text,
+  publisher: text,
+  place: text,
+  url: text,
 });
 export type CitationFormValues = z.infer<typeof citationFormSchema>;
 
@@ -73,13 +79,16 @@ export function parseNumberText(value: string): number | null {
 const blankToNull = (value: string): string | null => (value.trim() === '' ? null : value.trim());
 
 export function isCitationBlank(citation: CitationFormValues): boolean {
-  return Object.values(citation).every((value) => value.trim() === '');
+  // The kind alone (a chip left on "Article") is not a citation.
+  const { kind: _kind, ...fields } = citation;
+  return Object.values(fields).every((value) => value.trim() === '');
 }
 
 export function citationFromForm(citation: CitationFormValues): CitationInput | null {
   if (isCitationBlank(citation)) return null;
   const year = parseNumberText(citation.year);
   return {
+    kind: citationKindOf(citation.kind),
     doi: blankToNull(citation.doi),
     authors: citation.authors.trim(),
     title: blankToNull(citation.title),
@@ -87,11 +96,15 @@ export function citationFromForm(citation: CitationFormValues): CitationInput | 
     year,
     volume: blankToNull(citation.volume),
     pages: blankToNull(citation.pages),
+    publisher: blankToNull(citation.publisher),
+    place: blankToNull(citation.place),
+    url: blankToNull(citation.url),
   };
 }
 
 export function citationToForm(citation: Citation | null): CitationFormValues {
   return {
+    kind: citation?.kind ?? 'article',
     doi: citation?.doi ?? '',
     authors: citation?.authors ?? '',
     title: citation?.title ?? '',
@@ -99,6 +112,9 @@ export function citationToForm(citation: Citation | null): CitationFormValues {
     year: citation?.year === null || citation?.year === undefined ? '' : String(citation.year),
     volume: citation?.volume ?? '',
     pages: citation?.pages ?? '',
+    publisher: citation?.publisher ?? '',
+    place: citation?.place ?? '',
+    url: citation?.url ?? '',
   };
 }
 

@@ -67,6 +67,33 @@ describe('ComplexFormScreen (new entry)', () => {
   });
 });
 
+describe('ComplexFormScreen (kind of source)', () => {
+  it('sends a book with its publisher and place and no journal (Bard, Parsons & Jordan, Standard Potentials in Aqueous Solution, Marcel Dekker, New York, 1985)', async () => {
+    const { calls } = mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'POST /api/complexes': apiError(400, 'VALIDATION_FAILED', 'The request body is not valid.', { formula: 'stop here' }),
+    });
+    renderWithQueries(<ComplexFormScreen mode="create" />);
+    fireEvent.changeText(await screen.findByTestId('complex-form-formula'), '[Fe(H2O)6]3+');
+    fireEvent.changeText(screen.getByTestId('complex-form-name'), 'hexaaquairon(III)');
+    fireEvent.press(screen.getByTestId('complex-form-add-measurement'));
+    fireEvent.press(screen.getByTestId('complex-form-m-0-kind-reduction-potential'));
+    // E°(Fe3+/Fe2+) = 0.771 V (Bard, Parsons & Jordan 1985).
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-value'), '0.771');
+    fireEvent.press(screen.getByTestId('complex-form-m-0-source-book'));
+    expect(screen.queryByTestId('complex-form-m-0-journal')).toBeNull();
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-authors'), 'A. J. Bard, R. Parsons, J. Jordan');
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-title'), 'Standard Potentials in Aqueous Solution');
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-publisher'), 'Marcel Dekker');
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-place'), 'New York');
+    fireEvent.changeText(screen.getByTestId('complex-form-m-0-year'), '1985');
+    fireEvent.press(screen.getByTestId('complex-form-save'));
+    await waitFor(() => expect(calls.find((c) => c.method === 'POST')).toBeTruthy());
+    const sent = calls.find((c) => c.method === 'POST')?.body as { measurements: { citation: Record<string, unknown> }[] };
+    expect(sent.measurements[0]?.citation).toMatchObject({ kind: 'book', title: 'Standard Potentials in Aqueous Solution', publisher: 'Marcel Dekker', place: 'New York', journal: '', year: 1985 });
+  });
+});
+
 describe('ComplexFormScreen (edit)', () => {
   it('on a stale version shows the entry as it is now and re-applies the change on top of it', async () => {
     const opened = detail({ version: 3 });
