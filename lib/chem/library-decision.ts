@@ -145,15 +145,28 @@ function kText(k: number): string {
   return `${mantissa} × 10^${Number(exponent)} s⁻¹`;
 }
 
+// The same units and rounding as the app's duration display (components/ui/format.ts), so the
+// reason and the card beside it say the same half-life.
+const DURATION_UNITS: [number, string][] = [
+  [365.25 * 86400, 'years'],
+  [86400, 'days'],
+  [3600, 'h'],
+  [60, 'min'],
+  [1, 's'],
+  [1e-3, 'ms'],
+  [1e-6, 'µs'],
+  [1e-9, 'ns'],
+];
+
 function durationText(seconds: number): string {
   if (!Number.isFinite(seconds)) return 'forever';
-  if (seconds < 1e-3) return `${(seconds * 1e6).toPrecision(2)} µs`;
-  if (seconds < 1) return `${(seconds * 1e3).toPrecision(2)} ms`;
-  if (seconds < 120) return `${seconds.toPrecision(2)} s`;
-  if (seconds < 7200) return `${(seconds / 60).toPrecision(2)} min`;
-  if (seconds < 172800) return `${(seconds / 3600).toPrecision(2)} h`;
-  if (seconds < 3.15e7 * 2) return `${(seconds / 86400).toPrecision(2)} days`;
-  return `${(seconds / 3.15e7).toPrecision(2)} years`;
+  for (const [size, unit] of DURATION_UNITS) {
+    if (seconds >= size) {
+      const value = seconds / size;
+      return `${value >= 100 ? Math.round(value) : Number(value.toPrecision(2))} ${unit}`;
+    }
+  }
+  return `${seconds.toExponential(1)} s`;
 }
 
 /** The headline that names the deciding entry and its citation. */

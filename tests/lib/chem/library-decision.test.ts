@@ -140,3 +140,11 @@ describe('curators see a flag when measurement and model differ by more than two
     expect(needsSecondLook(modelGapLogUnits(1e-5, -2))).toBe(true);
   });
 });
+
+describe('the half-life in the reasons reads as on the card', () => {
+  it('k = 5.7e-6 s⁻¹ ([Co(NH3)5(OH2)]3+ water exchange, Hunt & Taube, J. Am. Chem. Soc. 1958, 80, 2642 — recalled): t½ = ln 2 / k ≈ 1.2e5 s ≈ 1.4 days', () => {
+    const decided = decideByLibrary(classifyFormula('[Co(NH3)5(OH2)]3+'), { entryId: 'e', entryName: 'n', entryFormula: 'f', kind: 'water-exchange', kPerSecond: 5.7e-6, temperatureK: 298.15, citation: null });
+    // 0.693 / 5.7e-6 = 121 600 s; / 86 400 = 1.41 days.
+    expect(decided.reasons.join(' ')).toMatch(/t½ ≈ 1\.4 days/);
+  });
+});
