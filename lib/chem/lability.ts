@@ -174,6 +174,10 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
       roughness += 1;
       reasons.push(`oxidation state ${input.oxidationState} rather than 2: rate adjusted roughly`);
     }
+    if (hasMacrocycle(input.ligands)) {
+      roughness += 2;
+      reasons.push(MACROCYCLE_REASON);
+    }
     return { logKPerSecond: clamp(logK + chelateTerm(input.ligands)), reasons, roughness, model: 'square-planar' };
   }
 
@@ -255,6 +259,16 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
     logK += chelate;
     reasons.push('chelating ligands: all teeth must let go, slower dissociation');
   }
+  // Classes the aqua-ion fit does not describe (out-of-sample errors of 7–12 log units, README):
+  // say so and lower the confidence rather than print a half-life the model cannot back.
+  if (hasLigand(input.ligands, 'O') && input.dElectrons === 0 && input.oxidationState >= 5) {
+    roughness += 2;
+    reasons.push('d0 oxoanion: oxygen exchange with water is not described by this model (neutral MnO4⁻ and CrO4²⁻ exchange over hours to days); the rate is only a guess');
+  }
+  if (hasMacrocycle(input.ligands)) {
+    roughness += 2;
+    reasons.push(MACROCYCLE_REASON);
+  }
   return { logKPerSecond: clamp(logK), reasons, roughness, model: 'aqua-type' };
 }
 
@@ -263,6 +277,13 @@ function taubeInertReason(d: number, zText: string): string {
   if (d === 3) return `d3 with ${zText} charge: each t2g orbital singly occupied (t2g³), e_g empty: no empty orbital to accept an entering ligand and no e_g electron to weaken the bonds`;
   if (d === 6) return 'low-spin d6: t2g set filled (t2g⁶), e_g empty: no empty orbital to accept an entering ligand and no e_g electron to weaken the bonds';
   return `low-spin d${d}: t2g${d === 4 ? '⁴' : '⁵'} leaves no t2g orbital empty (the vacancy is a half-filled orbital, not an empty one) and e_g is empty: no easy associative path and no e_g electron to weaken the bonds`;
+}
+
+const MACROCYCLE_REASON = 'macrocyclic or cryptand ligand: the macrocyclic kinetic effect (dissociation far slower than for open-chain ligands) is not in this model; the rate is only a guess';
+
+function hasMacrocycle(ligands: readonly LigandInstance[]): boolean {
+  for (const instance of ligands) if (instance.ligand.macrocycle !== undefined) return true;
+  return false;
 }
 
 function clamp(logK: number): number {

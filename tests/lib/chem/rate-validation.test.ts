@@ -67,3 +67,11 @@ describe('rates outside the calibration set (validation only, never fitted)', ()
     if (mean > 3) expect(WEAK).toContain(name);
   });
 });
+
+describe('weak classes say so', () => {
+  it.each([['[MnO4]-'], ['[CrO4]2-'], ['[Ni(cyclam)]2+'], ['[Cu(cyclam)]2+']])('%s: low confidence and a line saying the rate is only a guess (validation errors above 7 log units)', (formula) => {
+    const result = classifyFormula(formula);
+    expect(result.confidence).toBe('low');
+    expect(result.reasons.join(' ')).toMatch(/the rate is only a guess/);
+  });
+});
