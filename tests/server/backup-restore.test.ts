@@ -33,7 +33,7 @@ beforeAll(async () => {
     groupId: entry.groupId,
     objectKey: `attachments/${randomUUID()}`,
     fileName: 'spectrum.csv',
-    kind: 'data',
+    kind: 'csv',
     contentType: 'text/csv',
     sizeBytes: 120,
     sha256: 'a'.repeat(64),
