@@ -48,14 +48,14 @@ const styles = StyleSheet.create({
   panel: {
     borderWidth: 1,
     borderStyle: 'dashed',
-    borderColor: colors.amber,
-    backgroundColor: '#FBF5EA',
+    borderColor: colors.notice,
+    backgroundColor: colors.noticeSoft,
     borderRadius: radius.lg,
     padding: spacing.lg,
     gap: spacing.sm,
   },
   head: { gap: spacing.xs, marginBottom: spacing.xs },
-  tag: { color: colors.amber },
+  tag: { color: colors.notice },
   note: { lineHeight: 18 },
   row: {
     gap: 2,

@@ -91,11 +91,11 @@ const styles = StyleSheet.create({
     flexWrap: 'wrap',
     alignItems: 'center',
     gap: spacing.sm,
-    backgroundColor: colors.amberSoft,
+    backgroundColor: colors.noticeSoft,
     borderRadius: radius.sm,
     paddingHorizontal: spacing.md,
     paddingVertical: spacing.sm,
   },
   staleText: { color: colors.ink, flexShrink: 1 },
-  staleAction: { color: colors.amber, textDecorationLine: 'underline', fontWeight: '600' },
+  staleAction: { color: colors.notice, textDecorationLine: 'underline', fontWeight: '600' },
 });

@@ -49,8 +49,8 @@ export function MarcusChart({ predictedLogK, observedLogK, windowLog = 1 }: {
         </SvgText>
         {observedLogK !== null ? (
           <>
-            <Circle cx={x(observedLogK)} cy={axisY} r={6} fill={colors.amber} stroke={colors.card} strokeWidth={1.5} />
-            <SvgText x={x(observedLogK)} y={axisY + 32} fontSize={11} fontFamily={fonts.strong} fill={colors.amber} textAnchor="middle">
+            <Circle cx={x(observedLogK)} cy={axisY} r={6} fill={colors.notice} stroke={colors.card} strokeWidth={1.5} />
+            <SvgText x={x(observedLogK)} y={axisY + 32} fontSize={11} fontFamily={fonts.strong} fill={colors.notice} textAnchor="middle">
               observed
             </SvgText>
           </>

@@ -2,12 +2,12 @@ import { StyleSheet, View } from 'react-native';
 import Svg, { Circle, Line, Path } from 'react-native-svg';
 import type { RouteKind } from '@/lib/chem/route-types';
 import { AppText } from '@/components/ui/text';
-import { fonts, radius, spacing } from '@/components/ui/theme';
+import { fonts, radius, routeColors, spacing } from '@/components/ui/theme';
 
 const LOOK: Record<RouteKind, { fg: string; bg: string; word: string }> = {
-  'inner-sphere': { fg: '#1F6B61', bg: '#DCEBE6', word: 'inner-sphere' },
-  'outer-sphere': { fg: '#5A3F86', bg: '#E9E1F3', word: 'outer-sphere' },
-  either: { fg: '#6B5A2A', bg: '#F1EAD3', word: 'either route' },
+  'inner-sphere': { ...routeColors['inner-sphere'], word: 'inner-sphere' },
+  'outer-sphere': { ...routeColors['outer-sphere'], word: 'outer-sphere' },
+  either: { ...routeColors.either, word: 'either route' },
 };
 
 /** Route verdict: two spheres joined (bridged), apart with an arc (outer), or joined by dots (either). */

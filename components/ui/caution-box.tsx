@@ -10,7 +10,7 @@ export function CautionBox({ cautions, testID }: { cautions: string[]; testID?: 
     <View style={styles.box} testID={testID} accessibilityRole="alert">
       <View style={styles.head}>
         <Svg width={18} height={18} viewBox="0 0 20 20">
-          <Path d="M10 2 L19 18 H1 Z" fill={colors.amber} />
+          <Path d="M10 2 L19 18 H1 Z" fill={colors.hazard} />
           <Path d="M10 7.5 V12" stroke={colors.card} strokeWidth={2} strokeLinecap="round" />
           <Circle cx={10} cy={15} r={1.2} fill={colors.card} />
         </Svg>
@@ -25,14 +25,14 @@ export function CautionBox({ cautions, testID }: { cautions: string[]; testID?: 
 
 const styles = StyleSheet.create({
   box: {
-    backgroundColor: colors.amberSoft,
+    backgroundColor: colors.hazardSoft,
     borderLeftWidth: 4,
-    borderLeftColor: colors.amber,
+    borderLeftColor: colors.hazard,
     borderRadius: radius.md,
     padding: spacing.lg,
     gap: spacing.sm,
   },
   head: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm },
-  title: { color: colors.amber },
+  title: { color: colors.hazard },
   item: { color: colors.ink },
 });

@@ -67,14 +67,15 @@ interface StatusLook {
   strike?: boolean;
 }
 
-// Each status differs in outline, corner and fill as well as colour, so none relies on colour alone.
-const STATUS_LOOKS: Record<ReviewStatus, StatusLook> = {
+// Each status differs in outline, corner and glyph as well as colour, so none relies on colour alone. The
+// looks stay quiet (no solid fills, ink tones): in a list row the verdict, not the bookkeeping, leads.
+export const STATUS_LOOKS: Record<ReviewStatus, StatusLook> = {
   draft: { word: 'Draft', frame: { borderStyle: 'dashed', borderColor: colors.lineStrong, backgroundColor: 'transparent', borderRadius: radius.pill }, textColor: colors.inkSoft },
-  submitted: { word: 'Submitted', frame: { borderStyle: 'solid', borderColor: colors.accent, backgroundColor: colors.card, borderRadius: radius.pill }, textColor: colors.accent },
-  approved: { word: 'Approved', frame: { borderStyle: 'solid', borderColor: colors.accent, backgroundColor: colors.accent, borderRadius: radius.pill }, textColor: colors.accentInk },
-  'changes-requested': { word: 'Changes requested', frame: { borderStyle: 'solid', borderColor: colors.amber, backgroundColor: colors.amberSoft, borderRadius: radius.sm }, textColor: colors.amber },
-  rejected: { word: 'Rejected', frame: { borderStyle: 'solid', borderColor: colors.danger, backgroundColor: colors.dangerSoft, borderRadius: 2, borderLeftWidth: 4 }, textColor: colors.danger },
-  retired: { word: 'Retired', frame: { borderStyle: 'solid', borderColor: colors.line, backgroundColor: colors.paper, borderRadius: radius.sm }, textColor: colors.muted, strike: true },
+  submitted: { word: 'Submitted', frame: { borderStyle: 'solid', borderColor: colors.lineStrong, backgroundColor: 'transparent', borderRadius: radius.pill }, textColor: colors.inkSoft },
+  approved: { word: 'Approved', frame: { borderStyle: 'solid', borderColor: colors.line, backgroundColor: 'transparent', borderRadius: radius.pill }, textColor: colors.accent },
+  'changes-requested': { word: 'Changes requested', frame: { borderStyle: 'solid', borderColor: colors.notice, backgroundColor: colors.noticeSoft, borderRadius: radius.sm }, textColor: colors.notice },
+  rejected: { word: 'Rejected', frame: { borderStyle: 'solid', borderColor: colors.line, backgroundColor: 'transparent', borderRadius: 2, borderLeftWidth: 3, borderLeftColor: colors.danger }, textColor: colors.danger },
+  retired: { word: 'Retired', frame: { borderStyle: 'solid', borderColor: colors.line, backgroundColor: 'transparent', borderRadius: radius.sm }, textColor: colors.muted, strike: true },
 };
 
 function StatusGlyph({ status, color }: { status: ReviewStatus; color: string }) {
@@ -126,6 +127,6 @@ const styles = StyleSheet.create({
     paddingVertical: 3,
     borderWidth: 1,
   },
-  pillWord: { fontWeight: '600' },
+  pillWord: { fontSize: 12 },
   strike: { textDecorationLine: 'line-through' },
 });
