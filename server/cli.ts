@@ -99,6 +99,8 @@ function classifyCommand({ flags, positional }: ParsedArgs) {
           `${result.spinState ? ` ${result.spinState} spin` : ''}, ${result.geometry}: ${result.verdict.toUpperCase()}` +
           ` (log k ≈ ${result.logKPerSecond.toFixed(1)} s⁻¹, ${result.decidedBy})\n` +
           result.reasons.map((reason) => `   - ${reason}`).join('\n') +
+          `\n  Mechanism: ${result.mechanism.class} (${result.mechanism.evidence === 'measured' ? 'measured' : 'from the trend'}, ${result.mechanism.confidence} confidence)\n` +
+          [...result.mechanism.reasons, ...(result.mechanism.assistedPaths ?? []).map((path) => `${path.text} (${path.rateLaw})`)].map((reason) => `   - ${reason}`).join('\n') +
           (result.cautions.length ? `\n  Cautions:\n${result.cautions.map((c) => `   ! ${c}`).join('\n')}` : '') +
           '\n',
       );

@@ -13,6 +13,7 @@ import type { ElectronConfiguration, MetalElement } from './metal-ions';
 import * as measuredDeltaOModule from './measured-delta-o';
 import * as orbitalFilling from './orbital-filling';
 import * as geometryFit from './geometry-fit';
+import { mechanismFor } from './mechanism';
 import { FormulaError, GeometryMismatchError, type Classification, type ClassifyOptions, type EngineDecidedBy, type LigandInstance, type MeasuredRate } from './types';
 
 // Under tsx (the server, the bench, scripts) every module is compiled to CommonJS and each use of
@@ -200,6 +201,7 @@ function copyClassification(source: Classification): Classification {
     activationEnergyDq: source.activationEnergyDq && { ...source.activationEnergyDq },
     activationEnergyKJPerMol: source.activationEnergyKJPerMol && { ...source.activationEnergyKJPerMol },
     measured: source.measured && { ...source.measured },
+    mechanism: { ...source.mechanism, reasons: source.mechanism.reasons.slice(), ...(source.mechanism.assistedPaths ? { assistedPaths: source.mechanism.assistedPaths.map((path) => ({ ...path })) } : {}) },
     ...(source.readings ? { readings: source.readings.map((reading) => ({ ...reading })) } : {}),
     ...(source.warnings ? { warnings: source.warnings.slice() } : {}),
     ...(source.centres ? { centres: source.centres.map((centre) => ({ ...centre })) } : {}),
@@ -416,6 +418,7 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     valenceElectronCount: electronCount ?? undefined,
     ...(parsed.readings.length > 0 ? { readings: parsed.readings.map(readingSummary) } : {}),
     ...(parsed.warnings.length > 0 ? { warnings: parsed.warnings.slice() } : {}),
+    mechanism: mechanismFor({ metal, oxidationState, series: element.series, electronShell, dElectrons, spinState: spin.spinState, geometry, coordinationNumber: cn, ligands, organometallic, valenceElectronCount: electronCount }),
   };
 }
 

@@ -2,6 +2,7 @@
  * Shared types of the chemistry engines (lability, route, Marcus).
  * Pure data shapes: no I/O, no React, no server code may be imported here.
  */
+import type { Mechanism } from './mechanism';
 
 /**
  * Where a parse failed: a message a chemist can act on (characters counted from 1, as people count)
@@ -262,6 +263,8 @@ export interface Classification {
   readings?: { kind: FormulaReading['kind']; species: string; text: string }[];
   /** Assumptions made while reading the formula (e.g. a missing charge taken as neutral). */
   warnings?: string[];
+  /** How a ligand comes on or off: the Langford–Gray class with its evidence (lib/chem/mechanism.ts). */
+  mechanism: Mechanism;
   /**
    * µ-bridged dinuclear species: each metal centre classified on its own (as the mononuclear species
    * with its terminal ligands and the bridges). The top-level fields are those of the faster centre.
