@@ -1,6 +1,6 @@
 /**
  * The search bench's world: a throwaway cluster (or the given folder's), migrated, with one group,
- * a viewer and a curator, and N generated approved entries (server/modules/library/generate.ts).
+ * a viewer and a curator, and N generated accepted entries (server/modules/library/generate.ts).
  */
 import { startPrivateCluster, type PrivateCluster } from '@/server/db/cluster';
 import { migrate, openOrm, type Orm } from '@/server/db/orm';

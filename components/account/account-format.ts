@@ -5,7 +5,7 @@ import type { Role } from '@/lib/schemas/groups';
  * this only explains them). Each role can also do everything the roles below it can.
  */
 export const roleDescriptions: Record<Role, string> = {
-  viewer: 'read the approved entries of the library',
+  viewer: 'read the accepted entries of the library',
   contributor: 'draft entries and submit them for review',
   curator: 'review contributions and keep the ligand catalogue',
   admin: 'manage members, roles and invitations',

@@ -29,7 +29,7 @@ export function MailPreferencesCard({ me }: { me: Pick<MeResponse, 'memberships'
             />
             <PreferenceSwitch
               label="Decisions on my entries"
-              detail="A message when a curator approves, rejects or asks for changes to something you submitted."
+              detail="A message when a curator accepts, returns or declines something you submitted."
               value={prefs.reviewDecisions}
               onChange={(reviewDecisions) => update.mutate({ reviewDecisions })}
               testID="mail-pref-decisions"

@@ -30,7 +30,7 @@ export function ComplexActions({ entry }: { entry: ComplexDetail }) {
   const [retireReason, setRetireReason] = useState('');
   const { permissions } = entry;
   const curator = roleAtLeast(entry.myRole, 'curator');
-  const waitingForAnotherCurator = curator && entry.status === 'submitted' && !permissions.canReview;
+  const waitingForAnotherCurator = curator && entry.status === 'in-review' && !permissions.canReview;
 
   const onSubmit = async () => {
     setProblem(null);
@@ -110,7 +110,7 @@ export function ComplexActions({ entry }: { entry: ComplexDetail }) {
       <FormError message={problem} testID="complex-action-error" />
       <FormError message={done} tone="done" testID="complex-action-done" />
       {permissions.canReview ? (
-        // The panel goes once the decision is made (the entry is no longer "submitted"): the note stays here.
+        // The panel goes once the decision is made (the entry is no longer "in-review"): the note stays here.
         <ReviewPanel complexId={entry.id} version={entry.version} onDone={({ review }) => setDone(REVIEW_DONE_WORDS[review.decision])} />
       ) : null}
     </View>

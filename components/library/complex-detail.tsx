@@ -60,7 +60,7 @@ export function ComplexDetailView({ id, showBackLink = false }: { id: string; sh
 
 function EntryBody({ entry }: { entry: ComplexDetail }) {
   const [showApproved, setShowApproved] = useState(false);
-  const shown: ComplexSnapshot = showApproved && entry.approved ? entry.approved : entry;
+  const shown: ComplexSnapshot = showApproved && entry.accepted ? entry.accepted : entry;
   const deciding = entryDecidingMeasurement(entry);
   const headVerdict = deciding ? verdictFromLogK(logKMovedTo(deciding.kPerSecond, deciding.temperatureK, DISPLAY_TEMPERATURE_C + 273.15)) : shown.verdict;
   return (
@@ -79,7 +79,7 @@ function EntryBody({ entry }: { entry: ComplexDetail }) {
         </View>
         <AppText variant="caption" tone="muted">
           Added by {entry.createdBy?.displayName ?? 'someone no longer in the group'} · last change {dateTimeText(entry.updatedAt)} UTC
-          {entry.approvedAt ? ` · approved ${dateTimeText(entry.approvedAt)} UTC` : ''}
+          {entry.acceptedAt ? ` · accepted ${dateTimeText(entry.acceptedAt)} UTC` : ''}
         </AppText>
       </View>
 
@@ -107,7 +107,7 @@ function EntryBody({ entry }: { entry: ComplexDetail }) {
   );
 }
 
-/** An approved version stays the group's data while a newer revision waits. */
+/** An accepted version stays the group's data while a newer revision waits. */
 function PendingBanner({ entry, showApproved, onToggle }: { entry: ComplexDetail; showApproved: boolean; onToggle: () => void }) {
   if (!entry.hasPendingRevision) return null;
   const published = entry.view === 'published';
@@ -115,17 +115,17 @@ function PendingBanner({ entry, showApproved, onToggle }: { entry: ComplexDetail
     <View style={styles.banner} testID="complex-pending-banner" accessibilityRole="alert">
       <AppText style={styles.bannerText}>
         {published
-          ? 'Approved version shown; a newer revision awaits review.'
+          ? 'Accepted version shown; a newer revision awaits review.'
           : showApproved
-            ? 'Approved version shown; the newer revision below it awaits review.'
-            : 'You are looking at the newer revision; the approved version stays the group’s data until this one is approved.'}
+            ? 'Accepted version shown; the newer revision below it awaits review.'
+            : 'You are looking at the newer revision; the accepted version stays the group’s data until this one is accepted.'}
       </AppText>
-      {!published && entry.approved ? (
+      {!published && entry.accepted ? (
         <Chip
-          label={showApproved ? 'Show the newer revision' : 'Show the approved version'}
+          label={showApproved ? 'Show the newer revision' : 'Show the accepted version'}
           onPress={onToggle}
           selected={showApproved}
-          testID="complex-toggle-approved"
+          testID="complex-toggle-accepted"
         />
       ) : null}
     </View>
@@ -134,11 +134,11 @@ function PendingBanner({ entry, showApproved, onToggle }: { entry: ComplexDetail
 
 function LatestReviewNote({ entry }: { entry: ComplexDetail }) {
   const review = entry.latestReview;
-  if (!review || review.decision === 'approve' || (entry.status !== 'changes-requested' && entry.status !== 'rejected')) return null;
+  if (!review || review.decision === 'accept' || (entry.status !== 'returned' && entry.status !== 'declined')) return null;
   return (
     <View style={styles.reviewNote} testID="complex-latest-review">
       <AppText variant="label" style={styles.reviewNoteTitle}>
-        {review.decision === 'request-changes' ? 'Changes requested' : 'Rejected'} by {review.reviewer?.displayName ?? 'a curator'}
+        {review.decision === 'return' ? 'Returned' : 'Declined'} by {review.reviewer?.displayName ?? 'a curator'}
       </AppText>
       <AppText>{review.comment}</AppText>
     </View>
@@ -148,7 +148,7 @@ function LatestReviewNote({ entry }: { entry: ComplexDetail }) {
 /** The snapshot whose measurements count: the entry once accepted, or its accepted version while an edit waits. */
 function acceptedSnapshot(entry: ComplexDetail): ComplexSnapshot | null {
   if (entry.status === ACCEPTED_STATUS) return entry;
-  return entry.approved && entry.approved.status === ACCEPTED_STATUS ? entry.approved : null;
+  return entry.accepted && entry.accepted.status === ACCEPTED_STATUS ? entry.accepted : null;
 }
 
 /** The accepted first-order rate of this entry that decides its verdict, if any. */

@@ -74,7 +74,7 @@ export function ComplexFormScreen(props: ComplexFormScreenProps) {
           <AppText tone="soft">
             {access.state === 'signed-out'
               ? 'Sign in first: the library belongs to your group.'
-              : 'Viewers read the group’s approved entries; an admin of your group can make you a contributor.'}
+              : 'Viewers read the group’s accepted entries; an admin of your group can make you a contributor.'}
           </AppText>
           <TextLink href={access.state === 'signed-out' ? '/sign-in?next=/library' : '/library'} testID="complex-form-leave">
             {access.state === 'signed-out' ? 'Sign in' : 'Back to the library'}
@@ -110,10 +110,10 @@ function EditLoader({ complexId }: { complexId: string }) {
         <View style={styles.message} testID="complex-form-not-editable">
           <AppText variant="title">This entry cannot be edited now</AppText>
           <AppText tone="soft">
-            {opened.status === 'submitted'
-              ? 'It is waiting for review: a curator decides first (approve, request changes or reject).'
-              : opened.status === 'retired' || opened.status === 'rejected'
-                ? 'Retired and rejected entries stay as they are for the record; add a new entry instead.'
+            {opened.status === 'in-review'
+              ? 'It is waiting for review: a curator decides first (accept, return for revision or decline).'
+              : opened.status === 'retired' || opened.status === 'declined'
+                ? 'Retired and declined entries stay as they are for the record; add a new entry instead.'
                 : 'Contributors edit the entries they created; curators edit any entry.'}
           </AppText>
           <TextLink href={`/library/${complexId}`}>Back to the entry</TextLink>
@@ -215,8 +215,8 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
           <AppText variant="title" accessibilityRole="header">{editing ? 'Edit entry' : 'New library entry'}</AppText>
           <AppText tone="soft">
             {editing
-              ? `You are editing version ${base?.version}. Saving makes a new revision; an approved entry stays published until a curator approves the change.`
-              : 'A complex with its measured values and their sources. It is a draft until you submit it and a curator approves it.'}
+              ? `You are editing version ${base?.version}. Saving makes a new revision; an accepted entry stays published until a curator accepts the change.`
+              : 'A complex with its measured values and their sources. It is a draft until you submit it and a curator accepts it.'}
           </AppText>
         </View>
         {conflict ? <StaleConflict current={conflict.current} yourChanges={conflict.changes} onReapply={reapply} onDiscard={discard} /> : null}

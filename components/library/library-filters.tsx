@@ -14,10 +14,10 @@ const D_COUNTS = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
 const VERDICTS = ['labile', 'intermediate', 'inert'] as const;
 const STATUS_WORDS: Record<(typeof complexStatuses)[number], string> = {
   draft: 'Draft',
-  submitted: 'Submitted',
-  approved: 'Approved',
-  'changes-requested': 'Changes requested',
-  rejected: 'Rejected',
+  'in-review': 'In review',
+  accepted: 'Accepted',
+  'returned': 'Returned',
+  declined: 'Declined',
   retired: 'Retired',
 };
 
@@ -40,7 +40,7 @@ export function LibraryFilters({ filters, onChange, knownMetals, showStatus }: {
   filters: ComplexFilters;
   onChange: (next: ComplexFilters) => void;
   knownMetals: readonly string[];
-  /** Viewers only ever see approved entries: the status filter would be noise for them. */
+  /** Viewers only ever see accepted entries: the status filter would be noise for them. */
   showStatus: boolean;
 }) {
   const [open, setOpen] = useState(false);

@@ -179,12 +179,12 @@ function LibraryBrowser({ access, selectedId, onSelect }: { access: Member; sele
     ) : (
       <View style={styles.message} testID="library-empty">
         <AppText variant="lead">
-          {access.canContribute ? 'No entries yet — add the first complex' : 'No approved entries yet'}
+          {access.canContribute ? 'No entries yet — add the first complex' : 'No accepted entries yet'}
         </AppText>
         <AppText tone="soft">
           {access.canContribute
-            ? 'An entry is a complex with its measured constants and their citations. It becomes part of the group’s library once a curator approves it.'
-            : 'Contributors in your group add complexes and curators approve them; approved entries appear here.'}
+            ? 'An entry is a complex with its measured constants and their citations. It becomes part of the group’s library once a curator accepts it.'
+            : 'Contributors in your group add complexes and curators accept them; accepted entries appear here.'}
         </AppText>
         {access.canContribute ? (
           <View style={styles.buttonStart}>

@@ -12,20 +12,20 @@ import { StaleVersionError, useReviewComplexMutation } from '@/lib/api/library';
 import { reviewInputSchema, type ReviewDecision, type ReviewResponse } from '@/lib/schemas/library';
 
 const DECISIONS: { decision: ReviewDecision; label: string; testID: string }[] = [
-  { decision: 'approve', label: 'Approve', testID: 'review-approve' },
-  { decision: 'request-changes', label: 'Request changes', testID: 'review-request-changes' },
-  { decision: 'reject', label: 'Reject', testID: 'review-reject' },
+  { decision: 'accept', label: 'Accept', testID: 'review-accept' },
+  { decision: 'return', label: 'Return for revision', testID: 'review-return' },
+  { decision: 'decline', label: 'Decline', testID: 'review-decline' },
 ];
 
 export const REVIEW_DONE_WORDS: Record<ReviewDecision, string> = {
-  approve: 'Approved: this version is now the one the group relies on.',
-  'request-changes': 'Changes requested: the author has been told what to change.',
-  reject: 'Rejected: the author has been told why.',
+  accept: 'Accepted: this version is now the one the group relies on.',
+  'return': 'Returned: the author has been told what to change.',
+  decline: 'Declined: the author has been told why.',
 };
 
 /**
- * A curator's decision on a submitted entry: approve, request changes or reject, with a comment
- * (required unless approving — the shared review schema says so, the server checks it again).
+ * A curator's decision on a submitted entry: accept, return for revision or decline, with a comment
+ * (required unless accepting — the shared review schema says so, the server checks it again).
  */
 export function ReviewPanel({ complexId, version, onDone }: {
   complexId: string;
@@ -44,7 +44,7 @@ export function ReviewPanel({ complexId, version, onDone }: {
     setProblem(null);
     setCommentError(null);
     if (!decision) {
-      setProblem('Choose a decision first: approve, request changes or reject.');
+      setProblem('Choose a decision first: accept, return for revision or decline.');
       return;
     }
     const parsed = reviewInputSchema.safeParse({ decision, comment, version });
@@ -71,7 +71,7 @@ export function ReviewPanel({ complexId, version, onDone }: {
     }
   };
 
-  const needsComment = decision === 'request-changes' || decision === 'reject';
+  const needsComment = decision === 'return' || decision === 'decline';
   return (
     <View style={styles.panel} testID="review-panel">
       <AppText variant="lead">Your review (of version {version})</AppText>
@@ -91,13 +91,13 @@ export function ReviewPanel({ complexId, version, onDone }: {
         ))}
       </View>
       <TextField
-        label={needsComment ? 'Comment (required)' : 'Comment (optional when approving)'}
+        label={needsComment ? 'Note to the author (required)' : 'Note to the author (may be left empty)'}
         value={comment}
         onChangeText={(text) => {
           setComment(text);
           if (commentError) setCommentError(null);
         }}
-        hint={needsComment ? 'Say what should change, or why it is rejected: the author reads this.' : undefined}
+        hint={needsComment ? 'Say what should change, or why it is declined: the author reads this.' : undefined}
         error={commentError ?? undefined}
         autoCapitalize="sentences"
         testID="review-comment"

@@ -33,8 +33,8 @@ export function ReviewQueueScreen() {
         <View style={styles.message} testID="review-not-curator">
           <AppText variant="title">The review queue is for curators</AppText>
           <AppText tone="soft">
-            Every library entry is checked by a curator of the group before the group relies on it: curators approve it, ask for changes or
-            reject it, with a comment the author reads.
+            Every library entry is checked by a curator of the group before the group relies on it: curators accept it, ask for changes or
+            decline it, with a comment the author reads.
             {access.state === 'signed-out'
               ? ' Sign in with a curator account to review.'
               : ' You are not a curator in any of your groups; you can still submit entries and follow their review on each entry’s page.'}
@@ -52,7 +52,7 @@ export function ReviewQueueScreen() {
     <Screen maxWidth={960}>
       <View style={styles.intro}>
         <AppText variant="title" accessibilityRole="header">Review queue</AppText>
-        <AppText tone="soft">Submitted entries of your groups, oldest first. A comment is required to request changes or reject.</AppText>
+        <AppText tone="soft">Entries in review in your groups, oldest first. A comment is required to return an entry for revision or to decline it.</AppText>
       </View>
       {queue.data === undefined ? (
         queue.isError ? (
@@ -124,7 +124,7 @@ function QueueRow({ item, index, open, onOpen, onDecided }: {
             {metalLabel(item.metal, item.oxidationState)} · d{item.dElectrons} · {item.measurementCount}{' '}
             {item.measurementCount === 1 ? 'measurement' : 'measurements'}
             {item.hasCitation ? ' · cited' : ' · no citation yet'}
-            {item.isEditOfApproved ? ' · edit of an approved entry' : ' · new entry'}
+            {item.isEditOfApproved ? ' · edit of an accepted entry' : ' · new entry'}
           </AppText>
         </View>
         <VerdictBadge verdict={item.verdict} size="sm" />

@@ -58,7 +58,7 @@ export function VerdictBadge({ verdict, size = 'md' }: { verdict: Verdict; size?
   );
 }
 
-export type ReviewStatus = 'draft' | 'submitted' | 'approved' | 'changes-requested' | 'rejected' | 'retired';
+export type ReviewStatus = 'draft' | 'in-review' | 'accepted' | 'returned' | 'declined' | 'retired';
 
 interface StatusLook {
   word: string;
@@ -71,10 +71,10 @@ interface StatusLook {
 // looks stay quiet (no solid fills, ink tones): in a list row the verdict, not the bookkeeping, leads.
 export const STATUS_LOOKS: Record<ReviewStatus, StatusLook> = {
   draft: { word: 'Draft', frame: { borderStyle: 'dashed', borderColor: colors.lineStrong, backgroundColor: 'transparent', borderRadius: radius.pill }, textColor: colors.inkSoft },
-  submitted: { word: 'Submitted', frame: { borderStyle: 'solid', borderColor: colors.lineStrong, backgroundColor: 'transparent', borderRadius: radius.pill }, textColor: colors.inkSoft },
-  approved: { word: 'Approved', frame: { borderStyle: 'solid', borderColor: colors.line, backgroundColor: 'transparent', borderRadius: radius.pill }, textColor: colors.accent },
-  'changes-requested': { word: 'Changes requested', frame: { borderStyle: 'solid', borderColor: colors.notice, backgroundColor: colors.noticeSoft, borderRadius: radius.sm }, textColor: colors.notice },
-  rejected: { word: 'Rejected', frame: { borderStyle: 'solid', borderColor: colors.line, backgroundColor: 'transparent', borderRadius: 2, borderLeftWidth: 3, borderLeftColor: colors.danger }, textColor: colors.danger },
+  'in-review': { word: 'In review', frame: { borderStyle: 'dotted', borderColor: colors.lineStrong, backgroundColor: 'transparent', borderRadius: radius.pill }, textColor: colors.inkSoft },
+  accepted: { word: 'Accepted', frame: { borderStyle: 'solid', borderColor: colors.line, backgroundColor: 'transparent', borderRadius: radius.pill }, textColor: colors.accent },
+  returned: { word: 'Returned', frame: { borderStyle: 'solid', borderColor: colors.notice, backgroundColor: colors.noticeSoft, borderRadius: radius.sm }, textColor: colors.notice },
+  declined: { word: 'Declined', frame: { borderStyle: 'solid', borderColor: colors.line, backgroundColor: 'transparent', borderRadius: 2, borderLeftWidth: 3, borderLeftColor: colors.danger }, textColor: colors.danger },
   retired: { word: 'Retired', frame: { borderStyle: 'solid', borderColor: colors.line, backgroundColor: 'transparent', borderRadius: radius.sm }, textColor: colors.muted, strike: true },
 };
 
@@ -83,10 +83,10 @@ function StatusGlyph({ status, color }: { status: ReviewStatus; color: string })
   return (
     <Svg width={12} height={12} viewBox="0 0 12 12" testID={`status-glyph-${status}`}>
       {status === 'draft' ? <Path d="M 2 10 L 3 7 L 8.5 1.5 L 10.5 3.5 L 5 9 Z" {...stroke} strokeWidth={1.4} /> : null}
-      {status === 'submitted' ? <Path d="M 1.5 6 L 10 6 M 6.5 2.5 L 10 6 L 6.5 9.5" {...stroke} /> : null}
-      {status === 'approved' ? <Path d="M 1.8 6.4 L 4.6 9.2 L 10.2 2.8" {...stroke} /> : null}
-      {status === 'changes-requested' ? <Path d="M 9.5 3.5 A 4 4 0 1 0 10 7.5 M 9.8 1 L 9.5 3.5 L 7 3.4" {...stroke} strokeWidth={1.5} /> : null}
-      {status === 'rejected' ? <Path d="M 2.5 2.5 L 9.5 9.5 M 9.5 2.5 L 2.5 9.5" {...stroke} /> : null}
+      {status === 'in-review' ? <Path d="M 1.5 6 L 10 6 M 6.5 2.5 L 10 6 L 6.5 9.5" {...stroke} /> : null}
+      {status === 'accepted' ? <Path d="M 1.8 6.4 L 4.6 9.2 L 10.2 2.8" {...stroke} /> : null}
+      {status === 'returned' ? <Path d="M 3 11 L 3 1.5 L 9.5 3.6 L 3 5.8" {...stroke} strokeWidth={1.5} /> : null}
+      {status === 'declined' ? <Path d="M 2.5 2.5 L 9.5 9.5 M 9.5 2.5 L 2.5 9.5" {...stroke} /> : null}
       {status === 'retired' ? <Path d="M 2 6 L 10 6" {...stroke} /> : null}
     </Svg>
   );

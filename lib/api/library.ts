@@ -370,7 +370,7 @@ export function useRetireComplexMutation(id: string) {
   });
 }
 
-/** Measured meets predicted: approved measurements of the same complex in one of my groups. */
+/** Measured meets predicted: accepted measurements of the same complex in one of my groups. */
 export const measuredKeys = {
   forFormula: (groupId: string, formula: string) => ['measured', groupId, formula] as const,
 };

@@ -12,16 +12,16 @@ import { roleSchema } from './groups';
 // ───────────────────────────── workflow ─────────────────────────────
 
 /**
- * draft → submitted → approved | changes-requested | rejected; changes-requested → (edit) → submitted;
- * approved → (edit) → draft again while the approved snapshot stays published; any → retired (curators).
+ * draft → submitted → accepted | returned | declined; returned → (edit) → submitted;
+ * accepted → (edit) → draft again while the accepted snapshot stays published; any → retired (curators).
  */
-export const complexStatuses = ['draft', 'submitted', 'approved', 'changes-requested', 'rejected', 'retired'] as const;
+export const complexStatuses = ['draft', 'in-review', 'accepted', 'returned', 'declined', 'retired'] as const;
 export const complexStatusSchema = z.enum(complexStatuses, {
   error: `Choose a status: ${complexStatuses.join(', ')}.`,
 });
 export type ComplexStatus = z.infer<typeof complexStatusSchema>;
 
-export const reviewDecisions = ['approve', 'request-changes', 'reject'] as const;
+export const reviewDecisions = ['accept', 'return', 'decline'] as const;
 export const reviewDecisionSchema = z.enum(reviewDecisions, {
   error: `Choose a decision: ${reviewDecisions.join(', ')}.`,
 });
@@ -352,9 +352,9 @@ export const reviewInputSchema = z
     version: z.number().int().min(1).optional(),
   })
   .strict()
-  .refine((r) => r.decision === 'approve' || r.comment.length > 0, {
+  .refine((r) => r.decision === 'accept' || r.comment.length > 0, {
     path: ['comment'],
-    message: 'Say what should change (or why it is rejected): a comment is required unless you approve.',
+    message: 'Say what should change (or why it is declined): a comment is required unless you accept.',
   });
 export type ReviewInput = z.infer<typeof reviewInputSchema>;
 
@@ -401,7 +401,7 @@ export const complexListItemSchema = derivedFieldsSchema.extend({
   measurementCount: z.number().int(),
   measurementKinds: z.array(measurementKindSchema),
   hasCitation: z.boolean(),
-  /** An approved version exists and a newer revision waits (or is being drafted). */
+  /** An accepted version exists and a newer revision waits (or is being drafted). */
   hasPendingRevision: z.boolean(),
   /** Search similarity 0–1 when `q` was given, else null. */
   rank: z.number().nullable(),
@@ -412,8 +412,8 @@ export type ComplexListItem = z.infer<typeof complexListItemSchema>;
 
 /**
  * GET /api/complexes/:id (and the answer to create/patch/transitions). `view` tells which copy the
- * reader sees: viewers (and contributors on other people's entries) see the approved snapshot
- * ("published"); authors and curators see the working copy, with the approved one beside it.
+ * reader sees: viewers (and contributors on other people's entries) see the accepted snapshot
+ * ("published"); authors and curators see the working copy, with the accepted one beside it.
  */
 export const complexDetailSchema = complexSnapshotSchema.extend({
   id: z.string(),
@@ -421,9 +421,9 @@ export const complexDetailSchema = complexSnapshotSchema.extend({
   version: z.number().int(),
   view: z.enum(['working', 'published']),
   hasPendingRevision: z.boolean(),
-  /** The approved snapshot while a newer revision is pending (working view only), else null. */
-  approved: complexSnapshotSchema.nullable(),
-  approvedAt: z.iso.datetime().nullable(),
+  /** The accepted snapshot while a newer revision is pending (working view only), else null. */
+  accepted: complexSnapshotSchema.nullable(),
+  acceptedAt: z.iso.datetime().nullable(),
   createdBy: personRefSchema.nullable(),
   submittedBy: personRefSchema.nullable(),
   submittedAt: z.iso.datetime().nullable(),
@@ -538,8 +538,8 @@ export const reviewSchema = z.object({
   decision: reviewDecisionSchema,
   comment: z.string(),
   reviewer: personRefSchema.nullable(),
-  /** True when a curator approved their own submission as the group's only curator. */
-  selfApproved: z.boolean(),
+  /** True when a curator accepted their own submission as the group's only curator. */
+  selfAccepted: z.boolean(),
   createdAt: z.iso.datetime(),
 });
 export type Review = z.infer<typeof reviewSchema>;
@@ -553,7 +553,7 @@ export const reviewQueueItemSchema = complexListItemSchema.extend({
   groupName: z.string(),
   submittedBy: personRefSchema.nullable(),
   submittedAt: z.iso.datetime().nullable(),
-  /** An edit of an already approved entry (rather than a new entry). */
+  /** An edit of an already accepted entry (rather than a new entry). */
   isEditOfApproved: z.boolean(),
 });
 export const reviewQueueResponseSchema = z.object({ items: z.array(reviewQueueItemSchema), total: z.number().int() });
@@ -602,7 +602,7 @@ export type CreateLigandInput = z.infer<typeof createLigandInputSchema>;
 
 // ───────────────────────────── measured meets predicted ─────────────────────────────
 
-/** An approved measurement of the same complex (same metal, oxidation state and ligand set). */
+/** An accepted measurement of the same complex (same metal, oxidation state and ligand set). */
 export const libraryMeasurementSchema = measurementSchema.extend({
   complexId: z.string(),
   complexFormula: z.string(),

@@ -6,6 +6,7 @@ import { Migration20261230000000_library_search } from './Migration2026123000000
 import { Migration20261231000000_library_search_order } from './Migration20261231000000_library_search_order';
 import { Migration20270125000000_citation_kind } from './Migration20270125000000_citation_kind';
 import { Migration20270130000000_change_feed } from './Migration20270130000000_change_feed';
+import { Migration20270135000000_review_words } from './Migration20270135000000_review_words';
 
 /**
  * Migrations are listed here (not discovered from the folder) so that tsx, jest and a bundled
@@ -20,4 +21,5 @@ export const migrationsList = [
   { name: 'Migration20261231000000_library_search_order', class: Migration20261231000000_library_search_order },
   { name: 'Migration20270125000000_citation_kind', class: Migration20270125000000_citation_kind },
   { name: 'Migration20270130000000_change_feed', class: Migration20270130000000_change_feed },
+  { name: 'Migration20270135000000_review_words', class: Migration20270135000000_review_words },
 ];

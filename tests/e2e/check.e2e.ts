@@ -52,9 +52,9 @@ for (const size of Object.keys(viewports) as ViewportName[]) {
 }
 
 describe('measured meets predicted', () => {
-  it('shows the group library’s approved measurements beside the prediction when signed in', async () => {
+  it('shows the group library’s accepted measurements beside the prediction when signed in', async () => {
     const { context, page } = await signedInPage(browser, 'viewer@larkspur.example.org', 'wide');
-    // [Cr(H2O)6]3+: the demo library holds approved, cited water-exchange data (Helm & Merbach 2005 and others).
+    // [Cr(H2O)6]3+: the demo library holds accepted, cited water-exchange data (Helm & Merbach 2005 and others).
     await page.goto(`${baseUrl()}/check?formula=${encodeURIComponent('[Cr(H2O)6]3+')}`);
     await page.getByTestId('library-measured').waitFor();
     assert.match(await page.getByTestId('library-measured').innerText(), /larkspur[\s\S]*water exchange/i);

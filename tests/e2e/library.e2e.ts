@@ -42,7 +42,7 @@ for (const size of Object.keys(viewports) as ViewportName[]) {
       await context.close();
     });
 
-    it('a curator finds it in the queue and approves it', async () => {
+    it('a curator finds it in the queue and accepts it', async () => {
       assert.ok(entryPath, 'the entry was created');
       const { context, page } = await signedInPage(browser, 'curator@larkspur.example.org', size);
       await page.goto(`${baseUrl()}/review`);
@@ -51,19 +51,19 @@ for (const size of Object.keys(viewports) as ViewportName[]) {
       await screenshot(page, `review-queue-${size}`);
       await page.goto(`${baseUrl()}${entryPath}`);
       await page.getByTestId('review-panel').waitFor();
-      await page.getByTestId('review-approve').click();
+      await page.getByTestId('review-accept').click();
       await page.getByTestId('review-comment').fill('Checked against the lab notebook.');
       await page.getByTestId('review-decision-submit').click();
-      // Once approved the entry leaves review: the panel goes and the status reads approved.
+      // Once accepted the entry leaves review: the panel goes and the status reads accepted.
       await page.getByTestId('review-panel').waitFor({ state: 'detached' });
       await page.waitForFunction(
-        () => /approved/i.test(document.querySelector('[data-testid="complex-detail"]')?.textContent ?? ''),
+        () => /accepted/i.test(document.querySelector('[data-testid="complex-detail"]')?.textContent ?? ''),
       );
-      await screenshot(page, `review-approved-${size}`);
+      await screenshot(page, `review-accepted-${size}`);
       await context.close();
     });
 
-    it('a viewer sees the approved entry in the library', async () => {
+    it('a viewer sees the accepted entry in the library', async () => {
       const { context, page } = await signedInPage(browser, 'viewer@larkspur.example.org', size);
       await page.goto(`${baseUrl()}/library`);
       await page.getByTestId('library-search').fill(ENTRIES[size].formula.slice(0, 8));
@@ -71,7 +71,7 @@ for (const size of Object.keys(viewports) as ViewportName[]) {
       await page.goto(`${baseUrl()}${entryPath}`);
       await page.getByTestId('complex-formula').waitFor();
       const detail = await page.getByTestId('complex-detail').innerText();
-      assert.match(detail, /approved/i);
+      assert.match(detail, /accepted/i);
       assert.ok(!(await page.getByTestId('complex-edit').count()), 'viewers cannot edit');
       await screenshot(page, `library-viewer-${size}`);
       await context.close();

@@ -56,7 +56,7 @@ describe('a group measurement decides on Check', () => {
     const { context, page } = await signedInPage(browser, 'curator@larkspur.example.org', 'wide');
     await page.goto(`${baseUrl()}${entryPath}`);
     await page.getByTestId('review-panel').waitFor();
-    await page.getByTestId('review-approve').click();
+    await page.getByTestId('review-accept').click();
     await page.getByTestId('review-comment').fill('Checked against the cited paper.');
     await page.getByTestId('review-decision-submit').click();
     await page.getByTestId('review-panel').waitFor({ state: 'detached' });

@@ -56,7 +56,7 @@ export async function createEntry(browser: Browser, groupId: string, overrides: 
   return complexDetailSchema.parse(response.body);
 }
 
-export type EntryState = 'draft' | 'submitted' | 'approved' | 'changes-requested' | 'rejected' | 'retired' | 'pending-edit';
+export type EntryState = 'draft' | 'in-review' | 'accepted' | 'returned' | 'declined' | 'retired' | 'pending-edit';
 
 /** An entry of `author` brought into a state through the API (the curator reviews). */
 export async function entryInState(world: LibraryWorld, state: EntryState, overrides: Partial<Record<keyof CreateComplexInput, unknown>> = {}): Promise<ComplexDetail> {
@@ -70,9 +70,9 @@ export async function entryInState(world: LibraryWorld, state: EntryState, overr
   await expectOk(world.author.post(`/api/complexes/${entry.id}/submit`));
   const review = (decision: string, comment = 'checked against the cited paper') =>
     expectOk(world.curator.post(`/api/complexes/${entry.id}/reviews`, { decision, comment }));
-  if (state === 'approved' || state === 'pending-edit' || state === 'retired') await review('approve');
-  if (state === 'changes-requested') await review('request-changes', 'give the ionic strength');
-  if (state === 'rejected') await review('reject', 'duplicate entry');
+  if (state === 'accepted' || state === 'pending-edit' || state === 'retired') await review('accept');
+  if (state === 'returned') await review('return', 'give the ionic strength');
+  if (state === 'declined') await review('decline', 'duplicate entry');
   if (state === 'retired') await expectOk(world.curator.post(`/api/complexes/${entry.id}/retire`));
   if (state === 'pending-edit') {
     const current = complexDetailSchema.parse((await world.curator.get(`/api/complexes/${entry.id}`)).body);

@@ -91,7 +91,7 @@ describe.each(changes)('%s from the same version by %#', (label, change) => {
       const value = await queryRows<{ value: string }>(t.databaseUrl, 'select value::text from measurement where id = $1', [entry.measurements[0]!.id]);
       expect(Number(value[0]!.value)).toBeCloseTo(2.4e-6 + winner.i * 1e-8, 12);
     }
-    if (label === 'submit') expect(stored.status).toBe('submitted');
+    if (label === 'submit') expect(stored.status).toBe('in-review');
     if (label === 'retire') expect(stored.status).toBe('retired');
   });
 });

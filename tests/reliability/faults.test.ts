@@ -159,7 +159,7 @@ it('SIGKILL in the middle of review transitions leaves every entry fully transit
     entries.push({ id: (created.body as { id: string }).id, version: (created.body as { version: number }).version });
   });
 
-  // Each entry cycles: submit → request changes → edit → submit → approve → edit → … until the process dies.
+  // Each entry cycles: submit → return → edit → submit → accept → edit → … until the process dies.
   let acknowledged = 0;
   const cycle = async (entry: { id: string; version: number }) => {
     for (let step = 0; step < 1000; step += 1) {
@@ -167,7 +167,7 @@ it('SIGKILL in the middle of review transitions leaves every entry fully transit
         step % 3 === 0
           ? await contributor.post(`/api/complexes/${entry.id}/submit`, { version: entry.version })
           : step % 3 === 1
-            ? await curator.post(`/api/complexes/${entry.id}/reviews`, step % 2 === 0 ? { decision: 'approve', version: entry.version } : { decision: 'request-changes', comment: 'tighten the temperature', version: entry.version })
+            ? await curator.post(`/api/complexes/${entry.id}/reviews`, step % 2 === 0 ? { decision: 'accept', version: entry.version } : { decision: 'return', comment: 'tighten the temperature', version: entry.version })
             : await contributor.patch(`/api/complexes/${entry.id}`, { version: entry.version, notes: `step ${step}` });
       const body = result.body as { version?: number; complex?: { version: number } };
       const version = body.complex?.version ?? body.version;

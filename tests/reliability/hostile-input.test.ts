@@ -85,7 +85,7 @@ const sampleBodies: Record<string, Record<string, unknown> | null | 'raw'> = {
   'POST /api/complexes': { formula: '[Cr(H2O)6]3+', name: 'hexaaquachromium(III)', notes: 'n', measurements: [{ kind: 'water-exchange', value: 2.4e-6, unit: 's-1' }] },
   'PATCH /api/complexes/:id': { version: 1, formula: '[Co(NH3)6]3+', name: 'renamed', notes: 'x', message: 'm' },
   'POST /api/complexes/:id/submit': { version: 1, message: 'please review' },
-  'POST /api/complexes/:id/reviews': { decision: 'approve', comment: 'fine', version: 1 },
+  'POST /api/complexes/:id/reviews': { decision: 'accept', comment: 'fine', version: 1 },
   'POST /api/complexes/:id/retire': { version: 1, message: 'retire it' },
   'POST /api/complexes/:id/measurements': { kind: 'water-exchange', value: 5, unit: 's-1', temperatureK: 298.15, version: 1 },
   'PATCH /api/complexes/:id/measurements/:mid': { value: 23000, unit: 'cm-1', medium: 'water', version: 1 },

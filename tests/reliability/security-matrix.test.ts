@@ -93,15 +93,15 @@ async function submitted(): Promise<Entry> {
   return { ...entry, version: response.body.version };
 }
 
-async function approved(): Promise<Entry> {
+async function accepted(): Promise<Entry> {
   const entry = await submitted();
-  const response = await b.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'approve', version: entry.version });
-  if (response.status !== 201) throw new Error(`approve: ${response.status} ${JSON.stringify(response.body)}`);
+  const response = await b.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept', version: entry.version });
+  if (response.status !== 201) throw new Error(`accept: ${response.status} ${JSON.stringify(response.body)}`);
   return { ...entry, version: response.body.complex.version };
 }
 
 async function withAttachment(): Promise<Entry & { attachmentId: string }> {
-  const entry = await approved();
+  const entry = await accepted();
   const response = await upload('curator', entry.id, 'notes.txt', Buffer.from('UV-vis: 475 nm band\n'));
   if (response.status !== 201) throw new Error(`attach: ${response.status} ${JSON.stringify(response.body)}`);
   return { ...entry, attachmentId: response.body.id };
@@ -132,16 +132,16 @@ interface RouteCase {
 const cases: RouteCase[] = [
   { name: 'GET /api/complexes?groupId', call: (a) => b[a].get(`/api/complexes?groupId=${larkspur}`), expected: ok(200) },
   { name: 'POST /api/complexes', call: (a) => b[a].post('/api/complexes', { groupId: larkspur, formula: '[Cr(H2O)6]3+', name: `matrix ${unique()}` }), expected: ok(201, { viewer: 403 }) },
-  { name: 'GET /api/complexes/:id (approved)', call: async (a) => b[a].get(`/api/complexes/${(await approved()).id}`), expected: ok(200) },
+  { name: 'GET /api/complexes/:id (accepted)', call: async (a) => b[a].get(`/api/complexes/${(await accepted()).id}`), expected: ok(200) },
   { name: 'GET /api/complexes/:id (a draft by the admin)', call: async (a) => b[a].get(`/api/complexes/${(await draft('admin')).id}`), expected: ok(200, { contributor: 404, viewer: 404 }) },
   { name: 'PATCH /api/complexes/:id (own draft)', call: async (a) => { const e = await draft(); return b[a].patch(`/api/complexes/${e.id}`, { version: e.version, notes: 'x' }); }, expected: ok(200, { viewer: 404 }) },
-  { name: 'PATCH /api/complexes/:id (approved, by someone else)', call: async (a) => { const e = await approved(); return b[a].patch(`/api/complexes/${e.id}`, { version: e.version, notes: 'x' }); }, expected: ok(200, { viewer: 403 }) },
+  { name: 'PATCH /api/complexes/:id (accepted, by someone else)', call: async (a) => { const e = await accepted(); return b[a].patch(`/api/complexes/${e.id}`, { version: e.version, notes: 'x' }); }, expected: ok(200, { viewer: 403 }) },
   { name: 'POST /api/complexes/:id/submit', call: async (a) => { const e = await draft(); return b[a].post(`/api/complexes/${e.id}/submit`, { version: e.version }); }, expected: ok(200, { viewer: 404 }) },
-  { name: 'POST /api/complexes/:id/reviews', call: async (a) => { const e = await submitted(); return b[a].post(`/api/complexes/${e.id}/reviews`, { decision: 'request-changes', comment: 'cite the rate', version: e.version }); }, expected: ok(201, { contributor: 403, viewer: 404 }) },
-  { name: 'POST /api/complexes/:id/retire', call: async (a) => { const e = await approved(); return b[a].post(`/api/complexes/${e.id}/retire`, { version: e.version }); }, expected: ok(200, { contributor: 403, viewer: 403 }) },
-  { name: 'GET /api/complexes/:id/revisions', call: async (a) => b[a].get(`/api/complexes/${(await approved()).id}/revisions`), expected: ok(200) },
-  { name: 'GET /api/complexes/:id/revisions/diff', call: async (a) => b[a].get(`/api/complexes/${(await approved()).id}/revisions/diff?from=1&to=3`), expected: ok(200) },
-  { name: 'GET /api/complexes/:id/revisions/:number', call: async (a) => b[a].get(`/api/complexes/${(await approved()).id}/revisions/1`), expected: ok(200) },
+  { name: 'POST /api/complexes/:id/reviews', call: async (a) => { const e = await submitted(); return b[a].post(`/api/complexes/${e.id}/reviews`, { decision: 'return', comment: 'cite the rate', version: e.version }); }, expected: ok(201, { contributor: 403, viewer: 404 }) },
+  { name: 'POST /api/complexes/:id/retire', call: async (a) => { const e = await accepted(); return b[a].post(`/api/complexes/${e.id}/retire`, { version: e.version }); }, expected: ok(200, { contributor: 403, viewer: 403 }) },
+  { name: 'GET /api/complexes/:id/revisions', call: async (a) => b[a].get(`/api/complexes/${(await accepted()).id}/revisions`), expected: ok(200) },
+  { name: 'GET /api/complexes/:id/revisions/diff', call: async (a) => b[a].get(`/api/complexes/${(await accepted()).id}/revisions/diff?from=1&to=3`), expected: ok(200) },
+  { name: 'GET /api/complexes/:id/revisions/:number', call: async (a) => b[a].get(`/api/complexes/${(await accepted()).id}/revisions/1`), expected: ok(200) },
   { name: 'POST /api/complexes/:id/measurements', call: async (a) => { const e = await draft(); return b[a].post(`/api/complexes/${e.id}/measurements`, { version: e.version, kind: 'ligand-field-splitting', value: 22900, unit: 'cm-1' }); }, expected: ok(201, { viewer: 404 }) },
   { name: 'PATCH /api/complexes/:id/measurements/:mid', call: async (a) => { const e = await draft(); return b[a].patch(`/api/complexes/${e.id}/measurements/${e.measurementId}`, { version: e.version, value: 1.8e-6 }); }, expected: ok(200, { viewer: 404 }) },
   { name: 'DELETE /api/complexes/:id/measurements/:mid', call: async (a) => { const e = await draft(); return b[a].delete(`/api/complexes/${e.id}/measurements/${e.measurementId}?version=${e.version}`); }, expected: ok(200, { viewer: 404 }) },
@@ -156,9 +156,9 @@ const cases: RouteCase[] = [
   { name: 'GET /api/exports/library.csv', call: (a) => b[a].get(`/api/exports/library.csv?groupId=${larkspur}`), expected: ok(200) },
   { name: 'GET /api/exports/citations.bib', call: (a) => b[a].get(`/api/exports/citations.bib?groupId=${larkspur}`), expected: ok(200) },
   { name: 'GET /api/exports/citations.ris', call: (a) => b[a].get(`/api/exports/citations.ris?groupId=${larkspur}`), expected: ok(200) },
-  { name: 'GET /api/complexes/:id/attachments', call: async (a) => b[a].get(`/api/complexes/${(await approved()).id}/attachments`), expected: ok(200) },
+  { name: 'GET /api/complexes/:id/attachments', call: async (a) => b[a].get(`/api/complexes/${(await accepted()).id}/attachments`), expected: ok(200) },
   { name: 'POST /api/complexes/:id/attachments (own draft)', call: async (a) => upload(a, (await draft()).id, 'spectrum.txt', Buffer.from('a spectrum\n')), expected: ok(201, { viewer: 404 }) },
-  { name: 'POST /api/complexes/:id/attachments (approved, by someone else)', call: async (a) => upload(a, (await approved()).id, 'spectrum.txt', Buffer.from('a spectrum\n')), expected: ok(201, { viewer: 403 }) },
+  { name: 'POST /api/complexes/:id/attachments (accepted, by someone else)', call: async (a) => upload(a, (await accepted()).id, 'spectrum.txt', Buffer.from('a spectrum\n')), expected: ok(201, { viewer: 403 }) },
   { name: 'GET /api/complexes/:id/attachments/:attachmentId', call: async (a) => { const e = await withAttachment(); return b[a].get(`/api/complexes/${e.id}/attachments/${e.attachmentId}`); }, expected: ok(200) },
   { name: 'DELETE /api/complexes/:id/attachments/:attachmentId', call: async (a) => { const e = await withAttachment(); return b[a].delete(`/api/complexes/${e.id}/attachments/${e.attachmentId}`); }, expected: ok(204, { contributor: 403, viewer: 403 }) },
 ];
@@ -369,7 +369,7 @@ describe('SQL injection in every search and filter parameter', () => {
           if (route === '/api/complexes') {
             for (const item of response.body.items as { status: string; groupId: string }[]) {
               if (item.groupId !== larkspur) failures.push(`${where}: row of group ${item.groupId}`);
-              if (item.status !== 'approved') failures.push(`${where}: a ${item.status} entry shown to a viewer`);
+              if (item.status !== 'accepted') failures.push(`${where}: a ${item.status} entry shown to a viewer`);
             }
           }
         }

@@ -161,13 +161,13 @@ describe('state shared between the two processes', () => {
     expect((await contributor.post(`/api/complexes/${id}/submit`, { version })).status).toBe(200);
     const curator = new HttpClient(b.baseUrl);
     await curator.signIn('curator@larkspur.example.org', DEMO_PASSWORD);
-    const reviewed = await curator.post(`/api/complexes/${id}/reviews`, { decision: 'approve', version: version + 1 });
+    const reviewed = await curator.post(`/api/complexes/${id}/reviews`, { decision: 'accept', version: version + 1 });
     expect(reviewed.status).toBe(201);
-    // Seen as approved from A too.
-    expect(((await contributor.get(`/api/complexes/${id}`)).body as { status: string }).status).toBe('approved');
+    // Seen as accepted from A too.
+    expect(((await contributor.get(`/api/complexes/${id}`)).body as { status: string }).status).toBe('accepted');
     const revisions = await queryRows<{ number: number; kind: string; status: string }>(cluster.url, 'select number, kind, status from complex_revision where complex_id = $1 order by number', [id]);
-    expect(revisions.map((r) => `${r.number}:${r.kind}:${r.status}`)).toEqual(['1:create:draft', '2:submit:submitted', '3:review:approved']);
+    expect(revisions.map((r) => `${r.number}:${r.kind}:${r.status}`)).toEqual(['1:create:draft', '2:submit:submitted', '3:review:accepted']);
     const audit = await queryRows<{ action: string; version: number }>(cluster.url, "select action, (details->>'version')::int as version from audit_event where subject_id = $1 order by created_at", [id]);
-    expect(audit.map((e) => `${e.version}:${e.action}`)).toEqual(['1:library.entry.created', '2:library.entry.submitted', '3:library.entry.approved']);
+    expect(audit.map((e) => `${e.version}:${e.action}`)).toEqual(['1:library.entry.created', '2:library.entry.submitted', '3:library.entry.accepted']);
   });
 });

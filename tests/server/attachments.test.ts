@@ -32,7 +32,7 @@ beforeAll(async () => {
   const app = createApp({ orm: base.orm, storage: createS3Storage(s3.settings) });
   t = { ...base, app };
   w = await buildLibraryWorld(t, 'att');
-  entryId = (await entryInState(w, 'approved')).id;
+  entryId = (await entryInState(w, 'accepted')).id;
 }, 30_000);
 afterAll(async () => {
   await s3.close();

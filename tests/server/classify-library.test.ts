@@ -23,11 +23,11 @@ const CR_K = 2.4e-6;
 beforeAll(async () => {
   t = await createTestApp();
   w = await buildLibraryWorld(t, 'decides');
-  ids.rh = (await entryInState(w, 'approved', { formula: '[Rh(H2O)6]3+', name: 'hexaaquarhodium(III)', measurements: [measurementInput({ value: RH_K, citation: laurenczy1991 })] })).id;
+  ids.rh = (await entryInState(w, 'accepted', { formula: '[Rh(H2O)6]3+', name: 'hexaaquarhodium(III)', measurements: [measurementInput({ value: RH_K, citation: laurenczy1991 })] })).id;
   ids.crDraft = (await entryInState(w, 'draft', { formula: '[Cr(H2O)6]3+', name: 'hexaaquachromium(III)', measurements: [measurementInput({ value: CR_K, citation: xuKrouseSwaddle1985 })] })).id;
   // Ni(II) with only a second-order constant: nothing that can decide a first-order lability verdict.
   ids.niSecondOrder = (
-    await entryInState(w, 'approved', {
+    await entryInState(w, 'accepted', {
       formula: '[Ni(NH3)6]2+',
       name: 'hexaamminenickel(II)',
       measurements: [measurementInput({ kind: 'substitution', value: 3.0e3, unit: 'M-1 s-1', citation: xuKrouseSwaddle1985 })],

@@ -29,7 +29,7 @@ let w: LibraryWorld;
 beforeAll(async () => {
   t = await createTestApp();
   w = await buildLibraryWorld(t, 'types');
-  await entryInState(w, 'approved', {
+  await entryInState(w, 'accepted', {
     formula: '[Fe(H2O)6]3+',
     name: 'hexaaquairon(III)',
     measurements: [

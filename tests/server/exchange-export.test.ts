@@ -19,8 +19,8 @@ beforeAll(async () => {
   const csv = fs.readFileSync(path.join(__dirname, '../fixtures/import-valid.csv'));
   const imported = await upload(t.app, w.author, `/api/imports?groupId=${w.groupId}&wait=true`, csv);
   if (imported.body.state !== 'succeeded') throw new Error(JSON.stringify(imported.body));
-  // One entry made through the forms, approved, so viewers have something to export.
-  await entryInState(w, 'approved', { formula: '[V(H2O)6]2+', name: 'hexaaquavanadium(II)', measurements: [measurementInput({ value: 87, citation: null })] });
+  // One entry made through the forms, accepted, so viewers have something to export.
+  await entryInState(w, 'accepted', { formula: '[V(H2O)6]2+', name: 'hexaaquavanadium(II)', measurements: [measurementInput({ value: 87, citation: null })] });
 }, 30_000);
 afterAll(async () => {
   await t.close();
@@ -56,7 +56,7 @@ describe('CSV export', () => {
     expect(withoutEntry(rowsOf(again.toString('utf8')))).toEqual(withoutEntry(rowsOf(first.toString('utf8'))));
   });
 
-  it('exports what the reader may see: a viewer gets the approved entries only', async () => {
+  it('exports what the reader may see: a viewer gets the accepted entries only', async () => {
     const rows = rowsOf(((await download(t.app, w.viewer, `/api/exports/library.csv?groupId=${w.groupId}`)).body as Buffer).toString('utf8'));
     expect(rows.map((r) => r.formula)).toEqual(['[V(H2O)6]2+']);
   });

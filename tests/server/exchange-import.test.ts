@@ -96,7 +96,7 @@ describe('import', () => {
 
     const rh = await Promise.all(job.complexIds.map(async (id) => complexDetailSchema.parse((await w.curator.get(`/api/complexes/${id}`)).body)));
     const rhodium = rh.find((c) => c.formula === '[Rh(H2O)6]3+');
-    expect(rhodium?.status).toBe('submitted');
+    expect(rhodium?.status).toBe('in-review');
     expect(rhodium?.measurements.map((m) => [m.kind, m.value, m.unit])).toEqual([
       ['water-exchange', 2.2e-9, 's-1'],
       ['activation-enthalpy', 131, 'kJ/mol'],

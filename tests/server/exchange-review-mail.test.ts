@@ -37,10 +37,10 @@ describe('review e-mails', () => {
     expect(toCurator?.text).toContain('author mail submitted hexaaquanickel(II)');
     expect(toCurator?.links.some((l) => l.endsWith('/review'))).toBe(true);
 
-    expect((await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'request-changes', comment: 'Give the ionic strength.' })).status).toBe(201);
+    expect((await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'return', comment: 'Give the ionic strength.' })).status).toBe(201);
     await reviewMail.settle();
     const [decision] = await outboxFor(t.app, email('author'));
-    expect(decision?.subject).toBe('Sphereline: hexaaquanickel(II) ([Ni(H2O)6]2+) was sent back for changes');
+    expect(decision?.subject).toBe('Sphereline: hexaaquanickel(II) ([Ni(H2O)6]2+) was returned for revision');
     expect(decision?.text).toContain('Comment: Give the ionic strength.');
     expect(decision?.links.some((l) => l.endsWith(`/library/${entry.id}`))).toBe(true);
   });
@@ -55,7 +55,7 @@ describe('review e-mails', () => {
 
     const entry = await createEntry(w.author, w.groupId, { formula: '[Co(NH3)6]3+', name: 'hexaamminecobalt(III)' });
     await w.author.post(`/api/complexes/${entry.id}/submit`);
-    await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'approve' });
+    await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept' });
     await reviewMail.settle();
     expect((await outboxFor(t.app, email('author'))).length).toBe(authorBefore);
     expect((await outboxFor(t.app, email('curator'))).length).toBe(curatorBefore);

@@ -49,7 +49,7 @@ describe('the Larkspur demo library', () => {
     const all = complexListResponseSchema.parse((await curator.get(`/api/complexes?groupId=${groupId}&pageSize=100`)).body);
     expect(all.total).toBe(demoLibrary.complexes.length);
     const statuses = new Set(all.items.map((i) => i.status));
-    for (const status of ['draft', 'submitted', 'approved', 'changes-requested', 'rejected', 'retired']) expect(statuses).toContain(status);
+    for (const status of ['draft', 'in-review', 'accepted', 'returned', 'declined', 'retired']) expect(statuses).toContain(status);
     expect(all.items.some((i) => i.hasPendingRevision)).toBe(true);
     const queue = (await curator.get('/api/review-queue')).body as { total: number };
     expect(queue.total).toBeGreaterThanOrEqual(2);
@@ -74,12 +74,12 @@ describe('the Larkspur demo library', () => {
     }
   });
 
-  it('the visiting collaborator (viewer) finds cobalt ammines with "Co amm" and sees approved entries only', async () => {
+  it('the visiting collaborator (viewer) finds cobalt ammines with "Co amm" and sees accepted entries only', async () => {
     const viewer = await signedIn('viewer@larkspur.example.org');
     const result = complexListResponseSchema.parse((await viewer.get(`/api/complexes?q=${encodeURIComponent('Co amm')}&pageSize=10`)).body);
     expect(result.items.slice(0, 5).every((i) => i.metal === 'Co' && i.ligandIds.includes('NH3'))).toBe(true);
-    expect(result.items.every((i) => i.status === 'approved')).toBe(true);
-    // [Ni(H2O)6]2+ has an in-house edit pending: the viewer still sees the approved snapshot.
+    expect(result.items.every((i) => i.status === 'accepted')).toBe(true);
+    // [Ni(H2O)6]2+ has an in-house edit pending: the viewer still sees the accepted snapshot.
     const ni = complexListResponseSchema.parse((await viewer.get(`/api/complexes?q=${encodeURIComponent('[Ni(H2O)6]2+')}`)).body).items[0]!;
     const detail = complexDetailSchema.parse((await viewer.get(`/api/complexes/${ni.id}`)).body);
     expect(detail.view).toBe('published');
@@ -103,7 +103,7 @@ describe('the Larkspur demo library', () => {
     expect(all.total).toBe(demoLibrary.complexes.length);
   });
 
-  it('the benchmark generator adds N approved, searchable entries to a group in one go', async () => {
+  it('the benchmark generator adds N accepted, searchable entries to a group in one go', async () => {
     const fenwick = await t.orm.em.fork().findOneOrFail(ResearchGroup, { name: DEMO_GROUPS.fenwick });
     await generateSyntheticEntries(t.orm.em.fork(), { groupId: fenwick.id, count: 150 });
     const admin = await signedIn('fenwick-admin@fenwick.example.org');

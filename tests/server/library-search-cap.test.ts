@@ -7,7 +7,7 @@ import { buildLibraryWorld, type LibraryWorld } from '../factories/library-world
 /**
  * Section 3 of the 100 000-entry issue: totals are counted up to SEARCH_COUNT_CAP (or the end of
  * the page asked for), and the index-ordered page must be the very page that ranking every match
- * gives. The library is filled with the benchmark generator (approved entries by the curator).
+ * gives. The library is filled with the benchmark generator (accepted entries by the curator).
  */
 
 let t: TestApp;
@@ -74,7 +74,7 @@ describe('the total is exact up to the cap, then a lower bound', () => {
 
 describe('index-ordered pages equal the pages of ranking every match', () => {
   beforeAll(async () => {
-    // More approved entries, and drafts of the contributor's own that only they and curators see.
+    // More accepted entries, and drafts of the contributor's own that only they and curators see.
     await generateSyntheticEntries(t.orm.em.fork(), { groupId: w.groupId, count: 1500, createdById: w.ids.curator });
     await generateSyntheticEntries(t.orm.em.fork(), { groupId: w.groupId, count: 300, createdById: w.ids.author, status: 'draft' });
   }, 120_000);
@@ -112,7 +112,7 @@ describe('index-ordered pages equal the pages of ranking every match', () => {
     expect(lowerBounds).toBeGreaterThan(50);
   }, 180_000);
 
-  it('viewers see approved entries only; the contributor also their drafts', async () => {
+  it('viewers see accepted entries only; the contributor also their drafts', async () => {
     const viewer = await list('viewer', 'status=draft');
     expect([viewer.total, viewer.totalIsLowerBound]).toEqual([0, false]);
     const author = await w.author.get(`/api/complexes?groupId=${w.groupId}&status=draft`);

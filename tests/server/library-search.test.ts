@@ -9,8 +9,8 @@ let t: TestApp;
 let w: LibraryWorld;
 const ids: Record<string, string> = {};
 
-/** Entries (all approved unless noted) spanning metals, ammines and aqua ions. */
-const entries: { key: string; formula: string; name: string; approve?: boolean; measurements?: unknown[] }[] = [
+/** Entries (all accepted unless noted) spanning metals, ammines and aqua ions. */
+const entries: { key: string; formula: string; name: string; accept?: boolean; measurements?: unknown[] }[] = [
   { key: 'coHexaammine', formula: '[Co(NH3)6]3+', name: 'hexaamminecobalt(III)' },
   { key: 'coChloro', formula: '[Co(NH3)5Cl]2+', name: 'pentaamminechloridocobalt(III)' },
   { key: 'coAqua', formula: '[Co(H2O)6]2+', name: 'hexaaquacobalt(II)' },
@@ -24,7 +24,7 @@ const entries: { key: string; formula: string; name: string; approve?: boolean; 
     measurements: [measurementInput({ value: 2.2e-9, citation: laurenczy1991 })],
   },
   { key: 'niAmmine', formula: '[Ni(NH3)6]2+', name: 'hexaamminenickel(II)' },
-  { key: 'coEnDraft', formula: '[Co(en)3]3+', name: 'tris(ethane-1,2-diamine)cobalt(III)', approve: false },
+  { key: 'coEnDraft', formula: '[Co(en)3]3+', name: 'tris(ethane-1,2-diamine)cobalt(III)', accept: false },
 ];
 
 beforeAll(async () => {
@@ -33,10 +33,10 @@ beforeAll(async () => {
   for (const e of entries) {
     const created = await createEntry(w.author, w.groupId, { formula: e.formula, name: e.name, measurements: e.measurements ?? [] });
     ids[e.key] = created.id;
-    if (e.approve === false) continue;
+    if (e.accept === false) continue;
     await w.author.post(`/api/complexes/${created.id}/submit`);
-    const approved = await w.curator.post(`/api/complexes/${created.id}/reviews`, { decision: 'approve' });
-    if (approved.status !== 201) throw new Error(JSON.stringify(approved.body));
+    const accepted = await w.curator.post(`/api/complexes/${created.id}/reviews`, { decision: 'accept' });
+    if (accepted.status !== 201) throw new Error(JSON.stringify(accepted.body));
   }
   // The other group holds a cobalt ammine of its own.
   const foreign = await w.outsider.post('/api/complexes', { groupId: w.otherGroupId, formula: '[Co(NH3)6]3+', name: 'hexaamminecobalt(III) — Fenwick copy' });
@@ -179,7 +179,7 @@ describe('validation: clear 400s, never 500', () => {
 });
 
 describe('measured meets predicted', () => {
-  it('finds approved measurements of the same complex by metal, oxidation state and ligand set', async () => {
+  it('finds accepted measurements of the same complex by metal, oxidation state and ligand set', async () => {
     const response = await w.viewer.get(`/api/groups/${w.groupId}/measured?formula=${encodeURIComponent('[Rh(OH2)6](ClO4)3')}`);
     expect(response.status).toBe(200);
     const body = measuredResponseSchema.parse(response.body);

@@ -25,7 +25,7 @@ afterAll(async () => {
 });
 
 type Who = 'admin' | 'curator' | 'author' | 'contributor2' | 'viewer' | 'outsider';
-type Act = 'edit' | 'submit' | 'approve' | 'request-changes' | 'reject' | 'retire';
+type Act = 'edit' | 'submit' | 'accept' | 'return' | 'decline' | 'retire';
 
 async function act(who: Who, action: Act, id: string, version: number) {
   const browser = w[who];
@@ -44,39 +44,39 @@ async function act(who: Who, action: Act, id: string, version: number) {
 // [state, who, action, expected HTTP status, expected status afterwards (when allowed)]
 const transitions: [EntryState, Who, Act, number, string?][] = [
   ['draft', 'author', 'edit', 200, 'draft'],
-  ['draft', 'author', 'submit', 200, 'submitted'],
+  ['draft', 'author', 'submit', 200, 'in-review'],
   ['draft', 'curator', 'edit', 200, 'draft'],
-  ['draft', 'curator', 'submit', 200, 'submitted'],
+  ['draft', 'curator', 'submit', 200, 'in-review'],
   ['draft', 'contributor2', 'edit', 404], // another contributor's draft is invisible
   ['draft', 'viewer', 'submit', 404],
   ['draft', 'outsider', 'edit', 404],
-  ['draft', 'curator', 'approve', 409],
+  ['draft', 'curator', 'accept', 409],
   ['draft', 'curator', 'retire', 200, 'retired'],
-  ['submitted', 'author', 'approve', 403],
-  ['submitted', 'author', 'edit', 409],
-  ['submitted', 'author', 'submit', 409],
-  ['submitted', 'curator', 'approve', 201, 'approved'],
-  ['submitted', 'admin', 'approve', 201, 'approved'],
-  ['submitted', 'curator', 'request-changes', 201, 'changes-requested'],
-  ['submitted', 'curator', 'reject', 201, 'rejected'],
-  ['submitted', 'outsider', 'approve', 404],
-  ['changes-requested', 'author', 'edit', 200, 'changes-requested'],
-  ['changes-requested', 'author', 'submit', 200, 'submitted'],
-  ['changes-requested', 'curator', 'approve', 409],
-  ['approved', 'author', 'submit', 409],
-  ['approved', 'curator', 'approve', 409],
-  ['approved', 'viewer', 'edit', 403],
-  ['approved', 'contributor2', 'edit', 403],
-  ['approved', 'author', 'edit', 200, 'draft'],
-  ['approved', 'author', 'retire', 403],
-  ['approved', 'admin', 'retire', 200, 'retired'],
-  ['rejected', 'author', 'edit', 409],
-  ['rejected', 'author', 'submit', 409],
-  ['rejected', 'curator', 'approve', 409],
+  ['in-review', 'author', 'accept', 403],
+  ['in-review', 'author', 'edit', 409],
+  ['in-review', 'author', 'submit', 409],
+  ['in-review', 'curator', 'accept', 201, 'accepted'],
+  ['in-review', 'admin', 'accept', 201, 'accepted'],
+  ['in-review', 'curator', 'return', 201, 'returned'],
+  ['in-review', 'curator', 'decline', 201, 'declined'],
+  ['in-review', 'outsider', 'accept', 404],
+  ['returned', 'author', 'edit', 200, 'returned'],
+  ['returned', 'author', 'submit', 200, 'in-review'],
+  ['returned', 'curator', 'accept', 409],
+  ['accepted', 'author', 'submit', 409],
+  ['accepted', 'curator', 'accept', 409],
+  ['accepted', 'viewer', 'edit', 403],
+  ['accepted', 'contributor2', 'edit', 403],
+  ['accepted', 'author', 'edit', 200, 'draft'],
+  ['accepted', 'author', 'retire', 403],
+  ['accepted', 'admin', 'retire', 200, 'retired'],
+  ['declined', 'author', 'edit', 409],
+  ['declined', 'author', 'submit', 409],
+  ['declined', 'curator', 'accept', 409],
   ['retired', 'author', 'edit', 409],
   ['retired', 'curator', 'retire', 409],
-  ['retired', 'curator', 'approve', 409],
-  ['pending-edit', 'author', 'submit', 200, 'submitted'],
+  ['retired', 'curator', 'accept', 409],
+  ['pending-edit', 'author', 'submit', 200, 'in-review'],
 ];
 
 describe('workflow transitions by role and status (table-driven)', () => {
@@ -93,7 +93,7 @@ describe('workflow transitions by role and status (table-driven)', () => {
       expect(unchanged.status).toBe(entry.status);
       expect(unchanged.version).toBe(entry.version);
     } else {
-      const detail = action === 'approve' || action === 'reject' || action === 'request-changes'
+      const detail = action === 'accept' || action === 'decline' || action === 'return'
         ? reviewResponseSchema.parse(response.body).complex
         : complexDetailSchema.parse(response.body);
       expect(detail.status).toBe(after);
@@ -102,10 +102,10 @@ describe('workflow transitions by role and status (table-driven)', () => {
   });
 
   it('writes an audit event for every status change', async () => {
-    const entry = await entryInState(w, 'approved');
+    const entry = await entryInState(w, 'accepted');
     const events = await t.orm.em.fork().find(AuditEvent, { subjectId: entry.id }, { orderBy: { createdAt: 'asc' } });
-    expect(events.map((e) => e.action)).toEqual(['library.entry.created', 'library.entry.submitted', 'library.entry.approved']);
-    expect(events.map((e) => e.details.to)).toEqual(['draft', 'submitted', 'approved']);
+    expect(events.map((e) => e.action)).toEqual(['library.entry.created', 'library.entry.submitted', 'library.entry.accepted']);
+    expect(events.map((e) => e.details.to)).toEqual(['draft', 'in-review', 'accepted']);
     expect(events.every((e) => e.groupId === w.groupId)).toBe(true);
   });
 
@@ -117,9 +117,9 @@ describe('workflow transitions by role and status (table-driven)', () => {
     expect(complexDetailSchema.parse(created.body)).toMatchObject({ status: 'draft', version: 1, metal: 'Cr', oxidationState: 3 });
   });
 
-  it('a reject comment is required; approval needs none', async () => {
-    const entry = await entryInState(w, 'submitted');
-    const response = await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'reject' });
+  it('a decline comment is required; acceptance needs none', async () => {
+    const entry = await entryInState(w, 'in-review');
+    const response = await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'decline' });
     expect(response.status).toBe(400);
     expect(apiErrorBodySchema.parse(response.body).error.fields?.comment).toMatch(/comment is required/);
   });
@@ -141,16 +141,16 @@ describe('workflow transitions by role and status (table-driven)', () => {
   });
 });
 
-describe('curators cannot approve their own submission', () => {
+describe('curators cannot accept their own submission', () => {
   it('refuses when another curator (or admin) exists', async () => {
     const entry = await createEntry(w.curator, w.groupId);
     expect((await w.curator.post(`/api/complexes/${entry.id}/submit`)).status).toBe(200);
-    const own = await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'approve' });
+    const own = await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept' });
     expect(own.status).toBe(409);
     expect(apiErrorBodySchema.parse(own.body).error.message).toMatch(/own submission/);
-    const other = await w.admin.post(`/api/complexes/${entry.id}/reviews`, { decision: 'approve' });
+    const other = await w.admin.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept' });
     expect(other.status).toBe(201);
-    expect(reviewResponseSchema.parse(other.body).review.selfApproved).toBe(false);
+    expect(reviewResponseSchema.parse(other.body).review.selfAccepted).toBe(false);
   });
 
   it('allows it for the group’s only curator and records it in the audit event', async () => {
@@ -164,13 +164,13 @@ describe('curators cannot approve their own submission', () => {
     await browser.signIn('solo.curator@larkspur.example.org', FIXTURE_PASSWORD);
     const entry = await createEntry(browser, group.id);
     await browser.post(`/api/complexes/${entry.id}/submit`);
-    const response = await browser.post(`/api/complexes/${entry.id}/reviews`, { decision: 'approve' });
+    const response = await browser.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept' });
     expect(response.status).toBe(201);
     const body = reviewResponseSchema.parse(response.body);
-    expect(body.review.selfApproved).toBe(true);
-    expect(body.complex.status).toBe('approved');
-    const event = await t.orm.em.fork().findOneOrFail(AuditEvent, { subjectId: entry.id, action: 'library.entry.approved' });
-    expect(event.details.selfApproved).toBe(true);
+    expect(body.review.selfAccepted).toBe(true);
+    expect(body.complex.status).toBe('accepted');
+    const event = await t.orm.em.fork().findOneOrFail(AuditEvent, { subjectId: entry.id, action: 'library.entry.accepted' });
+    expect(event.details.selfAccepted).toBe(true);
   });
 });
 
@@ -211,50 +211,50 @@ describe('optimistic locking', () => {
   });
 });
 
-describe('a pending revision keeps the approved version visible', () => {
-  it('viewers see the approved snapshot until the edit is approved', async () => {
-    const entry = await entryInState(w, 'approved', { name: 'hexaaquachromium(III) — approved name' });
+describe('a pending revision keeps the accepted version visible', () => {
+  it('viewers see the accepted snapshot until the edit is accepted', async () => {
+    const entry = await entryInState(w, 'accepted', { name: 'hexaaquachromium(III) — accepted name' });
     const edit = await w.author.patch(`/api/complexes/${entry.id}`, { version: entry.version, name: 'hexaaquachromium(III) — revised name' });
     expect(edit.status).toBe(200);
     const working = complexDetailSchema.parse(edit.body);
     expect(working).toMatchObject({ status: 'draft', view: 'working', hasPendingRevision: true, name: 'hexaaquachromium(III) — revised name' });
-    expect(working.approved?.name).toBe('hexaaquachromium(III) — approved name');
+    expect(working.accepted?.name).toBe('hexaaquachromium(III) — accepted name');
 
     const seen = complexDetailSchema.parse((await w.viewer.get(`/api/complexes/${entry.id}`)).body);
-    expect(seen).toMatchObject({ view: 'published', status: 'approved', name: 'hexaaquachromium(III) — approved name' });
+    expect(seen).toMatchObject({ view: 'published', status: 'accepted', name: 'hexaaquachromium(III) — accepted name' });
     const otherStudent = complexDetailSchema.parse((await w.contributor2.get(`/api/complexes/${entry.id}`)).body);
-    expect(otherStudent.name).toBe('hexaaquachromium(III) — approved name');
+    expect(otherStudent.name).toBe('hexaaquachromium(III) — accepted name');
     const listed = (await w.viewer.get(`/api/complexes?groupId=${w.groupId}&q=revised`)).body as { items: { id: string; name: string }[] };
-    expect(listed.items.find((i) => i.id === entry.id)?.name ?? 'approved name').not.toMatch(/revised/);
+    expect(listed.items.find((i) => i.id === entry.id)?.name ?? 'accepted name').not.toMatch(/revised/);
 
-    // Viewers see the history up to the approved version only.
+    // Viewers see the history up to the accepted version only.
     const viewerRevisions = revisionsResponseSchema.parse((await w.viewer.get(`/api/complexes/${entry.id}/revisions`)).body).revisions;
     expect(Math.max(...viewerRevisions.map((r) => r.number))).toBe(entry.version);
 
     await w.author.post(`/api/complexes/${entry.id}/submit`);
-    expect(complexDetailSchema.parse((await w.viewer.get(`/api/complexes/${entry.id}`)).body).name).toBe('hexaaquachromium(III) — approved name');
-    expect((await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'approve' })).status).toBe(201);
+    expect(complexDetailSchema.parse((await w.viewer.get(`/api/complexes/${entry.id}`)).body).name).toBe('hexaaquachromium(III) — accepted name');
+    expect((await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept' })).status).toBe(201);
     expect(complexDetailSchema.parse((await w.viewer.get(`/api/complexes/${entry.id}`)).body).name).toBe('hexaaquachromium(III) — revised name');
   });
 
-  it('rejecting an edit of an approved entry restores the approved version', async () => {
-    const entry = await entryInState(w, 'approved', { measurements: [measurementInput()] });
+  it('declining an edit of an accepted entry restores the accepted version', async () => {
+    const entry = await entryInState(w, 'accepted', { measurements: [measurementInput()] });
     const added = await w.author.post(`/api/complexes/${entry.id}/measurements`, measurementInput({ kind: 'activation-enthalpy', value: 108.6, unit: 'kJ/mol' }));
     expect(added.status).toBe(201);
     await w.author.post(`/api/complexes/${entry.id}/submit`);
-    const rejected = reviewResponseSchema.parse((await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'reject', comment: 'value not in the cited paper' })).body);
-    expect(rejected.complex.status).toBe('approved');
-    expect(rejected.complex.measurements.map((m) => m.kind)).toEqual(['water-exchange']);
-    expect(rejected.complex.hasPendingRevision).toBe(false);
+    const declined = reviewResponseSchema.parse((await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'decline', comment: 'value not in the cited paper' })).body);
+    expect(declined.complex.status).toBe('accepted');
+    expect(declined.complex.measurements.map((m) => m.kind)).toEqual(['water-exchange']);
+    expect(declined.complex.hasPendingRevision).toBe(false);
   });
 
   it('the review queue lists submitted entries, oldest first, for curators only', async () => {
-    const first = await entryInState(w, 'submitted');
-    const second = await entryInState(w, 'submitted');
+    const first = await entryInState(w, 'in-review');
+    const second = await entryInState(w, 'in-review');
     const queue = reviewQueueResponseSchema.parse((await w.curator.get('/api/review-queue')).body);
     const ids = queue.items.map((i) => i.id);
     expect(ids.indexOf(first.id)).toBeLessThan(ids.indexOf(second.id));
-    expect(queue.items.every((i) => i.status === 'submitted')).toBe(true);
+    expect(queue.items.every((i) => i.status === 'in-review')).toBe(true);
     expect((await w.author.get('/api/review-queue')).status).toBe(403);
     const outsiderQueue = await w.outsider.get('/api/review-queue');
     expect(reviewQueueResponseSchema.parse(outsiderQueue.body).items.some((i) => i.id === first.id)).toBe(false);

@@ -4,7 +4,7 @@ import { AuditEvent } from './audit-event.entity';
 export interface AuditInput {
   actorId: string | null;
   groupId?: string | null;
-  /** Dotted verb, e.g. "member.role-changed", "group.created", "entry.approved". */
+  /** Dotted verb, e.g. "member.role-changed", "group.created", "entry.accepted". */
   action: string;
   subjectType: string;
   subjectId?: string | null;

@@ -12,7 +12,7 @@ import { Measurement } from '@/server/modules/library/measurement.entity';
 
 /**
  * The library as the reader sees it (the library search decides which entries and which copy:
- * viewers get approved snapshots, authors and curators the working copy), written as CSV in the
+ * viewers get accepted snapshots, authors and curators the working copy), written as CSV in the
  * importer's columns so that export → import gives the same library back.
  */
 
@@ -36,9 +36,9 @@ export async function visibleSnapshots(em: EntityManager, userId: string, query:
       if (!role) return false;
       const view = viewFor(
         { userId, role },
-        { status: c.status, createdById: c.createdById ?? null, submittedById: c.submittedById ?? null, hasApproved: c.approvedSnapshot != null },
+        { status: c.status, createdById: c.createdById ?? null, submittedById: c.submittedById ?? null, hasAccepted: c.acceptedSnapshot != null },
       );
-      if (view === 'published' && c.approvedSnapshot) snapshots.set(c.id, c.approvedSnapshot);
+      if (view === 'published' && c.acceptedSnapshot) snapshots.set(c.id, c.acceptedSnapshot);
       return view === 'working';
     });
     if (working.length === 0) continue;

@@ -176,7 +176,7 @@ async function runJob(
       ...counts,
       state: 'succeeded',
       complexIds: complexIds.slice(0, 10_000),
-      message: `Imported ${counts.entryCount} entries with ${counts.measurementCount} measurements in ${Math.round(performance.now() - started)} ms; they wait for review (status "submitted").`,
+      message: `Imported ${counts.entryCount} entries with ${counts.measurementCount} measurements in ${Math.round(performance.now() - started)} ms; they wait for review (status "in-review").`,
     });
   } catch (error) {
     const message =
@@ -278,7 +278,7 @@ async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entr
         return { ...fields, citation, createdAt: createdAt.toISOString(), updatedAt: createdAt.toISOString() };
       });
       const snapshot: ComplexSnapshot = toSnapshot(
-        { formula: entry.formula, name: entry.name, notes: entry.notes, status: 'submitted', ...entry.derived },
+        { formula: entry.formula, name: entry.name, notes: entry.notes, status: 'in-review', ...entry.derived },
         measurements,
       );
       complexRows.push({
@@ -286,7 +286,7 @@ async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entr
         groupId: job.groupId,
         formula: entry.formula,
         name: entry.name,
-        status: 'submitted',
+        status: 'in-review',
         notes: entry.notes,
         ...entry.derived,
         measurementKinds: [...new Set(entry.measurements.map((m) => m.input.kind))].sort(),
@@ -295,9 +295,9 @@ async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entr
         createdById: userId,
         submittedById: userId,
         submittedAt: now,
-        approvedSnapshot: null,
-        approvedVersion: null,
-        approvedAt: null,
+        acceptedSnapshot: null,
+        acceptedVersion: null,
+        acceptedAt: null,
         createdAt: now,
         updatedAt: now,
       });
@@ -306,7 +306,7 @@ async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entr
         complexId: id,
         number: 1,
         kind: 'create',
-        status: 'submitted',
+        status: 'in-review',
         message: `Imported from ${job.fileName ?? 'a CSV file'} (row ${entry.firstRow}) and submitted for review`.slice(0, 500),
         snapshot,
         authorId: userId,
@@ -319,7 +319,7 @@ async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entr
         action: 'library.entry.imported',
         subjectType: 'complex',
         subjectId: id,
-        details: { to: 'submitted', version: 1, formula: entry.formula, importJobId: job.id, row: entry.firstRow },
+        details: { to: 'in-review', version: 1, formula: entry.formula, importJobId: job.id, row: entry.firstRow },
         createdAt: now,
       });
     }

@@ -29,7 +29,7 @@ import { membershipsOf, type MembershipInfo } from './library-access';
  * the entry. Rank (0–1) is the mean over tokens: 1 for a metal or a whole word, 0.9 for the start
  * of a word, 0.7 inside a word (word similarity in the typo pass) — cheap string tests.
  * Filters combine with AND. Order: rank desc then id (with text), name then id (without).
- * Visibility is part of the SQL (see library-access.ts): viewers get approved snapshots only.
+ * Visibility is part of the SQL (see library-access.ts): viewers get accepted snapshots only.
  *
  * Totals are exact up to SEARCH_COUNT_CAP (1 000) matches, or up to the end of the page asked
  * for if that is deeper; past it the reply says `totalIsLowerBound` (the list reads "1,000+").
@@ -66,7 +66,7 @@ interface Row {
   has_citation: boolean;
   version: number;
   measurement_count: string | number;
-  approved_snapshot: ComplexSnapshot | null;
+  accepted_snapshot: ComplexSnapshot | null;
   has_approved: boolean;
   created_by_id: string | null;
   created_by_name: string | null;
@@ -99,7 +99,7 @@ const inGroups = (ids: readonly string[]) =>
  * "This reader sees the working copy" and "sees this entry at all", written per role so that a
  * reader with one role (the usual case) gets a plain condition the covering index answers:
  * curators and admins see every entry of their groups, contributors their own plus published
- * ones, viewers published ones only (`is_published`: approved snapshot, not retired).
+ * ones, viewers published ones only (`is_published`: accepted snapshot, not retired).
  */
 function visibility(memberships: readonly MembershipInfo[], userId: string) {
   const curatorGroups = memberships.filter((m) => roleAtLeast(m.role, 'curator')).map((m) => m.groupId);
@@ -314,7 +314,7 @@ async function runSearch(
   strategy: SearchStrategy,
 ): Promise<ComplexListResponse> {
   const vis = visibility(memberships, userId);
-  const effectiveStatus = frag(`(case when ${vis.full.sql} then c.status else 'approved' end)`, ...vis.full.params);
+  const effectiveStatus = frag(`(case when ${vis.full.sql} then c.status else 'accepted' end)`, ...vis.full.params);
   // Scope and visibility, then the filters; the text terms separately, because a rank level's
   // condition (rankLevels) stands in for them.
   const filters: Fragment[] = [inGroups(memberships.map((m) => m.groupId)), vis.visible];
@@ -436,8 +436,8 @@ async function pageOf(em: EntityManager, ids: readonly string[], fullView: Fragm
     select c.id, c.group_id, c.formula, c.name, c.status, c.metal, c.oxidation_state, c.d_electrons, c.spin_state,
            c.verdict, c.ligand_ids, c.measurement_kinds, c.has_citation, c.version, c.updated_at, c.created_by_id,
            v.full_view,
-           case when v.full_view then null else c.approved_snapshot end as approved_snapshot,
-           (c.approved_snapshot is not null) as has_approved,
+           case when v.full_view then null else c.accepted_snapshot end as accepted_snapshot,
+           (c.accepted_snapshot is not null) as has_approved,
            (select count(*) from measurement m where m.complex_id = c.id) as measurement_count,
            u.display_name as created_by_name,
            v.rank
@@ -453,8 +453,8 @@ async function pageOf(em: EntityManager, ids: readonly string[], fullView: Fragm
 function toListItem(row: Row): ComplexListItem {
   const people = new Map<string, string>();
   if (row.created_by_id && row.created_by_name) people.set(row.created_by_id, row.created_by_name);
-  const published = !row.full_view && row.approved_snapshot ? row.approved_snapshot : null;
-  const pending = row.has_approved && row.status !== 'approved' && row.status !== 'retired';
+  const published = !row.full_view && row.accepted_snapshot ? row.accepted_snapshot : null;
+  const pending = row.has_approved && row.status !== 'accepted' && row.status !== 'retired';
   const base = {
     id: row.id,
     groupId: row.group_id,
@@ -468,7 +468,7 @@ function toListItem(row: Row): ComplexListItem {
       ...base,
       formula: published.formula,
       name: published.name,
-      status: 'approved',
+      status: 'accepted',
       metal: published.metal,
       oxidationState: published.oxidationState,
       dElectrons: published.dElectrons,
@@ -506,14 +506,14 @@ export async function reviewQueue(em: EntityManager, userId: string): Promise<Re
     throw new AppError('FORBIDDEN', 'The review queue is for curators and admins of a group.');
   }
   const names = new Map(memberships.map((m) => [m.groupId, m.groupName]));
-  const rows = await em.execute<(Row & { approved_version: number | null })[]>(
-    `select c.*, true as full_view, (c.approved_snapshot is not null) as has_approved, null::real as rank,
+  const rows = await em.execute<(Row & { accepted_version: number | null })[]>(
+    `select c.*, true as full_view, (c.accepted_snapshot is not null) as has_approved, null::real as rank,
             (select count(*) from measurement m where m.complex_id = c.id) as measurement_count,
             u.display_name as created_by_name, s.display_name as submitted_by_name
        from complex c
        left join app_user u on u.id = c.created_by_id
        left join app_user s on s.id = c.submitted_by_id
-      where c.group_id = any(string_to_array(?, ',')::uuid[]) and c.status = 'submitted'
+      where c.group_id = any(string_to_array(?, ',')::uuid[]) and c.status = 'in-review'
       order by c.submitted_at asc nulls last, c.id asc
       limit 500`,
     [csv(memberships.map((m) => m.groupId))],
@@ -526,7 +526,7 @@ export async function reviewQueue(em: EntityManager, userId: string): Promise<Re
       groupName: names.get(row.group_id) ?? '',
       submittedBy: personRef(people, row.submitted_by_id),
       submittedAt: row.submitted_at ? new Date(row.submitted_at).toISOString() : null,
-      isEditOfApproved: row.approved_snapshot != null,
+      isEditOfApproved: row.accepted_snapshot != null,
     };
   });
   return { items, total: items.length };

@@ -3,8 +3,8 @@ import { defineEntity, p } from '@mikro-orm/core';
 import type { ComplexSnapshot, ComplexStatus } from '@/lib/schemas/library';
 
 /**
- * A library entry: the working copy (what authors and curators edit) plus, once approved, the
- * approved snapshot that viewers keep seeing while a newer revision is drafted or reviewed.
+ * A library entry: the working copy (what authors and curators edit) plus, once accepted, the
+ * accepted snapshot that viewers keep seeing while a newer revision is drafted or reviewed.
  * The derived columns (metal … ligand_set_key) come from the engine and are stored for search.
  * `version` is bumped by every change with an atomic `update … where id = ? and version = ?`.
  */
@@ -32,9 +32,9 @@ export const Complex = defineEntity({
     createdById: p.uuid().nullable(),
     submittedById: p.uuid().nullable(),
     submittedAt: p.datetime().nullable(),
-    approvedSnapshot: p.json<ComplexSnapshot>().nullable(),
-    approvedVersion: p.integer().nullable(),
-    approvedAt: p.datetime().nullable(),
+    acceptedSnapshot: p.json<ComplexSnapshot>().nullable(),
+    acceptedVersion: p.integer().nullable(),
+    acceptedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()),
   },

@@ -70,7 +70,7 @@ const facts = (c: ComplexEntity) => ({
   status: c.status,
   createdById: c.createdById ?? null,
   submittedById: c.submittedById ?? null,
-  hasApproved: c.approvedSnapshot != null,
+  hasAccepted: c.acceptedSnapshot != null,
 });
 
 /** The entry if the person may see it; otherwise 404 (non-members and hidden drafts alike). */
@@ -108,16 +108,16 @@ async function workingSnapshot(em: EntityManager, complex: ComplexEntity): Promi
   return toSnapshot(complex, await measurementsOf(em, complex.id));
 }
 
-/** The entry as this reader may see it (working copy or approved snapshot), with what they may do. */
+/** The entry as this reader may see it (working copy or accepted snapshot), with what they may do. */
 export async function detailFor(em: EntityManager, complex: ComplexEntity, reader: Reader): Promise<ComplexDetail> {
   const view = viewFor(reader, facts(complex)) ?? 'published';
-  const approved = complex.approvedSnapshot ?? null;
-  const content: ComplexSnapshot = view === 'published' && approved ? approved : await workingSnapshot(em, complex);
+  const accepted = complex.acceptedSnapshot ?? null;
+  const content: ComplexSnapshot = view === 'published' && accepted ? accepted : await workingSnapshot(em, complex);
   const latest = await em.findOne(ComplexReview, { complexId: complex.id }, { orderBy: { createdAt: 'desc', id: 'desc' } });
   const people = await peopleNames(em, [complex.createdById, complex.submittedById, latest?.reviewerId]);
-  const ownSubmission = complex.status === 'submitted' && complex.submittedById === reader.userId && roleAtLeast(reader.role, 'curator');
+  const ownSubmission = complex.status === 'in-review' && complex.submittedById === reader.userId && roleAtLeast(reader.role, 'curator');
   const curators = ownSubmission ? await reviewerCount(em, complex.groupId) : 2;
-  const pending = approved != null && complex.status !== 'approved' && complex.status !== 'retired';
+  const pending = accepted != null && complex.status !== 'accepted' && complex.status !== 'retired';
   const working = view === 'working';
   return {
     ...content,
@@ -126,8 +126,8 @@ export async function detailFor(em: EntityManager, complex: ComplexEntity, reade
     version: complex.version,
     view,
     hasPendingRevision: pending,
-    approved: working && pending ? approved : null,
-    approvedAt: complex.approvedAt ? complex.approvedAt.toISOString() : null,
+    accepted: working && pending ? accepted : null,
+    acceptedAt: complex.acceptedAt ? complex.acceptedAt.toISOString() : null,
     createdBy: personRef(people, complex.createdById),
     submittedBy: working ? personRef(people, complex.submittedById) : null,
     submittedAt: working && complex.submittedAt ? complex.submittedAt.toISOString() : null,
@@ -175,7 +175,7 @@ interface ChangePlan {
   apply?: (tem: EntityManager, newVersion: number) => Promise<void>;
   revision: { kind: RevisionKind; message: string };
   audit?: { action: string; details: Record<string, unknown> };
-  /** Runs with the fresh snapshot (e.g. approval stores it as the approved snapshot). */
+  /** Runs with the fresh snapshot (e.g. acceptance stores it as the accepted snapshot). */
   withSnapshot?: (tem: EntityManager, snapshot: ComplexSnapshot, newVersion: number) => Promise<void>;
 }
 
@@ -247,12 +247,12 @@ async function basedOnVersion(em: EntityManager, actor: Actor, entry: LoadedEntr
   return sent ?? entry.complex.version;
 }
 
-/** An edit of an approved entry re-opens it as a draft; the approved snapshot stays published. */
+/** An edit of an accepted entry re-opens it as a draft; the accepted snapshot stays published. */
 function reopenIfApproved(entry: LoadedEntry): { set: ColumnChanges; audit?: ChangePlan['audit'] } {
-  if (entry.complex.status !== 'approved') return { set: {} };
+  if (entry.complex.status !== 'accepted') return { set: {} };
   return {
     set: { status: 'draft', submittedById: null, submittedAt: null },
-    audit: { action: 'library.entry.reopened', details: { from: 'approved', to: 'draft' } },
+    audit: { action: 'library.entry.reopened', details: { from: 'accepted', to: 'draft' } },
   };
 }
 
@@ -336,9 +336,9 @@ export async function createComplex(em: EntityManager, actor: Actor, input: Crea
       createdById: actor.userId,
       submittedById: null,
       submittedAt: null,
-      approvedSnapshot: null,
-      approvedVersion: null,
-      approvedAt: null,
+      acceptedSnapshot: null,
+      acceptedVersion: null,
+      acceptedAt: null,
       createdAt: now,
       updatedAt: now,
     });
@@ -492,19 +492,19 @@ export async function submitComplex(em: EntityManager, actor: Actor, id: string,
   ensureAllowed(entry, 'submit');
   const basedOn = await basedOnVersion(em, actor, entry, input.version);
   await commit(em, actor, entry.complex, basedOn, {
-    set: { status: 'submitted', submittedById: actor.userId, submittedAt: new Date() },
+    set: { status: 'in-review', submittedById: actor.userId, submittedAt: new Date() },
     revision: { kind: 'submit', message: input.message ?? 'Submitted for review' },
-    audit: { action: 'library.entry.submitted', details: { from: entry.complex.status, to: 'submitted' } },
+    audit: { action: 'library.entry.submitted', details: { from: entry.complex.status, to: 'in-review' } },
   });
   const submitted = await respond(em, actor, id);
-  emitLibraryEvent(em, { type: 'submitted', complexId: id, groupId: submitted.groupId, formula: submitted.formula, name: submitted.name, actorId: actor.userId });
+  emitLibraryEvent(em, { type: 'in-review', complexId: id, groupId: submitted.groupId, formula: submitted.formula, name: submitted.name, actorId: actor.userId });
   return submitted;
 }
 
-/** Puts the working copy back to the approved snapshot (after a rejected edit of an approved entry). */
-async function restoreApproved(tem: EntityManager, complexId: string, approved: ComplexSnapshot) {
+/** Puts the working copy back to the accepted snapshot (after a declined edit of an accepted entry). */
+async function restoreApproved(tem: EntityManager, complexId: string, accepted: ComplexSnapshot) {
   await tem.nativeDelete(Measurement, { complexId });
-  for (const m of approved.measurements) {
+  for (const m of accepted.measurements) {
     await tem.insert(Measurement, {
       id: m.id,
       complexId,
@@ -529,38 +529,38 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
   const entry = await loadEntry(em, actor, id);
   ensureAllowed(entry, 'review');
   const { complex } = entry;
-  let selfApproved = false;
-  if (input.decision === 'approve' && complex.submittedById === actor.userId) {
+  let selfAccepted = false;
+  if (input.decision === 'accept' && complex.submittedById === actor.userId) {
     const reviewers = await reviewerCount(em, complex.groupId);
     if (reviewers > 1) {
       throw new AppError(
         'CONFLICT',
-        'You cannot approve your own submission: another curator of this group must review it (you may still request changes or reject it).',
+        'You cannot accept your own submission: another curator of this group must review it (you may still return it for revision or decline it).',
       );
     }
-    selfApproved = true;
+    selfAccepted = true;
   }
   const basedOn = await basedOnVersion(em, actor, entry, input.version);
-  const approved = complex.approvedSnapshot ?? null;
-  const restore = input.decision === 'reject' && approved != null;
+  const accepted = complex.acceptedSnapshot ?? null;
+  const restore = input.decision === 'decline' && accepted != null;
   const to: ComplexStatus =
-    input.decision === 'approve' ? 'approved' : input.decision === 'request-changes' ? 'changes-requested' : restore ? 'approved' : 'rejected';
+    input.decision === 'accept' ? 'accepted' : input.decision === 'return' ? 'returned' : restore ? 'accepted' : 'declined';
   const set: ColumnChanges = { status: to };
-  if (restore && approved) {
-    Object.assign(set, { formula: approved.formula, name: approved.name, notes: approved.notes }, deriveColumns(approved.formula, approved.name));
+  if (restore && accepted) {
+    Object.assign(set, { formula: accepted.formula, name: accepted.name, notes: accepted.notes }, deriveColumns(accepted.formula, accepted.name));
   }
   const reviewId = randomUUID();
   const auditAction =
-    input.decision === 'approve' ? 'library.entry.approved' : input.decision === 'request-changes' ? 'library.entry.changes-requested' : 'library.entry.rejected';
+    input.decision === 'accept' ? 'library.entry.accepted' : input.decision === 'return' ? 'library.entry.returned' : 'library.entry.declined';
   const messages: Record<ReviewInput['decision'], string> = {
-    approve: selfApproved ? 'Approved (by the submitter, the group’s only curator)' : 'Approved',
-    'request-changes': `Changes requested: ${input.comment}`,
-    reject: restore ? `Rejected: ${input.comment} — the approved version was restored` : `Rejected: ${input.comment}`,
+    accept: selfAccepted ? 'Accepted (by the submitter, the group’s only curator)' : 'Accepted',
+    return: `Returned: ${input.comment}`,
+    decline: restore ? `Declined: ${input.comment} — the accepted version was restored` : `Declined: ${input.comment}`,
   };
   await commit(em, actor, complex, basedOn, {
     set,
     apply: async (tem, newVersion) => {
-      if (restore && approved) await restoreApproved(tem, complex.id, approved);
+      if (restore && accepted) await restoreApproved(tem, complex.id, accepted);
       await tem.insert(ComplexReview, {
         id: reviewId,
         complexId: complex.id,
@@ -568,24 +568,24 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
         decision: input.decision,
         comment: input.comment,
         reviewerId: actor.userId,
-        selfApproved,
+        selfAccepted,
         createdAt: new Date(),
       });
     },
     withSnapshot: async (tem, snapshot, newVersion) => {
-      if (input.decision !== 'approve') return;
-      await tem.nativeUpdate(Complex, { id: complex.id }, { approvedSnapshot: snapshot, approvedVersion: newVersion, approvedAt: new Date() });
+      if (input.decision !== 'accept') return;
+      await tem.nativeUpdate(Complex, { id: complex.id }, { acceptedSnapshot: snapshot, acceptedVersion: newVersion, acceptedAt: new Date() });
     },
     revision: { kind: 'review', message: messages[input.decision].slice(0, 500) },
     audit: {
       action: auditAction,
       details: {
-        from: 'submitted',
+        from: 'in-review',
         to,
         decision: input.decision,
         comment: input.comment,
-        ...(selfApproved ? { selfApproved: true, reason: 'the submitter is the group’s only curator' } : {}),
-        ...(restore ? { restoredApprovedVersion: complex.approvedVersion } : {}),
+        ...(selfAccepted ? { selfAccepted: true, reason: 'the submitter is the group’s only curator' } : {}),
+        ...(restore ? { restoredAcceptedVersion: complex.acceptedVersion } : {}),
       },
     },
   });
@@ -610,7 +610,7 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
       decision: review.decision,
       comment: review.comment,
       reviewer: personRef(people, review.reviewerId),
-      selfApproved: review.selfApproved,
+      selfAccepted: review.selfAccepted,
       createdAt: review.createdAt.toISOString(),
     },
     complex: await respond(em, actor, id),
@@ -631,12 +631,12 @@ export async function retireComplex(em: EntityManager, actor: Actor, id: string,
 
 // ───────────────────────────── revisions ─────────────────────────────
 
-/** Readers of the published view see the history up to the approved version only. */
+/** Readers of the published view see the history up to the accepted version only. */
 async function visibleRevisions(em: EntityManager, entry: LoadedEntry) {
   const view = viewFor(entry.reader, facts(entry.complex));
   const where =
     view === 'published'
-      ? { complexId: entry.complex.id, number: { $lte: entry.complex.approvedVersion ?? 0 } }
+      ? { complexId: entry.complex.id, number: { $lte: entry.complex.acceptedVersion ?? 0 } }
       : { complexId: entry.complex.id };
   return em.find(ComplexRevision, where, { orderBy: { number: 'desc' } });
 }

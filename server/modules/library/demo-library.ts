@@ -102,7 +102,7 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
 
   // One transaction of bulk inserts (the seed runs on every first start and in tests: it must be
   // quick). The rows are what the services would have written: revisions with full snapshots,
-  // reviews, audit events for every status change, the approved snapshot beside a pending edit.
+  // reviews, audit events for every status change, the accepted snapshot beside a pending edit.
   const citationIds = new Map<string, string>();
   const citationRows: Rows<typeof Citation> = [];
   const complexRows: Rows<typeof Complex> = [];
@@ -144,9 +144,9 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
     let working = entry.measurements.map((m) => measurementDto(m, createdAt));
     const base = { formula: entry.formula, name: entry.name, notes: entry.notes, ...derived };
     let version = 0;
-    let approvedSnapshot: ComplexSnapshot | null = null;
-    let approvedVersion: number | null = null;
-    let approvedAt: Date | null = null;
+    let acceptedSnapshot: ComplexSnapshot | null = null;
+    let acceptedVersion: number | null = null;
+    let acceptedAt: Date | null = null;
     let submittedAt: Date | null = null;
     let submittedById: string | null = null;
     let status: ComplexStatus = 'draft';
@@ -164,31 +164,31 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
     if (entry.status !== 'draft') {
       submittedAt = tick();
       submittedById = author;
-      status = 'submitted';
+      status = 'in-review';
       record('submit', author, 'Submitted for review', submittedAt, { action: 'library.entry.submitted', from: 'draft' });
     }
-    if (['approved', 'changes-requested', 'rejected', 'retired'].includes(entry.status)) {
-      const decision = entry.status === 'changes-requested' ? 'request-changes' : entry.status === 'rejected' ? 'reject' : 'approve';
+    if (['accepted', 'returned', 'declined', 'retired'].includes(entry.status)) {
+      const decision = entry.status === 'returned' ? 'return' : entry.status === 'declined' ? 'decline' : 'accept';
       const comment =
-        decision === 'request-changes'
+        decision === 'return'
           ? 'Please add the primary citation for k11 (the compilation alone is not enough).'
-          : decision === 'reject'
+          : decision === 'decline'
             ? 'Duplicate of an entry we already hold.'
             : 'Checked against the cited source.';
       const at = tick();
-      status = decision === 'approve' ? 'approved' : decision === 'reject' ? 'rejected' : 'changes-requested';
-      const action = decision === 'approve' ? 'library.entry.approved' : decision === 'reject' ? 'library.entry.rejected' : 'library.entry.changes-requested';
-      const snapshot = record('review', curator, decision === 'approve' ? 'Approved' : `${decision === 'reject' ? 'Rejected' : 'Changes requested'}: ${comment}`, at, { action, from: 'submitted' });
-      reviewRows.push({ id: randomUUID(), complexId: id, revisionNumber: version, decision, comment, reviewerId: curator, selfApproved: false, createdAt: at });
-      if (decision === 'approve') {
-        approvedSnapshot = snapshot;
-        approvedVersion = version;
-        approvedAt = at;
+      status = decision === 'accept' ? 'accepted' : decision === 'decline' ? 'declined' : 'returned';
+      const action = decision === 'accept' ? 'library.entry.accepted' : decision === 'decline' ? 'library.entry.declined' : 'library.entry.returned';
+      const snapshot = record('review', curator, decision === 'accept' ? 'Accepted' : `${decision === 'decline' ? 'Declined' : 'Returned'}: ${comment}`, at, { action, from: 'in-review' });
+      reviewRows.push({ id: randomUUID(), complexId: id, revisionNumber: version, decision, comment, reviewerId: curator, selfAccepted: false, createdAt: at });
+      if (decision === 'accept') {
+        acceptedSnapshot = snapshot;
+        acceptedVersion = version;
+        acceptedAt = at;
       }
     }
     if (entry.status === 'retired') {
       status = 'retired';
-      record('retire', curator, 'Split into separate studies', tick(), { action: 'library.entry.retired', from: 'approved' });
+      record('retire', curator, 'Split into separate studies', tick(), { action: 'library.entry.retired', from: 'accepted' });
     }
     if (entry.pendingEdit) {
       const editor = actor(entry.pendingEdit.author).userId;
@@ -196,10 +196,10 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
       working = [...working, ...entry.pendingEdit.addMeasurements.map((m) => measurementDto(m, at))];
       notes = entry.pendingEdit.notes;
       status = 'draft';
-      record('edit', editor, 'Added an in-house measurement', at, { action: 'library.entry.reopened', from: 'approved' });
+      record('edit', editor, 'Added an in-house measurement', at, { action: 'library.entry.reopened', from: 'accepted' });
       submittedAt = tick();
       submittedById = editor;
-      status = 'submitted';
+      status = 'in-review';
       record('submit', editor, 'Submitted for review', submittedAt, { action: 'library.entry.submitted', from: 'draft' });
     }
     measurements += working.length;
@@ -210,7 +210,7 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
       id, groupId: group.id, ...base, notes, status,
       measurementKinds: [...new Set(working.map((m) => m.kind))].sort(),
       hasCitation: working.some((m) => m.citation !== null),
-      version, createdById: author, submittedById, submittedAt, approvedSnapshot, approvedVersion, approvedAt,
+      version, createdById: author, submittedById, submittedAt, acceptedSnapshot, acceptedVersion, acceptedAt,
       createdAt, updatedAt: new Date(startMs + clock * 600_000),
     });
   }

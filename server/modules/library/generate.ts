@@ -6,7 +6,7 @@ import { deriveColumns } from './derive';
  * Synthetic library entries for benchmarks (the 100 000-entry performance issue). The engine
  * classifies each distinct demo formula once; PostgreSQL then multiplies them with
  * generate_series in one INSERT … SELECT per table, so 100 000 entries take seconds, not minutes.
- * Entries are approved (with an approved snapshot) unless `status` says otherwise; every third one
+ * Entries are accepted (with an accepted snapshot) unless `status` says otherwise; every third one
  * gets a cited-looking water-exchange measurement so the measurement filters have work to do.
  * Synthetic rows are marked in their notes; they have no revisions.
  */
@@ -14,7 +14,7 @@ export interface GenerateOptions {
   groupId: string;
   count: number;
   createdById?: string | null;
-  status?: 'approved' | 'draft';
+  status?: 'accepted' | 'draft';
 }
 
 export async function generateSyntheticEntries(em: EntityManager, options: GenerateOptions): Promise<number> {
@@ -22,7 +22,7 @@ export async function generateSyntheticEntries(em: EntityManager, options: Gener
     const derived = deriveColumns(entry.formula, entry.name);
     return { formula: entry.formula, name: entry.name, ...derived };
   });
-  const status = options.status ?? 'approved';
+  const status = options.status ?? 'accepted';
   await em.transactional(async (tem) => {
     // Throwaway clusters commit asynchronously; VACUUM cannot mark a page all-visible until the
     // inserting commit is on disk, so this one commit waits for it (see the VACUUM below).
@@ -35,18 +35,18 @@ export async function generateSyntheticEntries(em: EntityManager, options: Gener
        )
        insert into complex (id, group_id, formula, name, status, notes, metal, oxidation_state, d_electrons, spin_state, verdict,
                             ligand_ids, ligand_set_key, search_text, measurement_kinds, has_citation, version, created_by_id,
-                            approved_snapshot, approved_version, approved_at, created_at, updated_at)
+                            accepted_snapshot, accepted_version, accepted_at, created_at, updated_at)
        select g.id, ?::uuid, g.v->>'formula', (g.v->>'name') || ' (synthetic ' || g.n || ')', ?, 'Synthetic benchmark entry',
               g.v->>'metal', (g.v->>'oxidationState')::int, (g.v->>'dElectrons')::int, g.v->>'spinState', g.v->>'verdict',
               array(select jsonb_array_elements_text(g.v->'ligandIds')), g.v->>'ligandSetKey',
               (g.v->>'searchText') || ' synthetic ' || g.n,
               case when g.n % 3 = 0 then array['water-exchange'] else '{}'::text[] end, g.n % 3 = 0, 1, ?::uuid,
-              case when ? = 'approved' then jsonb_build_object(
+              case when ? = 'accepted' then jsonb_build_object(
                 'formula', g.v->>'formula', 'name', (g.v->>'name') || ' (synthetic ' || g.n || ')', 'notes', 'Synthetic benchmark entry',
-                'status', 'approved', 'metal', g.v->>'metal', 'oxidationState', (g.v->>'oxidationState')::int,
+                'status', 'accepted', 'metal', g.v->>'metal', 'oxidationState', (g.v->>'oxidationState')::int,
                 'dElectrons', (g.v->>'dElectrons')::int, 'spinState', g.v->'spinState', 'verdict', g.v->>'verdict',
                 'ligandIds', g.v->'ligandIds', 'measurements', '[]'::jsonb) end,
-              case when ? = 'approved' then 1 end, case when ? = 'approved' then now() end, now(), now()
+              case when ? = 'accepted' then 1 end, case when ? = 'accepted' then now() end, now(), now()
          from g`,
       [JSON.stringify(templates), options.count, templates.length, options.groupId, status, options.createdById ?? null, status, status, status],
     );

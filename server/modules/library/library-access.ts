@@ -21,25 +21,25 @@ export interface EntryFacts {
   status: ComplexStatus;
   createdById: string | null;
   submittedById?: string | null;
-  hasApproved: boolean;
+  hasAccepted: boolean;
 }
 
 export type EntryView = 'working' | 'published';
 
 /**
- * viewer: the approved snapshot of entries that have one and are not retired;
+ * viewer: the accepted snapshot of entries that have one and are not retired;
  * contributor: the same, plus the working copy of entries they created;
- * curator/admin: the working copy of everything (the approved snapshot beside it).
+ * curator/admin: the working copy of everything (the accepted snapshot beside it).
  */
 export function viewFor(reader: Reader, entry: EntryFacts): EntryView | null {
   if (roleAtLeast(reader.role, 'curator')) return 'working';
   if (reader.role === 'contributor' && entry.createdById === reader.userId) return 'working';
-  if (entry.hasApproved && entry.status !== 'retired') return 'published';
+  if (entry.hasAccepted && entry.status !== 'retired') return 'published';
   return null;
 }
 
-const editableStatuses: readonly ComplexStatus[] = ['draft', 'changes-requested', 'approved'];
-const submittableStatuses: readonly ComplexStatus[] = ['draft', 'changes-requested'];
+const editableStatuses: readonly ComplexStatus[] = ['draft', 'returned', 'accepted'];
+const submittableStatuses: readonly ComplexStatus[] = ['draft', 'returned'];
 
 /** Curators edit any entry; contributors their own. */
 function isEditor(reader: Reader, entry: EntryFacts): boolean {
@@ -52,7 +52,7 @@ export function permissionsFor(reader: Reader, entry: EntryFacts, curatorCount =
   return {
     canEdit: isEditor(reader, entry) && editableStatuses.includes(entry.status),
     canSubmit: isEditor(reader, entry) && submittableStatuses.includes(entry.status),
-    canReview: reviewer && entry.status === 'submitted' && (!ownSubmission || curatorCount <= 1),
+    canReview: reviewer && entry.status === 'in-review' && (!ownSubmission || curatorCount <= 1),
     canRetire: reviewer && entry.status !== 'retired',
   };
 }
@@ -77,10 +77,10 @@ export function refusal(reader: Reader, entry: EntryFacts, action: Action): AppE
       if (!allowed.includes(status)) {
         const why: Record<ComplexStatus, string> = {
           draft: '',
-          'changes-requested': '',
-          approved: 'It is approved already: edit it first, then submit the new revision.',
-          submitted: 'It is waiting for review: a curator must decide first (approve, request changes or reject).',
-          rejected: 'It was rejected; rejected entries stay as they are: create a new entry instead.',
+          returned: '',
+          accepted: 'It is accepted already: edit it first, then submit the new revision.',
+          'in-review': 'It is waiting for review: a curator must decide first (accept, return for revision or decline).',
+          declined: 'It was declined; declined entries stay as they are: create a new entry instead.',
           retired: 'It is retired; retired entries are kept for the record and cannot change.',
         };
         return new AppError('CONFLICT', `This entry cannot be ${action === 'edit' ? 'edited' : 'submitted'} now (status "${status}"). ${why[status]}`.trim());
@@ -89,7 +89,7 @@ export function refusal(reader: Reader, entry: EntryFacts, action: Action): AppE
     }
     case 'review':
       if (!roleAtLeast(reader.role, 'curator')) return new AppError('FORBIDDEN', 'Only curators (or admins) review entries.');
-      if (status !== 'submitted') {
+      if (status !== 'in-review') {
         return new AppError('CONFLICT', `Only submitted entries can be reviewed; this one is "${status}".`);
       }
       return null;

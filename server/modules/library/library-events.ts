@@ -7,7 +7,7 @@ import type { ReviewDecision } from '@/lib/schemas/library';
  * driver), so two apps over two databases in one process never hear each other's events.
  */
 export type LibraryEvent =
-  | { type: 'submitted'; complexId: string; groupId: string; formula: string; name: string; actorId: string }
+  | { type: 'in-review'; complexId: string; groupId: string; formula: string; name: string; actorId: string }
   | {
       type: 'reviewed';
       complexId: string;

@@ -6,10 +6,10 @@ import { RETIRED_STATUS } from '@/lib/schemas/library-status';
 import { classifyOrExplain, ligandSetKeyOf } from './derive';
 
 /**
- * Measured meets predicted: the approved measurements a group holds for the same complex as a
+ * Measured meets predicted: the accepted measurements a group holds for the same complex as a
  * classification — same metal, oxidation state and ligand set (ligand ids with their counts, so
  * "[Co(NH3)5(OH2)]3+" and "[Co(H2O)(NH3)5]3+" match, and counter-ions or hydrate water do not
- * matter). Only approved snapshots count (what viewers see), never drafts or retired entries.
+ * matter). Only accepted snapshots count (what viewers see), never drafts or retired entries.
  */
 export async function findLibraryMeasurements(
   em: EntityManager,
@@ -17,16 +17,16 @@ export async function findLibraryMeasurements(
   groupId: string,
 ): Promise<LibraryMeasurement[]> {
   const key = ligandSetKeyOf(classification.ligands);
-  // The stored columns narrow by index; the approved snapshot decides (a pending edit may differ).
-  const rows = await em.execute<{ id: string; approved_snapshot: ComplexSnapshot }[]>(
-    `select c.id, c.approved_snapshot from complex c
-      where c.group_id = ? and c.metal = ? and c.approved_snapshot is not null and c.status <> ?
+  // The stored columns narrow by index; the accepted snapshot decides (a pending edit may differ).
+  const rows = await em.execute<{ id: string; accepted_snapshot: ComplexSnapshot }[]>(
+    `select c.id, c.accepted_snapshot from complex c
+      where c.group_id = ? and c.metal = ? and c.accepted_snapshot is not null and c.status <> ?
       order by c.id`,
     [groupId, classification.metal, RETIRED_STATUS],
   );
   const found: LibraryMeasurement[] = [];
   for (const row of rows) {
-    const snapshot = row.approved_snapshot;
+    const snapshot = row.accepted_snapshot;
     if (snapshot.oxidationState !== classification.oxidationState) continue;
     let snapshotKey: string;
     try {

@@ -13,7 +13,7 @@ export const ComplexReview = defineEntity({
     decision: p.string().length(20).$type<ReviewDecision>(),
     comment: p.text(),
     reviewerId: p.uuid().nullable(),
-    selfApproved: p.boolean(),
+    selfAccepted: p.boolean(),
     createdAt: p.datetime().onCreate(() => new Date()),
   },
 });

@@ -7,7 +7,7 @@ const escapeHtml = (value: string) =>
   value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
 
 const roleWords: Record<Role, string> = {
-  viewer: 'viewer (reads approved entries)',
+  viewer: 'viewer (reads accepted entries)',
   contributor: 'contributor (drafts and submits entries)',
   curator: 'curator (reviews entries and keeps the ligand catalogue)',
   admin: 'admin (manages members, roles and invitations)',

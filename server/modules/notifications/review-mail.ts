@@ -28,7 +28,7 @@ function message(to: string, subject: string, lines: string[], link: { label: st
   return { to, subject, text, html };
 }
 
-const decisionWords = { approve: 'approved', 'request-changes': 'sent back for changes', reject: 'rejected' } as const;
+const decisionWords = { accept: 'accepted', return: 'returned for revision', decline: 'declined' } as const;
 
 export interface ReviewMail {
   handle(event: LibraryEvent): void;
@@ -46,7 +46,7 @@ export function createReviewMail(orm: Orm, mailer: Mailer, appUrl: string): Revi
     const groupName = group?.name ?? 'your group';
     const entry = `${event.name} (${event.formula})`;
     const url = `${appUrl}/library/${event.complexId}`;
-    if (event.type === 'submitted') {
+    if (event.type === 'in-review') {
       const curators = await em.find(GroupMembership, { groupId: event.groupId, role: { $in: ['curator', 'admin'] } });
       const ids = curators.map((m) => m.userId).filter((id) => id !== event.actorId);
       const off = await optedOut(em, ids, 'reviewSubmissions');

@@ -83,10 +83,10 @@ describe('Fill from DOI', () => {
 
 describe('ExportMenu', () => {
   it('links each format to its export with the active filters and no paging', () => {
-    renderWithQueries(<ExportMenu filters={{ q: ' chromium ', metal: 'Cr', status: 'approved', verdict: undefined, groupId: GROUP_ID }} />);
+    renderWithQueries(<ExportMenu filters={{ q: ' chromium ', metal: 'Cr', status: 'accepted', verdict: undefined, groupId: GROUP_ID }} />);
     expect(screen.queryByTestId('library-export-csv')).toBeNull();
     fireEvent.press(screen.getByTestId('library-export'));
-    const expected = `q=chromium&metal=Cr&status=approved&groupId=${GROUP_ID}`;
+    const expected = `q=chromium&metal=Cr&status=accepted&groupId=${GROUP_ID}`;
     expect(screen.getByTestId('library-export-csv').props.href).toBe(`/api/exports/library.csv?${expected}`);
     expect(screen.getByTestId('library-export-bib').props.href).toBe(`/api/exports/citations.bib?${expected}`);
     expect(screen.getByTestId('library-export-ris').props.href).toBe(`/api/exports/citations.ris?${expected}`);

@@ -7,7 +7,7 @@ jest.mock('expo-router', () => require('../account/expo-router-mock').expoRouter
 
 const revisions = {
   revisions: [
-    { id: 'rv-3', number: 3, kind: 'submit', status: 'submitted', message: 'Submitted for review', author: { id: 'u-student', displayName: 'Ada Fenwick' }, createdAt: '2026-01-05T10:00:00.000Z' },
+    { id: 'rv-3', number: 3, kind: 'submit', status: 'in-review', message: 'Submitted for review', author: { id: 'u-student', displayName: 'Ada Fenwick' }, createdAt: '2026-01-05T10:00:00.000Z' },
     { id: 'rv-2', number: 2, kind: 'edit', status: 'draft', message: 'Corrected the temperature', author: { id: 'u-student', displayName: 'Ada Fenwick' }, createdAt: '2026-01-04T10:00:00.000Z' },
     { id: 'rv-1', number: 1, kind: 'create', status: 'draft', message: 'Created', author: { id: 'u-student', displayName: 'Ada Fenwick' }, createdAt: '2026-01-03T10:00:00.000Z' },
   ],
@@ -30,7 +30,7 @@ describe('ComplexDetailView', () => {
         const params = new URLSearchParams(url.split('?')[1]);
         return { status: 200, body: diff(Number(params.get('from')), Number(params.get('to'))) };
       },
-      'POST /api/complexes/c-cr-aqua/submit': { status: 200, body: detail({ status: 'submitted', version: 4, permissions: { canEdit: false, canSubmit: false, canReview: false, canRetire: false } }) },
+      'POST /api/complexes/c-cr-aqua/submit': { status: 200, body: detail({ status: 'in-review', version: 4, permissions: { canEdit: false, canSubmit: false, canReview: false, canRetire: false } }) },
     });
     renderWithQueries(<ComplexDetailView id="c-cr-aqua" />);
     const row = await screen.findByTestId('complex-measurements-row-0');
@@ -48,16 +48,16 @@ describe('ComplexDetailView', () => {
     expect(await screen.findByTestId('complex-action-done')).toHaveTextContent(/Submitted/);
   });
 
-  it('says when the approved version is shown and a newer revision waits', async () => {
+  it('says when the accepted version is shown and a newer revision waits', async () => {
     mockFetch({
       'GET /api/complexes/c-cr-aqua': {
         status: 200,
-        body: detail({ view: 'published', status: 'approved', hasPendingRevision: true, permissions: { canEdit: false, canSubmit: false, canReview: false, canRetire: false } }),
+        body: detail({ view: 'published', status: 'accepted', hasPendingRevision: true, permissions: { canEdit: false, canSubmit: false, canReview: false, canRetire: false } }),
       },
       'GET /api/complexes/c-cr-aqua/revisions': { status: 200, body: { revisions: revisions.revisions.slice(2) } },
     });
     renderWithQueries(<ComplexDetailView id="c-cr-aqua" />);
-    expect(await screen.findByTestId('complex-pending-banner')).toHaveTextContent('Approved version shown; a newer revision awaits review.');
+    expect(await screen.findByTestId('complex-pending-banner')).toHaveTextContent('Accepted version shown; a newer revision awaits review.');
     expect(screen.queryByTestId('complex-actions')).toBeNull();
   });
 
@@ -66,7 +66,7 @@ describe('ComplexDetailView', () => {
       'GET /api/auth/me': { status: 200, body: curatorMe },
       'GET /api/complexes/c-cr-aqua': {
         status: 200,
-        body: detail({ status: 'submitted', myRole: 'curator', permissions: { canEdit: false, canSubmit: false, canReview: true, canRetire: true } }),
+        body: detail({ status: 'in-review', myRole: 'curator', permissions: { canEdit: false, canSubmit: false, canReview: true, canRetire: true } }),
       },
       'GET /api/complexes/c-cr-aqua/revisions': { status: 200, body: revisions },
     });

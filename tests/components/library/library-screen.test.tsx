@@ -16,7 +16,7 @@ const cobalt = listItem({
   dElectrons: 6,
   spinState: 'low',
   ligandIds: ['NH3'],
-  status: 'submitted',
+  status: 'in-review',
 });
 
 function renderLibrary(onSelect = jest.fn()) {
@@ -42,7 +42,7 @@ describe('LibraryScreen', () => {
     expect(screen.getByTestId('library-item-0-formula')).toHaveTextContent('[Cr(H₂O)₆]³⁺');
     expect(screen.getByTestId('library-item-1')).toHaveTextContent(/Co\(III\) · d6 low-spin/);
     expect(screen.getByTestId('library-count')).toHaveTextContent('2 of 2 entries');
-    expect(screen.getAllByTestId('status-pill-submitted')).toHaveLength(1);
+    expect(screen.getAllByTestId('status-pill-in-review')).toHaveLength(1);
     fireEvent.press(screen.getByTestId('library-item-1'));
     expect(onSelect).toHaveBeenCalledWith('c-co-ammine');
   });
@@ -122,7 +122,7 @@ describe('LibraryScreen', () => {
       'GET /api/complexes': { status: 200, body: listResponse([]) },
     });
     renderLibrary();
-    expect(await screen.findByTestId('library-empty')).toHaveTextContent(/No approved entries yet/);
+    expect(await screen.findByTestId('library-empty')).toHaveTextContent(/No accepted entries yet/);
     expect(screen.queryByTestId('library-add-first')).toBeNull();
     expect(screen.queryByTestId('library-new')).toBeNull();
   });

@@ -45,7 +45,7 @@ describe('the entry page', () => {
   it('an accepted entry’s measured rate decides its verdict; the model is the footnote; no flag within two log units', async () => {
     mockFetch({
       'GET /api/auth/me': { status: 200, body: curatorMe },
-      'GET /api/complexes/c-cr-aqua': { status: 200, body: detail({ status: 'approved', myRole: 'curator' }) },
+      'GET /api/complexes/c-cr-aqua': { status: 200, body: detail({ status: 'accepted', myRole: 'curator' }) },
       ...revisions,
     });
     renderWithQueries(<ComplexDetailView id="c-cr-aqua" />);
@@ -72,7 +72,7 @@ describe('the entry page', () => {
 
   it('curators see a second-look flag when measurement and model differ by more than two log units; contributors do not', async () => {
     // A unit slip: 2.4 s⁻¹ typed for 2.4e-6 s⁻¹ puts the value six log units from the published one.
-    const slipped = detail({ status: 'approved', myRole: 'curator' });
+    const slipped = detail({ status: 'accepted', myRole: 'curator' });
     slipped.measurements = slipped.measurements.map((m) => ({ ...m, value: 2.4 }));
     mockFetch({ 'GET /api/auth/me': { status: 200, body: curatorMe }, 'GET /api/complexes/c-cr-aqua': { status: 200, body: slipped }, ...revisions });
     const curatorView = renderWithQueries(<ComplexDetailView id="c-cr-aqua" />);

@@ -32,10 +32,10 @@ describe('VerdictBadge', () => {
 describe('StatusPill', () => {
   const cases: [ReviewStatus, string][] = [
     ['draft', 'Draft'],
-    ['submitted', 'Submitted'],
-    ['approved', 'Approved'],
-    ['changes-requested', 'Changes requested'],
-    ['rejected', 'Rejected'],
+    ['in-review', 'In review'],
+    ['accepted', 'Accepted'],
+    ['returned', 'Returned'],
+    ['declined', 'Declined'],
     ['retired', 'Retired'],
   ];
   it.each(cases)('%s reads "%s"', (status, word) => {
@@ -45,11 +45,11 @@ describe('StatusPill', () => {
     expect(screen.getByTestId(`status-glyph-${status}`)).toBeTruthy();
   });
 
-  it('tells draft from submitted by outline, not colour alone', () => {
+  it('tells draft from in-review by outline, not colour alone', () => {
     const { rerender } = render(<StatusPill status="draft" />);
     expect(screen.getByTestId('status-pill-draft')).toHaveStyle({ borderStyle: 'dashed' });
-    rerender(<StatusPill status="submitted" />);
-    expect(screen.getByTestId('status-pill-submitted')).toHaveStyle({ borderStyle: 'solid' });
+    rerender(<StatusPill status="in-review" />);
+    expect(screen.getByTestId('status-pill-in-review')).toHaveStyle({ borderStyle: 'dotted' });
     rerender(<StatusPill status="retired" />);
     expect(screen.getByText('Retired')).toHaveStyle({ textDecorationLine: 'line-through' });
   });

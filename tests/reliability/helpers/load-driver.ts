@@ -40,7 +40,7 @@ export interface LoadReport {
 
 const FORMULAS = ['[Co(NH3)6]3+', '[Cr(H2O)6]3+', '[Fe(CN)6]4-', '[Ni(en)3]2+', '[Cu(NH3)4]2+', '[Rh(NH3)5Cl]2+', 'K3[Cr(ox)3]', '[Ru(bpy)3]2+', '[Mn(H2O)6]2+', '[V(H2O)6]3+'];
 const SEARCHES = ['cobalt', 'Co amm', 'hexaaqua', 'chromium', 'oxalato', 'ru bpy', 'nickel', 'zzzz-no-match'];
-const FILTERS = ['metal=Co', 'verdict=inert', 'status=approved', 'measurementKind=water-exchange', 'hasCitation=true', 'dCount=6', 'oxidationState=3', 'ligand=NH3'];
+const FILTERS = ['metal=Co', 'verdict=inert', 'status=accepted', 'measurementKind=water-exchange', 'hasCitation=true', 'dCount=6', 'oxidationState=3', 'ligand=NH3'];
 const WEIGHTS: [Operation, number][] = [['list', 12], ['filter', 10], ['search', 14], ['me', 10], ['classify', 20], ['create', 14], ['edit', 20]];
 
 /** Small deterministic PRNG (mulberry32), one per worker, so a run can be repeated. */
