@@ -30,4 +30,32 @@ module.exports = defineConfig([
     files: ['app/**/*.{ts,tsx}', 'components/**/*.{ts,tsx}', 'lib/api/**/*.ts', 'lib/schemas/**/*.ts'],
     rules: { 'no-restricted-imports': ['error', { patterns: [noServer] }] },
   },
+  {
+    // Production code never imports the development stand-ins or their packages (devDependencies);
+    // only the start script loads server/dev, with a dynamic import outside production.
+    files: ['server/**/*.ts'],
+    ignores: ['server/dev/**'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            { name: 'smtp-server', message: 'A development stand-in: keep it in server/dev.' },
+            { name: 's3rver', message: 'A development stand-in: keep it in server/dev.' },
+          ],
+          patterns: [{ group: ['@/server/dev', '@/server/dev/*', './dev', './dev/*', '../dev', '../dev/*', '**/dev', '**/dev/*'], message: 'Production code does not import server/dev (see server/development-tools.ts).' }],
+        },
+      ],
+    },
+  },
+  {
+    files: ['server/**/*.ts'],
+    ignores: ['server/dev/**', 'server/index.ts'],
+    rules: {
+      'no-restricted-syntax': [
+        'error',
+        { selector: 'ImportExpression[source.value=/(^|\\/)dev(\\/|$)/]', message: 'Only server/index.ts loads server/dev, and only outside production.' },
+      ],
+    },
+  },
 ]);

@@ -31,6 +31,7 @@ module.exports = {
       [esmAllowed[0]]: esmAllowed[1],
       moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
       globalSetup: '<rootDir>/tests/setup/server-global-setup.ts',
+      setupFiles: ['<rootDir>/tests/setup/development-tools.ts'],
     },
     {
       // `npm run test:reliability`: fuzzing, hostile input, load and faults (minutes, not seconds).
@@ -41,6 +42,7 @@ module.exports = {
       [esmAllowed[0]]: esmAllowed[1],
       moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
       globalSetup: '<rootDir>/tests/setup/server-global-setup.ts',
+      setupFiles: ['<rootDir>/tests/setup/development-tools.ts'],
     },
     {
       displayName: 'components',

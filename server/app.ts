@@ -2,6 +2,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { ChangeFeed } from './db/change-feed';
 import type { Orm } from './db/orm';
+import { developmentTools } from './development-tools';
 import { readEnv, type Env } from './env';
 import { attachAccounts, originCheck } from './http/auth-middleware';
 import { apiNotFound, errorHandler } from './http/error-handler';
@@ -17,7 +18,6 @@ import { groupRoutes } from './modules/groups/groups.routes';
 import { healthRoutes } from './modules/health/health.routes';
 import { libraryRoutes } from './modules/library/library.routes';
 import { createMailer, type Mailer } from './modules/mail/mailer';
-import { devOutboxRoutes } from './modules/mail/outbox.routes';
 import { attachmentRoutes } from './modules/attachments/attachment.routes';
 import { lazyStorage, type ObjectStorage } from './modules/attachments/object-storage';
 import { exchangeRoutes } from './modules/exchange/exchange.routes';
@@ -32,7 +32,7 @@ export interface AppOptions {
   /** Folder of the exported web app; when missing, client routes explain how to build it. */
   webDir?: string;
   logRequests?: boolean;
-  /** Outgoing mail; by default SMTP_URL, else (not in production) a local sink started on first use. */
+  /** Outgoing mail; by default SMTP_URL, else (not in production) the local sink of server/dev, started on first use. */
   mailer?: Mailer;
   /** Throttle limits and token lifetimes (tests tighten them). */
   auth?: Partial<AuthSettings>;
@@ -43,9 +43,9 @@ export interface AppOptions {
    * nothing is cached. The caller starts and stops it (server/index.ts).
    */
   changeFeed?: ChangeFeed;
-  /** DOI look-up; by default METADATA_URL, else (not in production) a local fake started on first use. */
+  /** DOI look-up; by default METADATA_URL, else (not in production) the local fake of server/dev, started on first use. */
   metadata?: MetadataClient;
-  /** Attachment store; by default S3_* settings, else (not in production) a local fake S3 started on first use. */
+  /** Attachment store; by default S3_* settings, else (not in production) the local fake S3 of server/dev, started on first use. */
   storage?: ObjectStorage;
   /** Receives the review-mail notifier (tests wait on its settle()). */
   onReviewMail?: (reviewMail: ReviewMail) => void;
@@ -79,6 +79,10 @@ export function createApp({ orm, webDir, logRequests = false, ...options }: AppO
         : null,
       env.NODE_ENV,
       env.dataDirAbsolute,
+      {
+        bucket: env.S3_BUCKET,
+        credentials: env.S3_ACCESS_KEY && env.S3_SECRET_KEY ? { accessKeyId: env.S3_ACCESS_KEY, secretAccessKey: env.S3_SECRET_KEY } : undefined,
+      },
     );
   const reviewMail = createReviewMail(orm, accounts.mailer, accounts.appUrl);
   onLibraryEvents(orm.em, reviewMail.handle);
@@ -119,7 +123,9 @@ export function createApp({ orm, webDir, logRequests = false, ...options }: AppO
   api.use(exchangeRoutes(orm));
   api.use(attachmentRoutes(orm, storage));
   api.use(libraryRoutes(orm, options.changeFeed));
-  if (env.NODE_ENV !== 'production') api.use(devOutboxRoutes(orm));
+  // The outbox exists only where the development tools are loaded, never in production.
+  const dev = developmentTools(env.NODE_ENV);
+  if (dev) api.use(dev.outboxRoutes(orm));
   api.use(apiNotFound);
   app.use('/api', api);
 

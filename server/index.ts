@@ -5,6 +5,7 @@ import { resolveDatabase } from './db/database';
 import { startChangeFeed } from './db/change-feed';
 import { migrate, openOrm } from './db/orm';
 import { seedDemo } from './db/seed';
+import { registerDevelopmentTools } from './development-tools';
 import { readEnv } from './env';
 import { ClusterError } from './db/cluster';
 import { DEMO_PASSWORD, demoAccounts } from './modules/auth/demo-accounts';
@@ -17,9 +18,26 @@ const log = (line: string) => console.log(`[sphereline] ${line}`);
 /** A start-up refusal with a message that says what to do (printed without a stack). */
 class StartRefused extends Error {}
 
+/**
+ * Outside production: the local mail sink, fake S3 and fake DOI service of server/dev (their
+ * packages are devDependencies). A dynamic import, so a production start never loads that folder;
+ * after `npm ci --omit=dev` a development start goes on without them and says so.
+ */
+async function loadDevelopmentTools(): Promise<void> {
+  try {
+    const dev = await import('./dev');
+    registerDevelopmentTools(dev.developmentTools);
+  } catch (error) {
+    const code = (error as { code?: string }).code;
+    if (code !== 'ERR_MODULE_NOT_FOUND' && code !== 'MODULE_NOT_FOUND') throw error;
+    log('The development tools are not installed (devDependencies omitted): no local mail sink, object store or DOI service. Set SMTP_URL, S3_* and METADATA_URL, or run npm install.');
+  }
+}
+
 /** `npm start`: build the web app if stale, start the database, migrate, seed once, serve. */
 async function main() {
   const env = readEnv();
+  if (env.NODE_ENV !== 'production') await loadDevelopmentTools();
   const root = process.cwd();
   await ensureWebBuild(root, env.webDirAbsolute, log);
 

@@ -10,8 +10,13 @@ export function hostNameOf(hostHeader: string | undefined): string {
   return host.replace(/:\d+$/, '');
 }
 
+/** True for the loopback names (localhost, 127.0.0.1, ::1) of a Host header, whatever its port. */
+export function isLoopbackHostHeader(hostHeader: string | undefined): boolean {
+  return LOOPBACK.has(hostNameOf(hostHeader));
+}
+
 export function isLoopbackHost(req: Request): boolean {
-  return LOOPBACK.has(hostNameOf(req.get('host')));
+  return isLoopbackHostHeader(req.get('host'));
 }
 
 /**

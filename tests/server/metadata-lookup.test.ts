@@ -1,7 +1,7 @@
 import type { Express } from 'express';
 import { doiLookupResponseSchema } from '@/lib/schemas/exchange';
 import { createApp } from '@/server/app';
-import { startFakeMetadataService, type FakeMetadataService } from '@/server/modules/metadata/fake-metadata-service';
+import { startFakeMetadataService, type FakeMetadataService } from '@/server/dev/fake-metadata-service';
 import { createMetadataClient } from '@/server/modules/metadata/metadata-client';
 import { createTestApp, type TestApp } from '../setup/test-app';
 import { Browser, FIXTURE_PASSWORD, makeUser } from './auth-helpers';

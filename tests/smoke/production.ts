@@ -2,8 +2,10 @@
  * `npm run test:smoke`: the product as a production server starts it, on a fresh database.
  * Starts `server/index.ts` with NODE_ENV=production (its own private PostgreSQL under a temporary
  * DATA_DIR), then checks from outside: no demo sign-in works, the development outbox answers 404,
- * a forged Host is refused, the first-administrator command prints a link that sets a password exactly once, that person can
- * sign in, and stopping the server stops the PostgreSQL it started. Exits non-zero on the first failure.
+ * none of the development stand-ins runs (the server listens on its one port only, the DOI look-up
+ * has no fake behind it), a forged Host is refused, the first-administrator command prints a link
+ * that sets a password exactly once, that person can sign in, and stopping the server stops the
+ * PostgreSQL it started. Exits non-zero on the first failure.
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
@@ -53,6 +55,45 @@ async function freePort(): Promise<number> {
   });
 }
 
+/**
+ * The TCP ports a process listens on, from Linux's /proc: its socket inodes matched against the
+ * LISTEN rows of /proc/net/tcp and tcp6. The development mail sink, fake S3 and fake DOI service
+ * would each add one.
+ */
+function listeningPorts(pid: number): number[] {
+  const inodes = new Set<string>();
+  for (const fd of fs.readdirSync(`/proc/${pid}/fd`)) {
+    try {
+      const inode = /^socket:\[(\d+)\]$/.exec(fs.readlinkSync(`/proc/${pid}/fd/${fd}`))?.[1];
+      if (inode) inodes.add(inode);
+    } catch {
+      // The descriptor closed while we looked.
+    }
+  }
+  const ports = new Set<number>();
+  for (const table of ['/proc/net/tcp', '/proc/net/tcp6']) {
+    if (!fs.existsSync(table)) continue;
+    for (const line of fs.readFileSync(table, 'utf8').split('\n').slice(1)) {
+      const columns = line.trim().split(/\s+/);
+      const [, local = '', , state] = columns;
+      const inode = columns[9];
+      if (state === '0A' && inode && inodes.has(inode)) ports.add(parseInt(local.split(':')[1] ?? '0', 16));
+    }
+  }
+  return [...ports].sort((a, b) => a - b);
+}
+
+/** A raw request with a Host of our choosing (fetch() will not send another Host); the status code. */
+function rawStatus(port: number, urlPath: string, host: string): Promise<number> {
+  return new Promise<number>((resolve, reject) => {
+    const socket = net.connect(port, '127.0.0.1', () => socket.write(`GET ${urlPath} HTTP/1.1\r\nHost: ${host}\r\nConnection: close\r\n\r\n`));
+    let reply = '';
+    socket.on('data', (chunk: Buffer) => (reply += chunk.toString()));
+    socket.on('end', () => resolve(Number(/^HTTP\/1\.1 (\d+)/.exec(reply)?.[1] ?? 0)));
+    socket.on('error', reject);
+  });
+}
+
 function startServer(env: NodeJS.ProcessEnv): Promise<{ child: ChildProcess; output: () => string }> {
   const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server/index.ts')], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
   let output = '';
@@ -95,16 +136,19 @@ async function main() {
       const response = await send('POST', '/api/auth/sign-in', { email: account.email, password: DEMO_PASSWORD });
       check(response.status === 401, `demo sign-in of ${account.email} is refused (401)`);
     }
-    check((await send('GET', '/api/dev/outbox')).status === 404, 'the development outbox answers 404');
-    const forged = await new Promise<number>((resolve, reject) => {
-      // fetch() will not send another Host; a raw request does.
-      const socket = net.connect(port, '127.0.0.1', () => socket.write('GET /api/health/live HTTP/1.1\r\nHost: attacker.example.com\r\nConnection: close\r\n\r\n'));
-      let reply = '';
-      socket.on('data', (chunk: Buffer) => (reply += chunk.toString()));
-      socket.on('end', () => resolve(Number(/^HTTP\/1\.1 (\d+)/.exec(reply)?.[1] ?? 0)));
-      socket.on('error', reject);
-    });
-    check(forged === 403, 'a forged Host header is refused (403)');
+    for (const [urlPath, accept] of [['/api/dev/outbox', 'application/json'], ['/api/dev/outbox', 'text/html'], ['/api/dev/outbox?to=wren.oakes%40northfen.example.org', '*/*'], ['/api/dev', '*/*']] as const) {
+      const response = await fetch(`${base}${urlPath}`, { headers: { accept } });
+      check(response.status === 404, `the development route ${urlPath} (${accept}) answers 404`);
+    }
+    const ports = child.pid ? listeningPorts(child.pid) : [];
+    check(
+      ports.length === 1 && ports[0] === port,
+      `the server listens on its own port only — no mail sink, fake S3 or fake DOI service (found ${ports.join(', ') || 'none'})`,
+    );
+    for (const [urlPath, host] of [['/api/health/live', 'attacker.example.com'], ['/api/dev/outbox', 'attacker.example.com'], ['/', 'rebind.attacker.example'], ['/api/health/live', `127.0.0.1.attacker.example:${port}`]] as const) {
+      const status = await rawStatus(port, urlPath, host);
+      check(status === 403, `a forged Host (${host}) on ${urlPath} is refused (403, got ${status})`);
+    }
 
     const admin = spawnSync(
       process.execPath,
@@ -120,7 +164,12 @@ async function main() {
     check(first.status === 200, first.status === 200 ? 'the link sets the first password' : `the link did not set the password: ${first.status} ${await first.text()}`);
     const reuse = await send('POST', '/api/auth/password-reset/confirm', { token, password: 'another-long-passphrase-9' });
     check(reuse.status >= 400 && reuse.status < 500, 'the same link is refused the second time');
-    check((await send('POST', '/api/auth/sign-in', { email: 'wren.oakes@northfen.example.org', password })).status === 200, 'the first administrator signs in');
+    const signIn = await send('POST', '/api/auth/sign-in', { email: 'wren.oakes@northfen.example.org', password });
+    check(signIn.status === 200, 'the first administrator signs in');
+    const cookie = (signIn.headers.get('set-cookie') ?? '').split(';')[0] ?? '';
+    // Laurenczy et al., Magn. Reson. Chem. 1991: a DOI the development fake would answer for.
+    const lookup = await fetch(`${base}/api/citations/lookup?doi=10.1002/mrc.1260291311`, { headers: { cookie } });
+    check(lookup.status === 503, `the DOI look-up has no fake service behind it (503 without METADATA_URL, got ${lookup.status})`);
     check(mail.received() >= 1, 'the password change was mailed through SMTP_URL');
   } finally {
     const exited = new Promise((resolve) => child.once('exit', resolve));

@@ -1,15 +1,13 @@
-import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
 import { Readable } from 'node:stream';
 import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
-import S3rver from 's3rver';
+import { developmentTools } from '@/server/development-tools';
 import { AppError } from '@/server/http/errors';
 
 /**
  * Attachment bytes in an S3-compatible object store, through the AWS SDK. Configured by
- * S3_ENDPOINT / S3_BUCKET / S3_ACCESS_KEY / S3_SECRET_KEY / S3_REGION; in development and tests a
- * local fake S3 server is started instead (never in production). The bucket is private: files
+ * S3_ENDPOINT / S3_BUCKET / S3_ACCESS_KEY / S3_SECRET_KEY / S3_REGION; in development and tests,
+ * without S3_ENDPOINT, the local fake S3 of server/dev is started instead (never in production). The bucket is private: files
  * leave only through the API, with the member's rights.
  */
 
@@ -81,35 +79,26 @@ export function createS3Storage(settings: S3Settings, onClose: () => Promise<voi
   };
 }
 
-/** The local fake S3 (development and tests): its own folder, a free port on 127.0.0.1, one bucket. */
-export async function startFakeS3(options: { directory?: string; bucket?: string } = {}): Promise<{ settings: S3Settings; close: () => Promise<void> }> {
-  const bucket = options.bucket ?? 'sphereline-attachments';
-  const throwaway = !options.directory;
-  const directory = options.directory ?? fs.mkdtempSync(path.join(os.tmpdir(), 'sphereline-s3-'));
-  fs.mkdirSync(directory, { recursive: true });
-  const server = new S3rver({ address: '127.0.0.1', port: 0, silent: true, directory, configureBuckets: [{ name: bucket }] });
-  const { port } = await server.run();
-  return {
-    // s3rver accepts any key pair; these name the fake so nobody mistakes them for real ones.
-    settings: { endpoint: `http://127.0.0.1:${port}`, bucket, accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
-    close: async () => {
-      await server.close();
-      if (throwaway) fs.rmSync(directory, { recursive: true, force: true });
-    },
-  };
-}
-
-/** S3 from the environment, else (outside production) the fake, started on first use. */
-export function lazyStorage(settings: S3Settings | null, nodeEnv: string, dataDir?: string): ObjectStorage {
+/**
+ * S3 from the environment, else (outside production, when the development tools are loaded) the
+ * fake, started on first use, with the configured key pair when there is one.
+ */
+export function lazyStorage(
+  settings: S3Settings | null,
+  nodeEnv: string,
+  dataDir?: string,
+  fake: { bucket?: string; credentials?: { accessKeyId: string; secretAccessKey: string } } = {},
+): ObjectStorage {
   let started: Promise<ObjectStorage> | null = null;
   const storage = () => {
     started ??= (async () => {
       if (settings) return createS3Storage(settings);
-      if (nodeEnv === 'production') {
+      const dev = developmentTools(nodeEnv);
+      if (!dev) {
         throw new AppError('UNAVAILABLE', 'Attachments are not configured on this server (S3_ENDPOINT and S3_BUCKET).');
       }
-      const fake = await startFakeS3({ directory: dataDir ? path.join(dataDir, 's3') : undefined });
-      return createS3Storage(fake.settings, fake.close);
+      const store = await dev.startFakeS3({ directory: dataDir ? path.join(dataDir, 's3') : undefined, ...fake });
+      return createS3Storage(store.settings, store.close);
     })();
     started.catch(() => {
       started = null;

@@ -1,7 +1,7 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Orm } from '@/server/db/orm';
 import { AppError } from '@/server/http/errors';
-import { startMailSink, type MailSink } from './mail-sink';
+import { developmentTools } from '@/server/development-tools';
 
 export interface OutgoingMail {
   to: string;
@@ -28,12 +28,13 @@ export interface MailerOptions {
 
 /**
  * E-mail through nodemailer. With SMTP_URL: that server. Without it, in development and tests:
- * a local SMTP sink started on first use (messages land in the dev outbox). Without it in
- * production: mail cannot be sent, and the request that needed it answers 503.
+ * the local SMTP sink of server/dev, started on first use (messages land in the dev outbox).
+ * Without it in production (or without the development tools): mail cannot be sent, and the
+ * request that needed it answers 503.
  */
 export function createMailer(options: MailerOptions): Mailer {
   let transport: Transporter | null = null;
-  let sink: MailSink | null = null;
+  let sink: { host: string; port: number; close(): Promise<void> } | null = null;
   let starting: Promise<string> | null = null;
 
   const start = (): Promise<string> => {
@@ -42,8 +43,9 @@ export function createMailer(options: MailerOptions): Mailer {
         transport = nodemailer.createTransport(options.smtpUrl);
         return `SMTP server from SMTP_URL (${new URL(options.smtpUrl).host})`;
       }
-      if (options.nodeEnv === 'production') return 'nowhere: SMTP_URL is not set';
-      sink = await startMailSink(options.orm, { keepProcessAlive: options.keepProcessAlive });
+      const dev = developmentTools(options.nodeEnv);
+      if (!dev) return 'nowhere: SMTP_URL is not set';
+      sink = await dev.startMailSink(options.orm, { keepProcessAlive: options.keepProcessAlive });
       // PLATFORM trap 14: the sink speaks plain SMTP on loopback, so no STARTTLS.
       transport = nodemailer.createTransport({ host: sink.host, port: sink.port, secure: false, ignoreTLS: true });
       return `local mail sink on ${sink.host}:${sink.port} (read it at /api/dev/outbox)`;

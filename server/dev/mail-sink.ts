@@ -1,6 +1,6 @@
 import { SMTPServer } from 'smtp-server';
 import type { Orm } from '@/server/db/orm';
-import { DevOutboxMessage } from './outbox-message.entity';
+import { DevOutboxMessage } from '@/server/modules/mail/outbox-message.entity';
 
 export interface MailSink {
   host: string;

@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import type { Orm } from '@/server/db/orm';
 import { isLoopbackHost } from '@/server/http/host-allow-list';
-import { extractLinks, parseMail } from './mime';
-import { DevOutboxMessage } from './outbox-message.entity';
+import { extractLinks, parseMail } from '@/server/modules/mail/mime';
+import { DevOutboxMessage } from '@/server/modules/mail/outbox-message.entity';
 
 const escapeHtml = (text: string) =>
   text.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch] ?? ch);

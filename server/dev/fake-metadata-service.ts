@@ -2,13 +2,15 @@ import fs from 'node:fs';
 import type { Server } from 'node:http';
 import path from 'node:path';
 import express from 'express';
+import { isLoopbackHostHeader } from '@/server/http/host-allow-list';
 import fakeWorks from './fake-works.json';
 
 /**
  * The development and test stand-in for the bibliographic metadata service: an express app on
  * 127.0.0.1 (a free port) answering GET /works/{doi} in the registration agencies' JSON shape for
  * the DOIs in fake-works.json and data/demo-library.json, 404 for any other DOI. `setDelay(ms)`
- * makes it slow (for the timeout test). Never started in production.
+ * makes it slow (for the timeout test). It answers only requests addressed to a loopback host name
+ * (403 otherwise, so a DNS-rebinding page cannot use it). Never started in production.
  */
 
 export interface FakeWork {
@@ -75,6 +77,10 @@ export async function startFakeMetadataService(options: { root?: string; keepPro
 
   const app = express();
   app.disable('x-powered-by');
+  app.use((req, res, next) => {
+    if (isLoopbackHostHeader(req.get('host'))) return next();
+    res.status(403).type('text/plain').send('This development service answers only on a loopback host name.');
+  });
   // DOIs contain slashes: everything after /works/ is the DOI.
   app.get(/^\/works\/(.+)$/, async (req, res) => {
     if (delayMs > 0) await new Promise((resolve) => setTimeout(resolve, delayMs));
