@@ -5,7 +5,7 @@ import { resolveDatabase } from './db/database';
 import { startChangeFeed } from './db/change-feed';
 import { migrate, openOrm } from './db/orm';
 import { seedDemo } from './db/seed';
-import { registerDevelopmentTools } from './development-tools';
+import { developmentTools, registerDevelopmentTools } from './development-tools';
 import { readEnv } from './env';
 import { ClusterError } from './db/cluster';
 import { DEMO_PASSWORD, demoAccounts } from './modules/auth/demo-accounts';
@@ -81,7 +81,7 @@ async function main() {
   Sphereline is running at http://${env.HOST}:${port}/
   API health:              http://${env.HOST}:${port}/api/health
   Database:                ${cluster ? `private PostgreSQL on 127.0.0.1:${cluster.port} (data in ${env.DATA_DIR}/postgres)` : 'DATABASE_URL'}
-  E-mail:                  ${mailDestination}${env.NODE_ENV !== 'production' && !env.SMTP_URL ? `\n  Outbox:                  http://${env.HOST}:${port}/api/dev/outbox` : ''}
+  E-mail:                  ${mailDestination}${developmentTools(env.NODE_ENV) && !env.SMTP_URL ? `\n  Outbox:                  http://${env.HOST}:${port}/api/dev/outbox` : ''}
 
 ${
   env.NODE_ENV === 'production'
