@@ -4,8 +4,8 @@ import { stringify } from 'csv-stringify/sync';
 import { classifyMany } from '@/lib/chem/classify';
 import { formulaProblemText } from '@/lib/chem/types';
 import { predictRoutes } from '@/lib/chem/route';
-import { marcusRequestSchema } from '@/lib/schemas/chem';
-import { marcus } from '@/server/modules/chem/chem.service';
+import { formationRequestSchema, marcusRequestSchema } from '@/lib/schemas/chem';
+import { formation, marcus } from '@/server/modules/chem/chem.service';
 import { AppError } from '@/server/http/errors';
 
 const USAGE = `Sphereline command line
@@ -15,6 +15,9 @@ const USAGE = `Sphereline command line
   npm run --silent cli -- route [--json] <oxidant> <reductant> [<oxidant> <reductant> …]
   npm run --silent cli -- marcus [--json] --k11 <M-1 s-1> --k22 <M-1 s-1> (--dE <V> | --K12 <n>)
                                  [--T <°C>] [--observed <M-1 s-1>]
+  npm run --silent cli -- formation [--json] <metal complex> <entering ligand> [--I <M>] [--T <°C>] [--a <Å>]
+        Eigen–Wilkins formation rate: {kf (M-1 s-1), Kos (M-1), kex (s-1), reasons[], published?}
+        e.g. formation --json '[Ni(H2O)6]2+' NH3 --I 0.1
 
 With --json each answer is one JSON object per line, in order; a formula that cannot be read gives
 {"formula": …, "error": …, "position": …} on its line and the others still run.`;
@@ -26,7 +29,7 @@ interface ParsedArgs {
   positional: string[];
 }
 
-const VALUE_FLAGS = new Set(['--T', '--csv', '--k11', '--k22', '--dE', '--K12', '--observed']);
+const VALUE_FLAGS = new Set(['--T', '--csv', '--k11', '--k22', '--dE', '--K12', '--observed', '--I', '--a']);
 
 function parseArgs(argv: string[]): ParsedArgs {
   const flags = new Map<string, string | true>();
@@ -154,6 +157,31 @@ function marcusCommand({ flags }: ParsedArgs) {
   );
 }
 
+function formationCommand({ flags, positional }: ParsedArgs) {
+  if (positional.length !== 2) throw new UsageError('formation needs a metal complex and an entering ligand, e.g. formation \'[Ni(H2O)6]2+\' NH3.');
+  const request = formationRequestSchema.safeParse({
+    complex: positional[0],
+    ligand: positional[1],
+    I: numberFlag(flags, '--I'),
+    T: numberFlag(flags, '--T'),
+    a: numberFlag(flags, '--a'),
+  });
+  if (!request.success) {
+    const issue = request.error.issues[0];
+    const field = String(issue?.path[0] ?? 'input');
+    throw new UsageError(`${field === 'complex' || field === 'ligand' ? field : `--${field}`}: ${issue?.message ?? 'invalid'}`);
+  }
+  const result = formation(request.data);
+  if (flags.has('--json')) {
+    print(JSON.stringify(result));
+    return;
+  }
+  print(
+    `${result.complex} + ${result.ligand}: k_f ≈ ${result.kf.toExponential(2)} M⁻¹ s⁻¹   (K_os = ${result.Kos.toPrecision(3)} M⁻¹, k_ex = ${result.kex.toExponential(2)} s⁻¹)\n` +
+      result.reasons.map((reason) => `   - ${reason}`).join('\n'),
+  );
+}
+
 function main(argv: string[]): number {
   const [command, ...rest] = argv;
   try {
@@ -165,6 +193,7 @@ function main(argv: string[]): number {
     if (command === 'classify') classifyCommand(args);
     else if (command === 'route') routeCommand(args);
     else if (command === 'marcus') marcusCommand(args);
+    else if (command === 'formation') formationCommand(args);
     else throw new UsageError(`Unknown command "${command}".`);
     return 0;
   } catch (error) {

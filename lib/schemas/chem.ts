@@ -205,3 +205,76 @@ export const marcusFormSchema = z
   })
   .strict();
 export type MarcusForm = z.infer<typeof marcusFormSchema>;
+
+const ligandTokenSchema = z
+  .string({ error: 'must be a ligand from the ligand table written as text, e.g. "NH3"' })
+  .trim()
+  .min(1, 'is empty: give a ligand such as NH3, Cl or bpy')
+  .max(40, 'is longer than 40 characters');
+
+/** POST /api/formation: the Eigen–Wilkins estimate for a ligand entering a complex (usually an aqua ion). */
+export const formationRequestSchema = z
+  .object({
+    complex: formulaSchema,
+    ligand: ligandTokenSchema,
+    /** Ionic strength (M). */
+    I: z.number({ error: 'must be an ionic strength in mol/L' }).min(0, 'must be at least 0 M').max(5, 'must be at most 5 M').optional(),
+    /** Temperature (°C). */
+    T: z.number({ error: 'must be a number of degrees Celsius' }).min(0, 'must be at least 0 °C').max(100, 'must be at most 100 °C').optional(),
+    /** Contact distance of the outer-sphere pair (Å). */
+    a: z.number({ error: 'must be a distance in ångström' }).min(2, 'must be at least 2 Å').max(10, 'must be at most 10 Å').optional(),
+  })
+  .strict();
+export type FormationRequest = z.infer<typeof formationRequestSchema>;
+
+export const formationResultSchema = z
+  .object({
+    kf: z.number(),
+    Kos: z.number(),
+    kex: z.number(),
+    reasons: z.array(z.string()),
+    published: z.object({ kf: z.number(), source: z.string(), checked: z.string(), ratio: z.number() }).passthrough().optional(),
+  })
+  .passthrough();
+export type FormationResultDto = z.infer<typeof formationResultSchema>;
+
+export const MAX_SEQUENCE_LIGANDS = 12;
+
+/** POST /api/sequence: a square-planar start complex and the ligands added one at a time. */
+export const sequenceRequestSchema = z
+  .object({
+    start: formulaSchema,
+    ligands: z
+      .array(ligandTokenSchema, { error: 'must be a list of entering ligands, e.g. ["NH3", "NH3"]' })
+      .min(1, 'must hold at least one entering ligand')
+      .max(MAX_SEQUENCE_LIGANDS, `may hold at most ${MAX_SEQUENCE_LIGANDS} ligands`),
+  })
+  .strict();
+export type SequenceRequest = z.infer<typeof sequenceRequestSchema>;
+
+const sequenceIsomerSchema = z.enum(['cis', 'trans']).nullable();
+
+export const sequenceStepSchema = z
+  .object({
+    entering: z.string(),
+    leaving: z.string(),
+    product: z.string(),
+    isomer: sequenceIsomerSchema,
+    reasons: z.array(z.string()),
+    /** The four sites in order round the square (0 trans to 2, 1 trans to 3), ligand ids. */
+    sites: z.array(z.string()).length(4),
+    /** The site the entering ligand took, and the site of the ligand trans to it (the trans director). */
+    site: z.number().int().min(0).max(3),
+    transDirectorSite: z.number().int().min(0).max(3),
+  })
+  .passthrough();
+
+export const sequenceResultSchema = z
+  .object({
+    start: z.object({ formula: z.string(), sites: z.array(z.string()).length(4), isomer: sequenceIsomerSchema }).passthrough(),
+    steps: z.array(sequenceStepSchema),
+    product: z.string(),
+    isomer: sequenceIsomerSchema,
+  })
+  .passthrough();
+export type SequenceResultDto = z.infer<typeof sequenceResultSchema>;

@@ -77,3 +77,19 @@ it('marcus --json computes k12, f12 and K12; bad input exits 2 with a message', 
   expect(bad.code).toBe(2);
   expect(bad.stderr).toMatch(/k11/);
 }, 30_000);
+
+it('formation --json prints {kf, Kos, kex, reasons, published} for a metal complex and an entering ligand', async () => {
+  const { code, stdout } = await cli('formation', '--json', '[Ni(H2O)6]2+', 'bpy', '--I', '0.1');
+  expect(code).toBe(0);
+  const [answer] = jsonLines(stdout);
+  // Published k_f = 1.6e3 M⁻¹ s⁻¹ (Holyer, Hubbard, Kettle & Wilkins, Inorg. Chem. 1965, recalled): within ×10.
+  expect((answer?.kf as number) / 1.6e3).toBeLessThan(10);
+  expect((answer?.kf as number) / 1.6e3).toBeGreaterThan(0.1);
+  expect(answer).toEqual(expect.objectContaining({ Kos: expect.any(Number), kex: expect.any(Number), reasons: expect.any(Array), published: expect.objectContaining({ kf: 1.6e3 }) }));
+});
+
+it('formation with an unknown ligand exits 2 and says which ligand', async () => {
+  const { code, stderr } = await cli('formation', '[Ni(H2O)6]2+', 'XYZ');
+  expect(code).toBe(2);
+  expect(stderr).toMatch(/XYZ/);
+});

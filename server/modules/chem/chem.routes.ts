@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { classifyRequestSchema, marcusRequestSchema, routeRequestSchema } from '@/lib/schemas/chem';
+import { classifyRequestSchema, formationRequestSchema, marcusRequestSchema, routeRequestSchema } from '@/lib/schemas/chem';
 import type { Orm } from '@/server/db/orm';
 import { isUuid, resolveAuth } from '@/server/http/auth-middleware';
 import { AppError } from '@/server/http/errors';
@@ -30,6 +30,9 @@ export function chemRoutes(orm: Orm): Router {
   });
   router.post('/marcus', (req, res) => {
     res.json(chem.marcus(parseWith(marcusRequestSchema, req.body)));
+  });
+  router.post('/formation', (req, res) => {
+    res.json(chem.formation(parseWith(formationRequestSchema, req.body)));
   });
   return router;
 }

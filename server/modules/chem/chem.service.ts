@@ -4,11 +4,12 @@ import {
   classifyMany,
   type ClassifyManyResult,
 } from '@/lib/chem/classify';
+import { formationRate, FormationInputError } from '@/lib/chem/formation';
 import { decideByLibrary, pickDecidingMeasurement } from '@/lib/chem/library-decision';
 import { marcusCrossRate, MarcusInputError, type MarcusInput } from '@/lib/chem/marcus';
 import { predictRoute, predictRoutes, RouteInputError } from '@/lib/chem/route';
 import { FormulaError, formulaProblemText, GeometryMismatchError, type Classification, type LibraryMeasurementRef } from '@/lib/chem/types';
-import type { ClassifyRequest, MarcusRequest, RouteRequest } from '@/lib/schemas/chem';
+import type { ClassifyRequest, FormationRequest, MarcusRequest, RouteRequest } from '@/lib/schemas/chem';
 import { AppError } from '@/server/http/errors';
 import { ligandSetKeyOf } from '@/server/modules/library/derive';
 import { findLibraryCandidates } from '@/server/modules/library/measured.service';
@@ -108,6 +109,26 @@ export function marcus(request: MarcusRequest) {
     if (error instanceof MarcusInputError) {
       const field = marcusFieldNames[error.field] ?? error.field;
       throw new AppError('VALIDATION_FAILED', `The Marcus input is not valid: ${error.message}`, { [field]: error.message });
+    }
+    throw error;
+  }
+}
+
+const formationFieldNames: Record<string, string> = { ionicStrength: 'I', temperature: 'T', contactDistance: 'a' };
+
+/** The Eigen–Wilkins estimate; engine input errors become 400s naming the field (and the character). */
+export function formation(request: FormationRequest) {
+  try {
+    return formationRate(request.complex, request.ligand, { ionicStrengthM: request.I, temperatureC: request.T, contactDistanceAngstrom: request.a });
+  } catch (error) {
+    if (error instanceof FormationInputError) {
+      const field = formationFieldNames[error.field] ?? error.field;
+      throw new AppError(
+        'VALIDATION_FAILED',
+        `The ${field === 'complex' ? 'complex' : field === 'ligand' ? 'entering ligand' : field} cannot be used: ${error.message}`,
+        { [field]: error.message },
+        error.position !== null ? { position: error.position } : undefined,
+      );
     }
     throw error;
   }
