@@ -6,6 +6,7 @@ import { StyleSheet, View } from 'react-native';
 import { queryClient } from '@/lib/api/query-client';
 import { holdUntilRoutesShown, loadFonts, markRoutesShown } from '@/components/ui/font-loading';
 import { fontFiles } from '@/components/ui/theme';
+import { ToastProvider } from '@/components/ui/toast';
 
 // Ask for the shipped fonts as soon as this module runs, before anything renders; useFonts below joins
 // the same requests (expo-font keeps one load per family) and reports the outcome, errors included.
@@ -25,7 +26,9 @@ export default function RootLayout() {
   return (
     <QueryClientProvider client={queryClient}>
       <View style={fontsSettled ? styles.shown : styles.waitingForFonts}>
-        <Slot />
+        <ToastProvider>
+          <Slot />
+        </ToastProvider>
       </View>
     </QueryClientProvider>
   );

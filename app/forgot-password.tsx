@@ -1,7 +1,13 @@
 import { deferred } from '@/components/deferred/deferred';
+import { PageTitle } from '@/components/ui/page-title';
 
 const ForgotPasswordScreen = deferred('ForgotPasswordScreen');
 
 export default function ForgotPassword() {
-  return <ForgotPasswordScreen />;
+  return (
+    <>
+      <PageTitle parts={['Forgot password']} />
+      <ForgotPasswordScreen />
+    </>
+  );
 }

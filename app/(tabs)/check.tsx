@@ -2,6 +2,7 @@ import { useLocalSearchParams, useRouter } from 'expo-router';
 import { useCallback } from 'react';
 import { CheckScreen } from '@/components/check/check-screen';
 import { formulaFromAddress } from '@/components/check/formula-from-address';
+import { PageTitle } from '@/components/ui/page-title';
 
 /** /check?formula=<urlencoded> opens with the result shown; typing keeps the address shareable. */
 export default function Check() {
@@ -11,5 +12,12 @@ export default function Check() {
     (settled: string) => router.setParams({ formula: settled || undefined }),
     [router],
   );
-  return <CheckScreen initialFormula={formulaFromAddress(typeof formula === 'string' ? formula : undefined)} onFormulaSettled={keepInAddress} />;
+  const initialFormula = formulaFromAddress(typeof formula === 'string' ? formula : undefined);
+  return (
+    <>
+      {/* The address follows the settled formula, so the title names what is on screen. */}
+      <PageTitle parts={[initialFormula, 'Check']} />
+      <CheckScreen initialFormula={initialFormula} onFormulaSettled={keepInAddress} />
+    </>
+  );
 }

@@ -1,6 +1,7 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { useCallback } from 'react';
 import { deferred } from '@/components/deferred/deferred';
+import { PageTitle } from '@/components/ui/page-title';
 
 const RouteScreen = deferred('RouteScreen');
 
@@ -12,11 +13,16 @@ export default function Route() {
     (ox: string, red: string) => router.setParams({ oxidant: ox || undefined, reductant: red || undefined }),
     [router],
   );
+  const ox = typeof oxidant === 'string' ? oxidant.trim() : '';
+  const red = typeof reductant === 'string' ? reductant.trim() : '';
   return (
-    <RouteScreen
+    <>
+      <PageTitle parts={[ox && red ? `${ox} + ${red}` : ox || red, 'Route']} />
+      <RouteScreen
       initialOxidant={typeof oxidant === 'string' ? oxidant : ''}
       initialReductant={typeof reductant === 'string' ? reductant : ''}
       onPairSettled={keepInAddress}
-    />
+      />
+    </>
   );
 }

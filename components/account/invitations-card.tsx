@@ -9,6 +9,7 @@ import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { AppText } from '@/components/ui/text';
 import { TextField } from '@/components/ui/text-field';
+import { useToast } from '@/components/ui/toast';
 import { colors, radius, spacing } from '@/components/ui/theme';
 import { formatDay, roleDescriptions, roleLabels } from './account-format';
 import { applyServerErrors, describeError } from './form-errors';
@@ -19,6 +20,12 @@ import { RolePicker, RoleTag } from './role-chip';
 export function InvitationsCard({ groupId }: { groupId: string }) {
   const invitations = useInvitationsQuery(groupId, true);
   const revoke = useRevokeInvitationMutation(groupId);
+  const toast = useToast();
+  const onRevoke = (invitation: Invitation) =>
+    revoke.mutate(invitation.id, {
+      onSuccess: () => toast(`The invitation to ${invitation.email} was withdrawn.`),
+      onError: (error) => toast(`Not withdrawn: ${describeError(error)}`, 'error'),
+    });
   return (
     <Card title="Invitations" testID="invitations-card">
       <InviteForm groupId={groupId} />
@@ -35,7 +42,7 @@ export function InvitationsCard({ groupId }: { groupId: string }) {
                   key={invitation.id}
                   invitation={invitation}
                   revoking={revoke.isPending && revoke.variables === invitation.id}
-                  onRevoke={() => revoke.mutate(invitation.id)}
+                  onRevoke={() => onRevoke(invitation)}
                 />
               ))}
             </View>
@@ -49,6 +56,7 @@ export function InvitationsCard({ groupId }: { groupId: string }) {
 
 function InvitationRow({ invitation, revoking, onRevoke }: { invitation: Invitation; revoking: boolean; onRevoke: () => void }) {
   const expired = invitation.status === 'expired';
+  const [confirming, setConfirming] = useState(false);
   return (
     <View style={styles.row} testID={`invitation-row-${invitation.id}`}>
       <View style={styles.rowText}>
@@ -59,20 +67,39 @@ function InvitationRow({ invitation, revoking, onRevoke }: { invitation: Invitat
         </AppText>
       </View>
       <RoleTag role={invitation.role} />
-      <Button
-        label={revoking ? 'Withdrawing…' : expired ? 'Remove' : 'Withdraw'}
-        accessibilityLabel={`Withdraw the invitation to ${invitation.email}`}
-        kind="quiet"
-        disabled={revoking}
-        onPress={onRevoke}
-        testID={`invitation-revoke-${invitation.id}`}
-      />
+      {confirming ? (
+        <View style={styles.confirm} testID={`invitation-revoke-confirm-${invitation.id}`}>
+          <AppText variant="caption">
+            {expired ? `Remove the expired invitation to ${invitation.email}?` : `Withdraw the invitation to ${invitation.email}? The link in their e-mail stops working.`}
+          </AppText>
+          <View style={styles.buttons}>
+            <Button
+              label={revoking ? 'Withdrawing…' : expired ? 'Yes, remove' : 'Yes, withdraw'}
+              accessibilityLabel={`Confirm: withdraw the invitation to ${invitation.email}`}
+              disabled={revoking}
+              onPress={onRevoke}
+              testID={`invitation-revoke-yes-${invitation.id}`}
+            />
+            <Button label="Cancel" kind="quiet" disabled={revoking} onPress={() => setConfirming(false)} testID={`invitation-revoke-no-${invitation.id}`} />
+          </View>
+        </View>
+      ) : (
+        <Button
+          label={expired ? 'Remove' : 'Withdraw'}
+          accessibilityLabel={`Withdraw the invitation to ${invitation.email}`}
+          kind="quiet"
+          disabled={revoking}
+          onPress={() => setConfirming(true)}
+          testID={`invitation-revoke-${invitation.id}`}
+        />
+      )}
     </View>
   );
 }
 
 function InviteForm({ groupId }: { groupId: string }) {
   const create = useCreateInvitationMutation(groupId);
+  const toast = useToast();
   const [formError, setFormError] = useState<string | null>(null);
   const [sentTo, setSentTo] = useState<string | null>(null);
   const { control, handleSubmit, setError, reset, formState: { errors } } = useForm({
@@ -87,6 +114,7 @@ function InviteForm({ groupId }: { groupId: string }) {
       await create.mutateAsync(values);
       reset({ email: '', role: values.role });
       setSentTo(values.email);
+      toast(`Invitation sent to ${values.email}.`);
     } catch (error) {
       setFormError(applyServerErrors(error, setError, ['email', 'role']));
     }
@@ -161,4 +189,6 @@ const styles = StyleSheet.create({
   },
   rowText: { flex: 1, minWidth: 160, gap: 2 },
   email: { fontWeight: '600' },
+  confirm: { gap: spacing.sm, flexBasis: '100%' },
+  buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
 });

@@ -8,6 +8,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { AppText } from '@/components/ui/text';
+import { useToast } from '@/components/ui/toast';
 import { TextField } from '@/components/ui/text-field';
 import { spacing } from '@/components/ui/theme';
 import { applyServerErrors } from './form-errors';
@@ -15,6 +16,7 @@ import { applyServerErrors } from './form-errors';
 /** Who you are to your group: the display name can change, the sign-in address cannot (here). */
 export function ProfileCard({ user }: { user: UserDto }) {
   const update = useUpdateMeMutation();
+  const toast = useToast();
   const [saved, setSaved] = useState(false);
   const [formError, setFormError] = useState<string | null>(null);
   const { control, handleSubmit, setError, reset, formState: { errors, isDirty } } = useForm({
@@ -29,6 +31,7 @@ export function ProfileCard({ user }: { user: UserDto }) {
       const me = await update.mutateAsync(values);
       reset({ displayName: me.user.displayName });
       setSaved(true);
+      toast('Saved: your display name.');
     } catch (error) {
       setFormError(applyServerErrors(error, setError, ['displayName']));
     }

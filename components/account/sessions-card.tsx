@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useRevokeSessionMutation, useSessionsQuery } from '@/lib/api/auth';
 import type { SessionDto } from '@/lib/schemas/auth';
@@ -5,6 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { AppText } from '@/components/ui/text';
+import { useToast } from '@/components/ui/toast';
 import { colors, radius, spacing } from '@/components/ui/theme';
 import { describeDevice, formatMoment } from './account-format';
 import { describeError } from './form-errors';
@@ -14,6 +16,12 @@ import { QueryContent } from './query-states';
 export function SessionsCard() {
   const sessions = useSessionsQuery();
   const revoke = useRevokeSessionMutation();
+  const toast = useToast();
+  const onRevoke = (session: SessionDto) =>
+    revoke.mutate(session.id, {
+      onSuccess: () => toast(`${describeDevice(session.userAgent)} was signed out.`),
+      onError: (error) => toast(`Not signed out: ${describeError(error)}`, 'error'),
+    });
   return (
     <Card title="Signed-in devices" testID="sessions-card">
       <QueryContent query={sessions} loadingLabel="Loading your sessions…" errorTitle="Your sessions could not be loaded" testID="sessions">
@@ -26,7 +34,7 @@ export function SessionsCard() {
                   key={session.id}
                   session={session}
                   revoking={revoke.isPending && revoke.variables === session.id}
-                  onRevoke={() => revoke.mutate(session.id)}
+                  onRevoke={() => onRevoke(session)}
                 />
               ))}
               {ordered.length === 1 ? (
@@ -44,6 +52,7 @@ export function SessionsCard() {
 }
 
 function SessionRow({ session, revoking, onRevoke }: { session: SessionDto; revoking: boolean; onRevoke: () => void }) {
+  const [confirming, setConfirming] = useState(false);
   return (
     <View style={StyleSheet.flatten([styles.row, session.current ? styles.rowCurrent : null])} testID={`session-row-${session.id}`}>
       <View style={styles.rowText}>
@@ -60,13 +69,27 @@ function SessionRow({ session, revoking, onRevoke }: { session: SessionDto; revo
           {session.ip ? ` · from ${session.ip}` : ''} · ends {formatMoment(session.expiresAt)}
         </AppText>
       </View>
-      {session.current ? null : (
+      {session.current ? null : confirming ? (
+        <View style={styles.confirm} testID={`session-revoke-confirm-${session.id}`}>
+          <AppText variant="caption">Sign out {describeDevice(session.userAgent)}? Whoever uses it will have to sign in again.</AppText>
+          <View style={styles.buttons}>
+            <Button
+              label={revoking ? 'Signing out…' : 'Yes, sign it out'}
+              accessibilityLabel={`Confirm: sign out ${describeDevice(session.userAgent)}`}
+              disabled={revoking}
+              onPress={onRevoke}
+              testID={`session-revoke-yes-${session.id}`}
+            />
+            <Button label="Cancel" kind="quiet" disabled={revoking} onPress={() => setConfirming(false)} testID={`session-revoke-no-${session.id}`} />
+          </View>
+        </View>
+      ) : (
         <Button
-          label={revoking ? 'Signing out…' : 'Sign out'}
+          label="Sign out"
           accessibilityLabel={`Sign out ${describeDevice(session.userAgent)}, signed in ${formatMoment(session.createdAt)}`}
           kind="quiet"
           disabled={revoking}
-          onPress={onRevoke}
+          onPress={() => setConfirming(true)}
           testID={`session-revoke-${session.id}`}
         />
       )}
@@ -87,7 +110,9 @@ const styles = StyleSheet.create({
     borderWidth: 1,
     borderColor: colors.line,
   },
-  rowCurrent: { borderColor: colors.accent, backgroundColor: '#F3F8F6' },
+  rowCurrent: { borderColor: colors.accent, backgroundColor: colors.accentSoft },
+  confirm: { gap: spacing.sm, flexBasis: '100%' },
+  buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
   rowText: { flex: 1, minWidth: 200, gap: 2 },
   rowHead: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
   device: { fontWeight: '600' },

@@ -3,6 +3,7 @@ import { describeError } from '@/components/account/form-errors';
 import { QueryContent } from '@/components/account/query-states';
 import { Card } from '@/components/ui/card';
 import { AppText } from '@/components/ui/text';
+import { useToast } from '@/components/ui/toast';
 import { colors, spacing } from '@/components/ui/theme';
 import { useMailPreferencesQuery, useUpdateMailPreferencesMutation } from '@/lib/api/exchange';
 import type { MeResponse } from '@/lib/schemas/auth';
@@ -13,6 +14,12 @@ import { roleAtLeast } from '@/lib/schemas/groups';
 export function MailPreferencesCard({ me }: { me: Pick<MeResponse, 'memberships'> }) {
   const query = useMailPreferencesQuery();
   const update = useUpdateMailPreferencesMutation();
+  const toast = useToast();
+  const save = (change: Partial<MailPreferences>) =>
+    update.mutate(change, {
+      onSuccess: () => toast('Saved: your e-mail choices.'),
+      onError: (error) => toast(`Not saved: ${describeError(error)}`, 'error'),
+    });
   const curator = me.memberships.some((m) => roleAtLeast(m.role, 'curator'));
   return (
     <Card title="E-mail" testID="mail-preferences">
@@ -23,7 +30,7 @@ export function MailPreferencesCard({ me }: { me: Pick<MeResponse, 'memberships'
               label="New submissions to review"
               detail={curator ? 'A message when an entry of your group is submitted for review.' : 'For curators and admins: you are not a curator in any group yet.'}
               value={prefs.reviewSubmissions}
-              onChange={(reviewSubmissions) => update.mutate({ reviewSubmissions })}
+              onChange={(reviewSubmissions) => save({ reviewSubmissions })}
               disabled={!curator}
               testID="mail-pref-submissions"
             />
@@ -31,7 +38,7 @@ export function MailPreferencesCard({ me }: { me: Pick<MeResponse, 'memberships'
               label="Decisions on my entries"
               detail="A message when a curator accepts, returns or declines something you submitted."
               value={prefs.reviewDecisions}
-              onChange={(reviewDecisions) => update.mutate({ reviewDecisions })}
+              onChange={(reviewDecisions) => save({ reviewDecisions })}
               testID="mail-pref-decisions"
             />
             {update.isError ? (

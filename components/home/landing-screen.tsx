@@ -1,7 +1,7 @@
 import { Link } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { usePreloadDeferredScreens } from '@/components/deferred/deferred';
-import { sections } from '@/components/shell/app-shell';
+import { useVisibleSections } from '@/components/shell/app-shell';
 import { NavGlyph } from '@/components/shell/nav-glyph';
 import { Card } from '@/components/ui/card';
 import { Screen } from '@/components/ui/screen';
@@ -14,6 +14,7 @@ export function LandingScreen() {
   const wide = useWideLayout();
   // Every door here but Check leads to the deferred screens: fetch them while the visitor reads.
   usePreloadDeferredScreens();
+  const sections = useVisibleSections();
   return (
     <Screen maxWidth={960}>
       <View style={styles.hero} testID="landing">

@@ -1,25 +1,36 @@
-import { Link } from 'expo-router';
+import { Link, usePathname } from 'expo-router';
 import { TabList, TabSlot, TabTrigger, Tabs, type TabTriggerSlotProps } from 'expo-router/ui';
 import { forwardRef } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
+import { useCanReview } from '@/lib/api/viewer';
+import { PageTitle } from '@/components/ui/page-title';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, spacing } from '@/components/ui/theme';
 import { useWideLayout } from '@/components/ui/use-wide-layout';
 import { NavGlyph, type NavGlyphName } from './nav-glyph';
+import { sectionTitleParts } from './section-title';
 
 interface Section {
   name: NavGlyphName;
   href: '/check' | '/route' | '/library' | '/review' | '/account';
   label: string;
   hint: string;
+  /** Offered only to people who curate or run a group (the route still answers everyone, and says why). */
+  curatorsOnly?: boolean;
+}
+
+/** The sections this visitor is offered: Review only for curators and admins. */
+export function useVisibleSections(): Section[] {
+  const canReview = useCanReview();
+  return sections.filter((section) => !section.curatorsOnly || canReview);
 }
 
 export const sections: Section[] = [
   { name: 'check', href: '/check', label: 'Check', hint: 'One complex: labile or inert' },
   { name: 'route', href: '/route', label: 'Route', hint: 'A redox pair and Marcus' },
   { name: 'library', href: '/library', label: 'Library', hint: 'The group’s cited data' },
-  { name: 'review', href: '/review', label: 'Review', hint: 'Curators’ queue' },
+  { name: 'review', href: '/review', label: 'Review', hint: 'Curators’ queue', curatorsOnly: true },
   { name: 'account', href: '/account', label: 'Account', hint: 'Sign-in and groups' },
 ];
 
@@ -30,8 +41,12 @@ export const sections: Section[] = [
 export function AppShell() {
   const wide = useWideLayout();
   const insets = useSafeAreaInsets();
+  const pathname = usePathname();
+  const visible = useVisibleSections();
   return (
     <Tabs style={StyleSheet.flatten([styles.root, wide ? styles.rootWide : null])}>
+      {/* The section's title; a screen that knows more (Check's formula) sets a deeper one that wins. */}
+      <PageTitle parts={sectionTitleParts(pathname)} />
       <TabSlot style={styles.slot} />
       <TabList asChild>
         <View
@@ -42,11 +57,16 @@ export function AppShell() {
           {wide ? <Brand /> : null}
           {/* The landing view is a route of the tab set but has no button of its own. */}
           <TabTrigger name="index" href="/" style={styles.hidden} />
-          {sections.map((section) => (
-            <TabTrigger key={section.name} name={section.name} href={section.href} asChild>
-              <NavItem section={section} wide={wide} />
-            </TabTrigger>
-          ))}
+          {sections.map((section) =>
+            visible.includes(section) ? (
+              <TabTrigger key={section.name} name={section.name} href={section.href} asChild>
+                <NavItem section={section} wide={wide} />
+              </TabTrigger>
+            ) : (
+              // The route stays part of the tab set (an address still opens it) without a button.
+              <TabTrigger key={section.name} name={section.name} href={section.href} style={styles.hidden} />
+            ),
+          )}
         </View>
       </TabList>
     </Tabs>

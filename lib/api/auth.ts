@@ -3,6 +3,7 @@ import { z } from 'zod';
 import {
   meResponseSchema,
   messageResponseSchema,
+  sessionStateResponseSchema,
   sessionsResponseSchema,
   type MeResponse,
   type MessageResponse,
@@ -16,7 +17,7 @@ import {
   type VerifyEmailInput,
 } from '@/lib/schemas/auth';
 import { devOutboxResponseSchema } from '@/lib/schemas/auth-forms';
-import { ApiError, apiRequest } from './api-client';
+import { apiRequest } from './api-client';
 
 /** Query keys for the signed-in person; everything else a person sees hangs off who they are. */
 export const authKeys = {
@@ -31,14 +32,13 @@ const noContentSchema = z.unknown();
 
 // ---- plain API functions ------------------------------------------------------------------------
 
-/** The signed-in person, or null when signed out (401 is an answer here, not a failure). */
+/**
+ * The signed-in person, or null when signed out. Asks /auth/session, which answers 200 either way, so a
+ * visitor's browser logs no failed request.
+ */
 export async function fetchMe(signal?: AbortSignal): Promise<MeResponse | null> {
-  try {
-    return await apiRequest('/auth/me', meResponseSchema, { signal });
-  } catch (error) {
-    if (error instanceof ApiError && error.code === 'UNAUTHENTICATED') return null;
-    throw error;
-  }
+  const { me } = await apiRequest('/auth/session', sessionStateResponseSchema, { signal });
+  return me;
 }
 
 export const signIn = (input: SignInInput) =>

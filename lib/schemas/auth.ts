@@ -89,6 +89,10 @@ export const meResponseSchema = z.object({
 });
 export type MeResponse = z.infer<typeof meResponseSchema>;
 
+/** GET /api/auth/session: the signed-in person, or null for a visitor (200 either way). */
+export const sessionStateResponseSchema = z.object({ me: meResponseSchema.nullable() });
+export type SessionStateResponse = z.infer<typeof sessionStateResponseSchema>;
+
 /** Answers that only carry a sentence for the person (sign-up, verify, reset). */
 export const messageResponseSchema = z.object({ message: z.string() });
 export type MessageResponse = z.infer<typeof messageResponseSchema>;

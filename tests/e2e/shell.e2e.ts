@@ -21,15 +21,18 @@ after(async () => {
 
 for (const size of Object.keys(viewports) as ViewportName[]) {
   describe(`the app shell at ${size} size`, () => {
-    it('shows the landing view, the five tabs and our shipped font, without horizontal scrolling', async () => {
+    it('shows the landing view, the four tabs a visitor may use and our shipped font, without horizontal scrolling', async () => {
       const page = await browser.newPage({ viewport: viewports[size] });
       const errors = collectPageErrors(page);
       await page.goto(`${baseUrl()}/`);
       await page.getByTestId('landing').waitFor();
       assert.ok(await page.getByRole('heading', { name: 'Sphereline' }).isVisible());
-      for (const tab of ['check', 'route', 'library', 'review', 'account']) {
+      for (const tab of ['check', 'route', 'library', 'account']) {
         assert.ok(await page.getByTestId(`nav-${tab}`).isVisible(), `tab ${tab} visible`);
       }
+      // Review is the curators' queue: a visitor is not offered a dead end.
+      assert.equal(await page.getByTestId('nav-review').count(), 0, 'no Review tab for a visitor');
+      assert.equal(await page.title(), 'Labile or inert, bridged or not — Sphereline');
       const navId = size === 'wide' ? 'nav-rail' : 'nav-bar';
       assert.ok(await page.getByTestId(navId).isVisible(), `${navId} is the navigation at ${size} size`);
       await page.evaluate(() => document.fonts.ready);

@@ -78,6 +78,14 @@ export function authRoutes(ctx: AccountsContext): Router {
     res.status(204).end();
   });
 
+  // For the app: who is signed in, if anyone. Signed out is an answer here (200 with `me: null`), not a
+  // failure, so a visitor's browser logs no error; /auth/me keeps its 401 for scripts.
+  router.get('/auth/session', async (req, res) => {
+    const current = await resolveAuth(req, res);
+    res.setHeader('Cache-Control', 'no-store');
+    res.json({ me: current ? auth.meFromSession(current.user) : null });
+  });
+
   router.get('/auth/me', requireAuth, async (_req, res) => {
     res.setHeader('Cache-Control', 'no-store');
     res.json(auth.meFromSession(getAuth(res).user));

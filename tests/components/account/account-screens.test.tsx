@@ -77,7 +77,7 @@ describe('MembersCard', () => {
     expect(onLeft).not.toHaveBeenCalled();
   });
 
-  it('changes a role with one tap on the picker', async () => {
+  it('changes a role only after a confirmation that says what changes', async () => {
     const { calls } = mockFetch({
       'PATCH /api/groups/g-1/members/u-viewer': {
         status: 200,
@@ -86,7 +86,39 @@ describe('MembersCard', () => {
     });
     renderWithQueries(<MembersCard detail={detail} myUserId="u-admin" onLeft={jest.fn()} />);
     fireEvent.press(screen.getByTestId('member-role-u-viewer-contributor'));
+    expect(screen.getByTestId('member-role-confirm-u-viewer')).toHaveTextContent(/Make K\. Visiting a contributor instead of a viewer\?/);
+    expect(calls.some((call) => call.method === 'PATCH')).toBe(false);
+    fireEvent.press(screen.getByTestId('member-role-yes-u-viewer'));
     await waitFor(() => expect(calls.some((call) => call.method === 'PATCH')).toBe(true));
     expect(calls.find((call) => call.method === 'PATCH')?.body).toEqual({ role: 'contributor' });
+  });
+});
+
+describe('MembersCard feedback', () => {
+  const detail: GroupDetail = {
+    id: 'g-2',
+    name: 'Larkspur Coordination Lab',
+    createdAt: '2026-11-02T09:00:00.000Z',
+    myRole: 'admin',
+    members: [
+      { userId: 'u-b', email: 'b@larkspur.example.org', displayName: 'Bram Osei', role: 'viewer', joinedAt: '2026-11-02T09:00:00.000Z' },
+      { userId: 'u-a', email: 'a@larkspur.example.org', displayName: 'Ama Lindqvist', role: 'admin', joinedAt: '2026-11-02T09:00:00.000Z' },
+    ],
+  };
+
+  it('keeps rows in name order whatever the roles, so a role change does not move the row', () => {
+    mockFetch({});
+    renderWithQueries(<MembersCard detail={detail} myUserId="u-a" onLeft={jest.fn()} />);
+    const ids = screen.getAllByTestId(/^member-row-/).map((row) => row.props.testID);
+    expect(ids).toEqual(['member-row-u-a', 'member-row-u-b']);
+  });
+
+  it('cancelling the confirmation sends nothing and puts the picker back', () => {
+    const { calls } = mockFetch({});
+    renderWithQueries(<MembersCard detail={detail} myUserId="u-a" onLeft={jest.fn()} />);
+    fireEvent.press(screen.getByTestId('member-role-u-b-curator'));
+    fireEvent.press(screen.getByTestId('member-role-no-u-b'));
+    expect(screen.queryByTestId('member-role-confirm-u-b')).toBeNull();
+    expect(calls).toEqual([]);
   });
 });
