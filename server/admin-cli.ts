@@ -41,7 +41,8 @@ async function main() {
     console.log(link);
   } finally {
     await orm.close(true);
-    if (cluster?.startedHere) await cluster.stop();
+    // Stops the private PostgreSQL unless a running server still uses it.
+    await cluster?.stop();
   }
 }
 

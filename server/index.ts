@@ -7,7 +7,7 @@ import { migrate, openOrm } from './db/orm';
 import { seedDemo } from './db/seed';
 import { developmentTools, registerDevelopmentTools } from './development-tools';
 import { readEnv } from './env';
-import { ClusterError } from './db/cluster';
+import { ClusterError, type PrivateCluster } from './db/cluster';
 import { DEMO_PASSWORD, demoAccounts } from './modules/auth/demo-accounts';
 import { demoAccountsWithDemoPassword } from './modules/auth/first-admin';
 import { createMailer } from './modules/mail/mailer';
@@ -17,6 +17,9 @@ const log = (line: string) => console.log(`[sphereline] ${line}`);
 
 /** A start-up refusal with a message that says what to do (printed without a stack). */
 class StartRefused extends Error {}
+
+/** The private PostgreSQL this start opened: stopped again if the start fails half-way. */
+let openedCluster: PrivateCluster | null = null;
 
 /**
  * Outside production: the local mail sink, fake S3 and fake DOI service of server/dev (their
@@ -42,6 +45,7 @@ async function main() {
   await ensureWebBuild(root, env.webDirAbsolute, log);
 
   const { url, cluster } = await resolveDatabase(env, log);
+  openedCluster = cluster;
   const orm = await openOrm(url);
   const applied = await migrate(orm);
   if (applied.length > 0) log(`Applied migrations: ${applied.join(', ')}`);
@@ -51,7 +55,6 @@ async function main() {
     const open = await demoAccountsWithDemoPassword(orm.em.fork());
     if (open.length > 0) {
       await orm.close(true);
-      if (cluster?.startedHere) await cluster.stop();
       throw new StartRefused(
         `Refusing to start in production: demo account(s) ${open.join(', ')} still open with the published demo password. ` +
           'Delete them or change their passwords, then start again.',
@@ -80,7 +83,11 @@ async function main() {
   console.log(`
   Sphereline is running at http://${env.HOST}:${port}/
   API health:              http://${env.HOST}:${port}/api/health
-  Database:                ${cluster ? `private PostgreSQL on 127.0.0.1:${cluster.port} (data in ${env.DATA_DIR}/postgres)` : 'DATABASE_URL'}
+  Database:                ${
+    cluster
+      ? `private PostgreSQL on 127.0.0.1:${cluster.port} (data in ${env.DATA_DIR}/postgres; ${cluster.adopted ? 'was already running, adopted' : 'started by this server'})`
+      : 'DATABASE_URL'
+  }
   E-mail:                  ${mailDestination}${developmentTools(env.NODE_ENV) && !env.SMTP_URL ? `\n  Outbox:                  http://${env.HOST}:${port}/api/dev/outbox` : ''}
 
 ${
@@ -101,15 +108,18 @@ ${
     await mailer.close();
     await changeFeed.stop();
     await orm.close(true);
+    // Stops the PostgreSQL this server started or adopted, unless another process still uses it (it says which).
     if (cluster) await cluster.stop();
     log('Stopped cleanly.');
     process.exit(0);
   };
-  process.on('SIGINT', () => void stop('SIGINT'));
-  process.on('SIGTERM', () => void stop('SIGTERM'));
+  // `npm start` runs this process in place of its shell (exec in package.json), so the SIGTERM or
+  // SIGINT that npm passes on arrives here; SIGHUP when the terminal closes.
+  for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(signal, () => void stop(signal));
 }
 
-main().catch((error: unknown) => {
+main().catch(async (error: unknown) => {
+  await openedCluster?.stop().catch(() => undefined);
   if (error instanceof ClusterError || error instanceof StartRefused || (error instanceof Error && error.name === 'EnvError')) {
     console.error(`[sphereline] ${error.message}`);
   } else {

@@ -15,9 +15,12 @@ const run = promisify(execFile);
 export interface PrivateCluster {
   url: string;
   port: number;
-  /** True when this process started the server (and so should stop it). */
+  /** True when this call started the server. */
   startedHere: boolean;
-  stop(): Promise<void>;
+  /** True when the server was already running and this call took it over (see `startPrivateCluster`). */
+  adopted: boolean;
+  /** Stops the server unless another live process still uses it; says which it did (and logs it). */
+  stop(): Promise<'stopped' | 'left-running'>;
 }
 
 interface ClusterConfig {
@@ -118,8 +121,77 @@ export async function ensureDatabase(adminUrl: string, database: string, templat
 }
 
 /**
+ * Who uses a cluster: one entry per open handle (this file, `in-use.json` beside `cluster.json`),
+ * with the process id that holds it. A handle stops the server only when no other live process
+ * holds one, so the last Sphereline process out stops it, and a server left running by a process
+ * that died (SIGKILL, a crash) is taken over by the next start and stopped when that one stops.
+ */
+interface UseRecord {
+  id: string;
+  pid: number;
+  since: string;
+}
+
+function processIsAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (error) {
+    // EPERM: it exists but belongs to another user.
+    return (error as NodeJS.ErrnoException).code === 'EPERM';
+  }
+}
+
+async function withUseRecords<T>(dir: string, change: (records: UseRecord[]) => { records: UseRecord[]; result: T }): Promise<T> {
+  const file = path.join(dir, 'in-use.json');
+  const lock = path.join(dir, 'in-use.lock');
+  const deadline = Date.now() + 10_000;
+  for (;;) {
+    try {
+      fs.writeFileSync(lock, String(process.pid), { flag: 'wx' });
+      break;
+    } catch (error) {
+      if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
+      // A lock older than a few seconds was left by a process that died while holding it.
+      const age = Date.now() - (fs.statSync(lock, { throwIfNoEntry: false })?.mtimeMs ?? Date.now());
+      if (age > 5_000 || Date.now() > deadline) fs.rmSync(lock, { force: true });
+      else await new Promise((resolve) => setTimeout(resolve, 25));
+    }
+  }
+  try {
+    let records: UseRecord[] = [];
+    try {
+      records = (JSON.parse(fs.readFileSync(file, 'utf8')) as { users?: UseRecord[] }).users ?? [];
+    } catch {
+      records = [];
+    }
+    const next = change(records.filter((record) => processIsAlive(record.pid)));
+    const temporary = `${file}.${process.pid}.tmp`;
+    fs.writeFileSync(temporary, JSON.stringify({ users: next.records }, null, 2));
+    fs.renameSync(temporary, file);
+    return next.result;
+  } finally {
+    fs.rmSync(lock, { force: true });
+  }
+}
+
+/** Rewrites the port our block of postgresql.conf sets (the last `port =` line wins in PostgreSQL). */
+function setConfiguredPort(pgData: string, port: number) {
+  const confFile = path.join(pgData, 'postgresql.conf');
+  const text = fs.readFileSync(confFile, 'utf8');
+  const lines = text.split('\n');
+  const last = lines.map((line, index) => (/^\s*port\s*=/.test(line) ? index : -1)).filter((index) => index >= 0).pop();
+  if (last === undefined) lines.push(`port = ${port}`);
+  else lines[last] = `port = ${port}`;
+  fs.writeFileSync(confFile, lines.join('\n'));
+}
+
+/**
  * Creates (once) and starts the cluster in `dir`. A second call on the same folder reuses the
- * cluster and its data; if it is already running it is used as it is and left running.
+ * cluster and its data. When the server is already running it is adopted: shared while another
+ * live process uses it (that one, or the last one out, stops it), taken over when the process
+ * that started it is gone (it stops with this handle). When the port kept in `cluster.json` has
+ * been taken by another program meanwhile, a free port is chosen and recorded, and it says so.
  */
 export async function startPrivateCluster(
   dir: string,
@@ -170,32 +242,74 @@ export async function startPrivateCluster(
     fs.writeFileSync(configFile, JSON.stringify(config, null, 2), { mode: 0o600 });
   }
 
+  const handle: UseRecord = { id: randomBytes(8).toString('hex'), pid: process.pid, since: new Date().toISOString() };
   let startedHere = false;
-  if (!(await isRunning(bin, pgData))) {
-    const portFree = (await findFreePort(config.port)) === config.port;
-    if (!portFree) {
-      throw new ClusterError(
-        `Port ${config.port} on 127.0.0.1 (kept in ${configFile}) is taken by another program; free it and start again.`,
+  let adopted = false;
+  // Register first, under the lock, so two starts at once agree on who started the server.
+  const othersAtStart = await withUseRecords(dir, (records) => ({
+    records: [...records, handle],
+    result: records.filter((record) => record.id !== handle.id),
+  }));
+  try {
+    if (!(await isRunning(bin, pgData))) {
+      const portFree = (await findFreePort(config.port)) === config.port;
+      if (!portFree) {
+        const taken = config.port;
+        config = { ...config, port: await findFreePort() };
+        setConfiguredPort(pgData, config.port);
+        fs.writeFileSync(configFile, JSON.stringify(config, null, 2), { mode: 0o600 });
+        log(`Port ${taken} on 127.0.0.1 (kept in ${configFile}) is taken by another program: PostgreSQL now uses port ${config.port}, recorded there.`);
+      }
+      log(`Starting PostgreSQL on 127.0.0.1:${config.port} …`);
+      const logFile = path.join(dir, 'postgres.log');
+      if (isRoot() && !fs.existsSync(logFile)) {
+        fs.writeFileSync(logFile, '');
+        chownToPostgres(logFile);
+      }
+      await runPgTool(bin, 'pg_ctl', ['-D', pgData, '-l', logFile, '-w', '-t', '60', 'start']);
+      startedHere = true;
+    } else {
+      adopted = true;
+      const pids = [...new Set(othersAtStart.map((record) => record.pid))];
+      const users = pids.map((pid) => (pid === process.pid ? 'this process' : `process ${pid}`)).join(', ');
+      log(
+        pids.length > 0
+          ? `PostgreSQL is already running on 127.0.0.1:${config.port}, in use by ${users}: sharing it; the last Sphereline process using it stops it.`
+          : `PostgreSQL was already running on 127.0.0.1:${config.port}, left by a process that is gone: adopted; it stops when this one stops.`,
       );
     }
-    log(`Starting PostgreSQL on 127.0.0.1:${config.port} …`);
-    const logFile = path.join(dir, 'postgres.log');
-    if (isRoot() && !fs.existsSync(logFile)) {
-      fs.writeFileSync(logFile, '');
-      chownToPostgres(logFile);
-    }
-    await runPgTool(bin, 'pg_ctl', ['-D', pgData, '-l', logFile, '-w', '-t', '60', 'start']);
-    startedHere = true;
+    await ensureDatabase(clusterUrl(config, 'postgres'), config.database);
+  } catch (error) {
+    await withUseRecords(dir, (records) => ({ records: records.filter((record) => record.id !== handle.id), result: null }));
+    if (startedHere) await runPgTool(bin, 'pg_ctl', ['-D', pgData, '-m', 'fast', '-w', 'stop']).catch(() => undefined);
+    throw error;
   }
-  await ensureDatabase(clusterUrl(config, 'postgres'), config.database);
 
+  let stopped: Promise<'stopped' | 'left-running'> | null = null;
+  const port = config.port;
   return {
     url: clusterUrl(config),
-    port: config.port,
+    port,
     startedHere,
-    async stop() {
-      if (!startedHere) return;
-      await runPgTool(bin, 'pg_ctl', ['-D', pgData, '-m', 'fast', '-w', 'stop']);
+    adopted,
+    stop() {
+      stopped ??= (async () => {
+        const remaining = await withUseRecords(dir, (records) => {
+          const others = records.filter((record) => record.id !== handle.id);
+          return { records: others, result: others };
+        });
+        if (remaining.length > 0) {
+          const pids = [...new Set(remaining.map((record) => record.pid))];
+          log(`PostgreSQL on 127.0.0.1:${port} keeps running: still used by ${pids.map((pid) => (pid === process.pid ? 'this process' : `process ${pid}`)).join(', ')}.`);
+          return 'left-running';
+        }
+        if (await isRunning(bin, pgData)) {
+          log(`Stopping PostgreSQL on 127.0.0.1:${port}${adopted ? ' (adopted at start)' : ''} …`);
+          await runPgTool(bin, 'pg_ctl', ['-D', pgData, '-m', 'fast', '-w', 'stop']);
+        }
+        return 'stopped';
+      })();
+      return stopped;
     },
   };
 }

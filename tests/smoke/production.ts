@@ -1,6 +1,6 @@
 /**
  * `npm run test:smoke`: the product as a production server starts it, on a fresh database.
- * Starts `server/index.ts` with NODE_ENV=production (its own private PostgreSQL under a temporary
+ * Runs `npm start` with NODE_ENV=production (its own private PostgreSQL under a temporary
  * DATA_DIR), then checks from outside: no demo sign-in works, the development outbox answers 404,
  * none of the development stand-ins runs (the server listens on its one port only, the DOI look-up
  * has no fake behind it), a forged Host is refused, the first-administrator command prints a link
@@ -94,8 +94,28 @@ function rawStatus(port: number, urlPath: string, host: string): Promise<number>
   });
 }
 
+/** The server process under `npm start` (npm's child: the start script execs it in place of the shell). */
+function serverProcessOf(npmPid: number): number | null {
+  for (const entry of fs.readdirSync('/proc')) {
+    if (!/^\d+$/.test(entry)) continue;
+    try {
+      const stat = fs.readFileSync(`/proc/${entry}/stat`, 'utf8');
+      // Fields after the command name (in parentheses): state, ppid, …
+      const ppid = Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[1]);
+      if (ppid === npmPid && /node/.test(fs.readFileSync(`/proc/${entry}/cmdline`, 'utf8'))) return Number(entry);
+    } catch {
+      // The process ended while we looked.
+    }
+  }
+  return null;
+}
+
 function startServer(env: NodeJS.ProcessEnv): Promise<{ child: ChildProcess; output: () => string }> {
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server/index.ts')], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
+  // `npm start` itself, so the signal the test sends takes the path an operator's does (npm → server).
+  const npmCli = process.env.npm_execpath;
+  const child = npmCli && npmCli.endsWith('.js')
+    ? spawn(process.execPath, [npmCli, 'start'], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] })
+    : spawn('npm', ['start'], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
   let output = '';
   child.stdout?.on('data', (chunk: Buffer) => (output += chunk.toString()));
   child.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
@@ -140,7 +160,9 @@ async function main() {
       const response = await fetch(`${base}${urlPath}`, { headers: { accept } });
       check(response.status === 404, `the development route ${urlPath} (${accept}) answers 404`);
     }
-    const ports = child.pid ? listeningPorts(child.pid) : [];
+    const serverPid = child.pid ? serverProcessOf(child.pid) : null;
+    check(serverPid !== null, 'npm start runs the server as its own child process');
+    const ports = serverPid ? listeningPorts(serverPid) : [];
     check(
       ports.length === 1 && ports[0] === port,
       `the server listens on its own port only — no mail sink, fake S3 or fake DOI service (found ${ports.join(', ') || 'none'})`,
@@ -156,6 +178,7 @@ async function main() {
       { cwd: root, env, encoding: 'utf8' },
     );
     check(admin.status === 0, admin.status === 0 ? 'npm run admin succeeds' : `npm run admin failed: ${admin.stderr.trim()}`);
+    check(/keeps running: still used by process/.test(admin.stderr), 'npm run admin shares the running server\'s PostgreSQL and leaves it running');
     const link = /https?:\/\/\S+\/reset-password\?token=\S+/.exec(admin.stdout)?.[0];
     check(link !== undefined, 'npm run admin prints a one-time link');
     const token = new URL(link ?? base).searchParams.get('token') ?? '';
@@ -178,7 +201,7 @@ async function main() {
     await mail.close();
   }
   const pidFile = path.join(dataDir, 'postgres', 'postmaster.pid');
-  check(!fs.existsSync(pidFile), 'stopping the server stopped the PostgreSQL it started');
+  check(!fs.existsSync(pidFile), 'SIGTERM to npm start stopped the server and the PostgreSQL it started');
   fs.rmSync(dataDir, { recursive: true, force: true });
   for (const line of checks) console.log(`ok  ${line}`);
   console.log(`production smoke test: ${checks.length} checks passed`);
