@@ -4,8 +4,8 @@ import { stringify } from 'csv-stringify/sync';
 import { classifyMany } from '@/lib/chem/classify';
 import { formulaProblemText } from '@/lib/chem/types';
 import { predictRoutes } from '@/lib/chem/route';
-import { formationRequestSchema, marcusRequestSchema } from '@/lib/schemas/chem';
-import { formation, marcus } from '@/server/modules/chem/chem.service';
+import { formationRequestSchema, marcusRequestSchema, sequenceRequestSchema } from '@/lib/schemas/chem';
+import { formation, marcus, sequence } from '@/server/modules/chem/chem.service';
 import { AppError } from '@/server/http/errors';
 
 const USAGE = `Sphereline command line
@@ -18,6 +18,10 @@ const USAGE = `Sphereline command line
   npm run --silent cli -- formation [--json] <metal complex> <entering ligand> [--I <M>] [--T <°C>] [--a <Å>]
         Eigen–Wilkins formation rate: {kf (M-1 s-1), Kos (M-1), kex (s-1), reasons[], published?}
         e.g. formation --json '[Ni(H2O)6]2+' NH3 --I 0.1
+  npm run --silent cli -- sequence [--json] <start complex> <ligand> [<ligand> …]
+        square-planar d8 substitution step by step (trans effect): {steps: [{entering, leaving, product,
+        isomer, reasons[]}], product, isomer}; write cis-/trans- before a start complex that has both,
+        e.g. sequence --json '[PtCl4]2-' NH3 NH3
 
 With --json each answer is one JSON object per line, in order; a formula that cannot be read gives
 {"formula": …, "error": …, "position": …} on its line and the others still run.`;
@@ -182,6 +186,25 @@ function formationCommand({ flags, positional }: ParsedArgs) {
   );
 }
 
+function sequenceCommand({ flags, positional }: ParsedArgs) {
+  const [start, ...ligands] = positional;
+  const request = sequenceRequestSchema.safeParse({ start, ligands });
+  if (!request.success) {
+    const issue = request.error.issues[0];
+    throw new UsageError(`${issue?.path.join('.') || 'input'}: ${issue?.message ?? 'invalid'} (sequence needs a start complex and at least one entering ligand)`);
+  }
+  const result = sequence(request.data);
+  if (flags.has('--json')) {
+    print(JSON.stringify(result));
+    return;
+  }
+  print(`${result.start.productLabel}`);
+  for (const step of result.steps) {
+    print(`  + ${step.entering}, − ${step.leaving} → ${step.productLabel}\n${step.reasons.map((reason) => `     - ${reason}`).join('\n')}`);
+  }
+  print(`Product: ${result.productLabel}\n${result.notes.map((note) => `   · ${note}`).join('\n')}`);
+}
+
 function main(argv: string[]): number {
   const [command, ...rest] = argv;
   try {
@@ -194,6 +217,7 @@ function main(argv: string[]): number {
     else if (command === 'route') routeCommand(args);
     else if (command === 'marcus') marcusCommand(args);
     else if (command === 'formation') formationCommand(args);
+    else if (command === 'sequence') sequenceCommand(args);
     else throw new UsageError(`Unknown command "${command}".`);
     return 0;
   } catch (error) {

@@ -93,3 +93,14 @@ it('formation with an unknown ligand exits 2 and says which ligand', async () =>
   expect(code).toBe(2);
   expect(stderr).toMatch(/XYZ/);
 });
+
+it('sequence --json prints {steps, product, isomer}: [PtCl4]2- + NO2⁻ then NH3 gives the trans isomer (Basolo & Pearson 1967)', async () => {
+  const { code, stdout } = await cli('sequence', '--json', '[PtCl4]2-', 'NO2', 'NH3');
+  expect(code).toBe(0);
+  const [answer] = jsonLines(stdout);
+  expect(answer?.isomer).toBe('trans');
+  expect(answer?.steps).toEqual([
+    expect.objectContaining({ entering: 'NO2', leaving: 'Cl', isomer: null, reasons: expect.any(Array) }),
+    expect.objectContaining({ entering: 'NH3', leaving: 'Cl', isomer: 'trans', reasons: expect.any(Array) }),
+  ]);
+});

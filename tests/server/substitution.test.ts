@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { apiErrorBodySchema } from '@/lib/schemas/errors';
-import { classificationSchema, formationResultSchema } from '@/lib/schemas/chem';
+import { classificationSchema, formationResultSchema, sequenceResultSchema } from '@/lib/schemas/chem';
 import { createTestApp, type TestApp } from '../setup/test-app';
 
 let testApp: TestApp;
@@ -55,5 +55,31 @@ describe('POST /api/formation', () => {
     const error = apiErrorBodySchema.parse(response.body).error;
     expect(error.code).toBe('VALIDATION_FAILED');
     if (field) expect(Object.keys(error.fields ?? {})).toContain(field);
+  });
+});
+
+describe('POST /api/sequence', () => {
+  it('[PtCl4]2- + NH3, NH3 → cis-[PtCl2(NH3)2] (Peyrone 1844, as in Basolo & Pearson 1967); [Pt(NH3)4]2+ + Cl, Cl → trans (Reiset 1844)', async () => {
+    const cis = sequenceResultSchema.parse((await post('/api/sequence', { start: '[PtCl4]2-', ligands: ['NH3', 'NH3'] })).body);
+    expect(cis.isomer).toBe('cis');
+    expect(cis.steps).toHaveLength(2);
+    expect(cis.steps[1]).toMatchObject({ entering: 'NH3', leaving: 'Cl', isomer: 'cis' });
+    const trans = sequenceResultSchema.parse((await post('/api/sequence', { start: '[Pt(NH3)4]2+', ligands: ['Cl', 'Cl'] })).body);
+    expect(trans.isomer).toBe('trans');
+  });
+
+  it.each([
+    [{ start: '[PtCl2(NH3)2]', ligands: ['py'] }, 'start'],
+    [{ start: '[Co(NH3)6]3+', ligands: ['Cl'] }, 'start'],
+    [{ start: '[PtCl4]2-', ligands: ['NH3', 'XYZ'] }, 'ligands[1]'],
+    [{ start: '[PtCl4]2-', ligands: [] }, 'ligands'],
+    [{ start: '[PtCl4]2-', ligands: 'NH3' }, 'ligands'],
+    [{ ligands: ['NH3'] }, 'start'],
+  ])('%j → 400 naming %s', async (body, field) => {
+    const response = await post('/api/sequence', body);
+    expect(response.status).toBe(400);
+    const error = apiErrorBodySchema.parse(response.body).error;
+    expect(error.code).toBe('VALIDATION_FAILED');
+    expect(Object.keys(error.fields ?? {}).join(' ')).toContain(field);
   });
 });

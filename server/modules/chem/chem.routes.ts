@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { classifyRequestSchema, formationRequestSchema, marcusRequestSchema, routeRequestSchema } from '@/lib/schemas/chem';
+import { classifyRequestSchema, formationRequestSchema, marcusRequestSchema, routeRequestSchema, sequenceRequestSchema } from '@/lib/schemas/chem';
 import type { Orm } from '@/server/db/orm';
 import { isUuid, resolveAuth } from '@/server/http/auth-middleware';
 import { AppError } from '@/server/http/errors';
@@ -33,6 +33,9 @@ export function chemRoutes(orm: Orm): Router {
   });
   router.post('/formation', (req, res) => {
     res.json(chem.formation(parseWith(formationRequestSchema, req.body)));
+  });
+  router.post('/sequence', (req, res) => {
+    res.json(chem.sequence(parseWith(sequenceRequestSchema, req.body)));
   });
   return router;
 }

@@ -8,8 +8,9 @@ import { formationRate, FormationInputError } from '@/lib/chem/formation';
 import { decideByLibrary, pickDecidingMeasurement } from '@/lib/chem/library-decision';
 import { marcusCrossRate, MarcusInputError, type MarcusInput } from '@/lib/chem/marcus';
 import { predictRoute, predictRoutes, RouteInputError } from '@/lib/chem/route';
+import { planSequence, SequenceInputError } from '@/lib/chem/sequence-planner';
 import { FormulaError, formulaProblemText, GeometryMismatchError, type Classification, type LibraryMeasurementRef } from '@/lib/chem/types';
-import type { ClassifyRequest, FormationRequest, MarcusRequest, RouteRequest } from '@/lib/schemas/chem';
+import type { ClassifyRequest, FormationRequest, MarcusRequest, RouteRequest, SequenceRequest } from '@/lib/schemas/chem';
 import { AppError } from '@/server/http/errors';
 import { ligandSetKeyOf } from '@/server/modules/library/derive';
 import { findLibraryCandidates } from '@/server/modules/library/measured.service';
@@ -127,6 +128,23 @@ export function formation(request: FormationRequest) {
         'VALIDATION_FAILED',
         `The ${field === 'complex' ? 'complex' : field === 'ligand' ? 'entering ligand' : field} cannot be used: ${error.message}`,
         { [field]: error.message },
+        error.position !== null ? { position: error.position } : undefined,
+      );
+    }
+    throw error;
+  }
+}
+
+/** The square-planar sequence plan; input errors become 400s naming the start or the ligand at fault. */
+export function sequence(request: SequenceRequest) {
+  try {
+    return planSequence(request.start, request.ligands);
+  } catch (error) {
+    if (error instanceof SequenceInputError) {
+      throw new AppError(
+        'VALIDATION_FAILED',
+        `The ${error.field === 'start' ? 'start complex' : 'entering ligands'} cannot be used: ${error.message}`,
+        { [error.field]: error.message },
         error.position !== null ? { position: error.position } : undefined,
       );
     }
