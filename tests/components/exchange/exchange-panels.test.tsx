@@ -20,7 +20,7 @@ jest.mock('@/components/exchange/file-picker', () => {
 
 /**
  * Laurenczy, Rapaport, Zbinden & Merbach, Magn. Reson. Chem. 1991, 29, S45-S51, DOI 10.1002/mrc.1260291311
- * (the record as given in the water-exchange reference notes, also in server/modules/metadata/fake-works.json).
+ * (the record as given in data/measured-rates.json, also in server/dev/fake-works.json).
  */
 const laurenczyRecord = {
   doi: '10.1002/mrc.1260291311',
