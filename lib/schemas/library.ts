@@ -326,6 +326,33 @@ export const createComplexInputSchema = z
   .strict();
 export type CreateComplexInput = z.infer<typeof createComplexInputSchema>;
 
+/**
+ * One measurement of a whole-entry save: with the `id` of a stored measurement it replaces that
+ * one; without, it is added. Stored measurements missing from the save are removed.
+ */
+export const entryMeasurementInputSchema = z
+  .object({ ...measurementFields, id: z.uuid('id must be the id of a measurement of this entry.').optional() })
+  .strict()
+  .superRefine(checkMeasurement);
+export type EntryMeasurementInput = z.infer<typeof entryMeasurementInputSchema>;
+
+/**
+ * PUT /api/complexes/:id — the whole entry as the person wants it, based on `version`. The server
+ * diffs it against the stored entry and writes one revision in one transaction.
+ */
+export const saveComplexInputSchema = z
+  .object({
+    version: z.number({ error: 'Give the version you edited (from the entry you loaded).' }).int().min(1),
+    formula: formulaTextSchema,
+    name: complexNameSchema,
+    notes: shortText('Notes', 4000).nullish(),
+    measurements: z.array(entryMeasurementInputSchema).max(100, 'At most 100 measurements in one entry.'),
+    /** Added to the history line after the summary the server writes ("Corrected the temperature"). */
+    message: shortText('Message', 500).optional(),
+  })
+  .strict();
+export type SaveComplexInput = z.infer<typeof saveComplexInputSchema>;
+
 export const updateComplexInputSchema = z
   .object({
     /** The version the edit is based on (from the last GET); a stale one → 409 with error.current. */

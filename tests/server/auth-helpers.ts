@@ -55,6 +55,7 @@ export class Browser {
   get = (path: string) => this.send('get', path);
   post = (path: string, body?: unknown) => this.send('post', path, body ?? {});
   patch = (path: string, body?: unknown) => this.send('patch', path, body ?? {});
+  put = (path: string, body?: unknown) => this.send('put', path, body ?? {});
   delete = (path: string) => this.send('delete', path);
 
   async signIn(email: string, password: string) {

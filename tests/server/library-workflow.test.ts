@@ -278,7 +278,7 @@ describe('revisions and diffs', () => {
 
     const revisions = revisionsResponseSchema.parse((await w.author.get(`/api/complexes/${entry.id}/revisions`)).body).revisions;
     expect(revisions.map((r) => r.number)).toEqual([4, 3, 2, 1]);
-    expect(revisions[2]!.message).toBe('Named the salt');
+    expect(revisions[2]!.message).toBe('Renamed — Named the salt');
 
     const diff = revisionDiffSchema.parse((await w.author.get(`/api/complexes/${entry.id}/revisions/diff?from=1&to=4`)).body);
     expect(diff.fields).toEqual([{ field: 'name', before: 'hexaaquachromium(III)', after: 'hexaaquachromium(III) perchlorate' }]);

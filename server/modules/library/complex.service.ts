@@ -8,6 +8,8 @@ import {
   type ComplexSnapshot,
   type ComplexStatus,
   type CreateComplexInput,
+  type EntryMeasurementInput,
+  type SaveComplexInput,
   type Measurement as MeasurementDto,
   type MeasurementInput,
   type ReviewInput,
@@ -43,6 +45,7 @@ import { Measurement } from './measurement.entity';
 import { ComplexReview } from './review.entity';
 import { ComplexRevision, type RevisionKind } from './revision.entity';
 import { diffSnapshots } from './revision-diff';
+import { noChanges, summariseChanges, summariseCreation, type EntryChanges } from './change-summary';
 import { emitLibraryEvent } from './library-events';
 
 /**
@@ -173,7 +176,8 @@ interface ChangePlan {
   set: ColumnChanges;
   /** Measurement and other row changes, inside the transaction, after the version guard. */
   apply?: (tem: EntityManager, newVersion: number) => Promise<void>;
-  revision: { kind: RevisionKind; message: string };
+  /** The history line; a function when it depends on what `apply` found. */
+  revision: { kind: RevisionKind; message: string | (() => string) };
   audit?: { action: string; details: Record<string, unknown> };
   /** Runs with the fresh snapshot (e.g. acceptance stores it as the accepted snapshot). */
   withSnapshot?: (tem: EntityManager, snapshot: ComplexSnapshot, newVersion: number) => Promise<void>;
@@ -212,7 +216,7 @@ async function commit(em: EntityManager, actor: Actor, complex: ComplexEntity, b
         number: newVersion,
         kind: plan.revision.kind,
         status: snapshot.status,
-        message: plan.revision.message,
+        message: typeof plan.revision.message === 'function' ? plan.revision.message() : plan.revision.message,
         snapshot,
         authorId: actor.userId,
         createdAt: new Date(),
@@ -257,18 +261,6 @@ function reopenIfApproved(entry: LoadedEntry): { set: ColumnChanges; audit?: Cha
 }
 
 // ───────────────────────────── measurements (shared by create and the nested routes) ─────────────────────────────
-
-interface MeasurementValues {
-  kind: MeasurementDto['kind'];
-  value: number;
-  unit: string;
-  temperatureK: number | null;
-  ionicStrengthM: number | null;
-  medium: string | null;
-  method: string | null;
-  partnerFormula: string | null;
-  notes: string | null;
-}
 
 function checkPartner(partnerFormula: string | null | undefined, field: string) {
   if (partnerFormula) classifyOrExplain(partnerFormula, field);
@@ -354,7 +346,7 @@ export async function createComplex(em: EntityManager, actor: Actor, input: Crea
       number: 1,
       kind: 'create',
       status: 'draft',
-      message: 'Created',
+      message: summariseCreation((input.measurements ?? []).map((m) => m.kind)),
       snapshot,
       authorId: actor.userId,
       createdAt: now,
@@ -376,44 +368,147 @@ export async function getComplex(em: EntityManager, actor: Actor, id: string): P
   return respond(em, actor, id);
 }
 
-export async function updateComplex(em: EntityManager, actor: Actor, id: string, input: UpdateComplexInput): Promise<ComplexDetail> {
+/** A stored measurement as a whole-entry save states it (used by the single-change routes below). */
+function asEntryInput(m: MeasurementDto): EntryMeasurementInput {
+  return {
+    id: m.id,
+    kind: m.kind,
+    value: m.value,
+    unit: m.unit,
+    temperatureK: m.temperatureK,
+    ionicStrengthM: m.ionicStrengthM,
+    medium: m.medium,
+    method: m.method,
+    partnerFormula: m.partnerFormula,
+    citationId: m.citation?.id ?? null,
+    notes: m.notes,
+  };
+}
+
+const sameValue = (a: unknown, b: unknown) => (a ?? null) === (b ?? null);
+
+class NothingChanged extends Error {}
+
+/**
+ * Saves the whole entry as the person wants it (PUT /api/complexes/:id): one transaction, guarded
+ * by the version the edit is based on, that writes only what differs — the entry's columns, and
+ * measurements added, changed or removed — then one revision with a one-line summary in words and
+ * at most one audit event. A save that changes nothing writes nothing and returns the entry.
+ */
+export async function saveComplex(em: EntityManager, actor: Actor, id: string, input: SaveComplexInput): Promise<ComplexDetail> {
   const entry = await loadEntry(em, actor, id);
   ensureAllowed(entry, 'edit');
+  input.measurements.forEach((m, i) => checkPartner(m.partnerFormula, `measurements.${i}.partnerFormula`));
   const basedOn = await basedOnVersion(em, actor, entry, input.version);
   const { complex } = entry;
-  const formula = input.formula ?? complex.formula;
-  const name = input.name ?? complex.name;
+  const notes = input.notes ?? null;
+  const changes: EntryChanges = {
+    formula: input.formula !== complex.formula,
+    name: input.name !== complex.name,
+    notes: !sameValue(notes, complex.notes),
+    added: [],
+    changed: [],
+    removed: [],
+  };
   const set: ColumnChanges = {};
-  if (input.formula !== undefined) set.formula = input.formula;
-  if (input.name !== undefined) set.name = input.name;
-  if (input.notes !== undefined) set.notes = input.notes ?? null;
-  if (input.formula !== undefined || input.name !== undefined) Object.assign(set, deriveColumns(formula, name));
+  if (changes.formula) set.formula = input.formula;
+  if (changes.name) set.name = input.name;
+  if (changes.notes) set.notes = notes;
+  if (changes.formula || changes.name) Object.assign(set, deriveColumns(input.formula, input.name));
   const reopen = reopenIfApproved(entry);
-  await commit(em, actor, complex, basedOn, {
-    set: { ...set, ...reopen.set },
-    revision: { kind: 'edit', message: input.message ?? 'Edited' },
-    audit: reopen.audit,
-  });
+  try {
+    await commit(em, actor, complex, basedOn, {
+      set: { ...set, ...reopen.set },
+      apply: async (tem) => {
+        const stored = await tem.find(Measurement, { complexId: id });
+        const storedById = new Map(stored.map((m) => [m.id, m]));
+        const kept = new Set<string>();
+        for (const [i, m] of input.measurements.entries()) {
+          const prefix = `measurements.${i}.`;
+          const existing = m.id ? storedById.get(m.id) : undefined;
+          if (m.id && (!existing || kept.has(m.id))) {
+            throw new AppError('VALIDATION_FAILED', 'A measurement names an id that is not one of this entry’s measurements.', {
+              [`${prefix}id`]: 'Not a measurement of this entry (leave the id out to add a new one).',
+            });
+          }
+          if (!existing) {
+            await insertMeasurement(tem, id, complex.groupId, actor, m, prefix);
+            changes.added.push(m.kind);
+            continue;
+          }
+          kept.add(existing.id);
+          const citationId = (await citationIdFor(tem, complex.groupId, actor, m, prefix)) ?? null;
+          const next = {
+            kind: m.kind,
+            value: m.value,
+            unit: m.unit as MeasurementDto['unit'],
+            temperatureK: m.temperatureK ?? null,
+            ionicStrengthM: m.ionicStrengthM ?? null,
+            medium: m.medium ?? null,
+            method: m.method ?? null,
+            partnerFormula: m.partnerFormula ?? null,
+            citationId,
+            notes: m.notes ?? null,
+          };
+          const differs = (Object.keys(next) as (keyof typeof next)[]).some((key) =>
+            key === 'value' ? Number(existing.value) !== next.value : !sameValue(existing[key], next[key]),
+          );
+          if (!differs) continue;
+          await tem.nativeUpdate(Measurement, { id: existing.id }, { ...next, updatedAt: new Date() });
+          changes.changed.push(m.kind);
+        }
+        const removed = stored.filter((m) => !kept.has(m.id));
+        if (removed.length) await tem.nativeDelete(Measurement, { id: { $in: removed.map((m) => m.id) } });
+        changes.removed.push(...removed.map((m) => m.kind));
+        // Roll back the version bump: a save with no differences is not a revision.
+        if (noChanges(changes)) throw new NothingChanged();
+      },
+      revision: {
+        kind: 'edit',
+        message: () => [summariseChanges(changes), input.message?.trim()].filter(Boolean).join(' — ').slice(0, 500),
+      },
+      audit: reopen.audit,
+    });
+  } catch (error) {
+    if (!(error instanceof NothingChanged)) throw error;
+  }
   return respond(em, actor, id);
 }
 
+/** The entry's stored content as a whole-entry save, for the single-change routes below. */
+async function storedAsSave(em: EntityManager, entry: LoadedEntry, version: number | undefined): Promise<SaveComplexInput> {
+  const { complex } = entry;
+  return {
+    version: version ?? complex.version,
+    formula: complex.formula,
+    name: complex.name,
+    notes: complex.notes ?? null,
+    measurements: (await measurementsOf(em, complex.id)).map(asEntryInput),
+  };
+}
+
+/** PATCH /api/complexes/:id — some fields of the entry; saved as a whole entry. */
+export async function updateComplex(em: EntityManager, actor: Actor, id: string, input: UpdateComplexInput): Promise<ComplexDetail> {
+  const entry = await loadEntry(em, actor, id);
+  const base = await storedAsSave(em, entry, input.version);
+  return saveComplex(em, actor, id, {
+    ...base,
+    formula: input.formula ?? base.formula,
+    name: input.name ?? base.name,
+    notes: input.notes !== undefined ? input.notes ?? null : base.notes,
+    ...(input.message ? { message: input.message } : {}),
+  });
+}
+
+/** POST /api/complexes/:id/measurements — one more measurement; saved as a whole entry. */
 export async function addMeasurement(em: EntityManager, actor: Actor, id: string, input: MeasurementInput): Promise<ComplexDetail> {
   const entry = await loadEntry(em, actor, id);
-  ensureAllowed(entry, 'edit');
-  checkPartner(input.partnerFormula, 'partnerFormula');
-  const basedOn = await basedOnVersion(em, actor, entry, input.version);
-  const reopen = reopenIfApproved(entry);
-  await commit(em, actor, entry.complex, basedOn, {
-    set: reopen.set,
-    apply: async (tem) => {
-      await insertMeasurement(tem, id, entry.complex.groupId, actor, input);
-    },
-    revision: { kind: 'edit', message: `Added a ${input.kind} measurement` },
-    audit: reopen.audit,
-  });
-  return respond(em, actor, id);
+  const { version, ...measurement } = input;
+  const base = await storedAsSave(em, entry, version);
+  return saveComplex(em, actor, id, { ...base, measurements: [...base.measurements, measurement] });
 }
 
+/** PATCH /api/complexes/:id/measurements/:mid — some fields of one measurement; saved as a whole entry. */
 export async function updateMeasurement(
   em: EntityManager,
   actor: Actor,
@@ -422,45 +517,18 @@ export async function updateMeasurement(
   input: UpdateMeasurementInput,
 ): Promise<ComplexDetail> {
   const entry = await loadEntry(em, actor, id);
-  ensureAllowed(entry, 'edit');
-  const existing = await em.findOne(Measurement, { id: measurementId, complexId: id });
+  const { version, ...patch } = input;
+  const base = await storedAsSave(em, entry, version);
+  const existing = base.measurements.find((m) => m.id === measurementId);
   if (!existing) throw notFound('That measurement');
-  const merged: MeasurementValues = {
-    kind: input.kind ?? existing.kind,
-    value: input.value ?? Number(existing.value),
-    unit: input.unit ?? existing.unit,
-    temperatureK: input.temperatureK !== undefined ? input.temperatureK ?? null : existing.temperatureK ?? null,
-    ionicStrengthM: input.ionicStrengthM !== undefined ? input.ionicStrengthM ?? null : existing.ionicStrengthM ?? null,
-    medium: input.medium !== undefined ? input.medium ?? null : existing.medium ?? null,
-    method: input.method !== undefined ? input.method ?? null : existing.method ?? null,
-    partnerFormula: input.partnerFormula !== undefined ? input.partnerFormula ?? null : existing.partnerFormula ?? null,
-    notes: input.notes !== undefined ? input.notes ?? null : existing.notes ?? null,
-  };
+  const merged = Object.fromEntries(Object.entries({ ...existing, ...patch }).filter(([, v]) => v !== undefined)) as EntryMeasurementInput;
+  // A new citation replaces the stored link.
+  if (patch.citation !== undefined) delete merged.citationId;
   parseWith(measurementCheckSchema, merged);
-  checkPartner(merged.partnerFormula, 'partnerFormula');
-  const basedOn = await basedOnVersion(em, actor, entry, input.version);
-  const reopen = reopenIfApproved(entry);
-  await commit(em, actor, entry.complex, basedOn, {
-    set: reopen.set,
-    apply: async (tem) => {
-      const citationId = await citationIdFor(tem, entry.complex.groupId, actor, input, '');
-      await tem.nativeUpdate(
-        Measurement,
-        { id: measurementId },
-        {
-          ...merged,
-          unit: merged.unit as MeasurementDto['unit'],
-          ...(citationId !== undefined ? { citationId } : {}),
-          updatedAt: new Date(),
-        },
-      );
-    },
-    revision: { kind: 'edit', message: `Changed a ${merged.kind} measurement` },
-    audit: reopen.audit,
-  });
-  return respond(em, actor, id);
+  return saveComplex(em, actor, id, { ...base, measurements: base.measurements.map((m) => (m.id === measurementId ? merged : m)) });
 }
 
+/** DELETE /api/complexes/:id/measurements/:mid — saved as a whole entry without it. */
 export async function deleteMeasurement(
   em: EntityManager,
   actor: Actor,
@@ -469,20 +537,9 @@ export async function deleteMeasurement(
   version: number | undefined,
 ): Promise<ComplexDetail> {
   const entry = await loadEntry(em, actor, id);
-  ensureAllowed(entry, 'edit');
-  const existing = await em.findOne(Measurement, { id: measurementId, complexId: id });
-  if (!existing) throw notFound('That measurement');
-  const basedOn = await basedOnVersion(em, actor, entry, version);
-  const reopen = reopenIfApproved(entry);
-  await commit(em, actor, entry.complex, basedOn, {
-    set: reopen.set,
-    apply: async (tem) => {
-      await tem.nativeDelete(Measurement, { id: measurementId });
-    },
-    revision: { kind: 'edit', message: `Removed a ${existing.kind} measurement` },
-    audit: reopen.audit,
-  });
-  return respond(em, actor, id);
+  const base = await storedAsSave(em, entry, version);
+  if (!base.measurements.some((m) => m.id === measurementId)) throw notFound('That measurement');
+  return saveComplex(em, actor, id, { ...base, measurements: base.measurements.filter((m) => m.id !== measurementId) });
 }
 
 // ───────────────────────────── workflow ─────────────────────────────

@@ -8,6 +8,7 @@ import {
   measuredQuerySchema,
   measurementInputSchema,
   reviewInputSchema,
+  saveComplexInputSchema,
   transitionInputSchema,
   updateComplexInputSchema,
   updateMeasurementInputSchema,
@@ -70,6 +71,12 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
 
   router.get('/complexes/:id', requireAuth, async (req, res) => {
     res.json(await complexes.getComplex(em(), actor(res), pathId(req, 'id', 'That library entry')));
+  });
+
+  // The whole entry, based on a version: the one way the app saves an edit.
+  router.put('/complexes/:id', requireAuth, async (req, res) => {
+    const id = pathId(req, 'id', 'That library entry');
+    res.json(await complexes.saveComplex(em(), actor(res), id, parseWith(saveComplexInputSchema, req.body)));
   });
 
   router.patch('/complexes/:id', requireAuth, async (req, res) => {
