@@ -24,9 +24,11 @@ import {
   blankMeasurement,
   complexFormSchema,
   createInputFromForm,
+  describeFormChanges,
+  formFromEntry,
+  saveInputFromForm,
   type ComplexFormValues,
 } from '@/lib/schemas/library-forms';
-import { describeSteps, editSteps, formFromEntry } from './edit-steps';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { metalLabel } from './library-format';
 import { MeasurementFields } from './measurement-fields';
@@ -128,13 +130,12 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
   const router = useRouter();
   const editing = openedOn !== null;
   const [base, setBase] = useState<ComplexDetail | null>(openedOn);
-  const [removedIds, setRemovedIds] = useState<string[]>([]);
   const [conflict, setConflict] = useState<{ current: ComplexDetail; changes: string[] } | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
   const create = useCreateComplexMutation();
   const save = useSaveComplexMutation(openedOn?.id ?? '');
-  const { control, handleSubmit, setError, setValue, reset, getValues, clearErrors } = useForm<ComplexFormValues>({
+  const { control, handleSubmit, setError, setValue, reset, clearErrors } = useForm<ComplexFormValues>({
     resolver: zodResolver(complexFormSchema),
     defaultValues: openedOn
       ? formFromEntry(openedOn)
@@ -163,17 +164,17 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
         router.replace(`/library/${entry.id}`);
         return;
       }
-      const steps = editSteps(base, values, removedIds);
-      if (steps.length === 0) {
-        setNotice('Nothing has changed since the entry was opened, so there is nothing to save.');
-        return;
-      }
+      const input = saveInputFromForm(values, base);
       try {
-        const entry = await save.mutateAsync({ baseVersion: base.version, steps });
+        const entry = await save.mutateAsync(input);
+        if (entry.version === base.version) {
+          setNotice('Nothing has changed since the entry was opened, so there is nothing to save.');
+          return;
+        }
         router.replace(`/library/${entry.id}`);
       } catch (error) {
         if (error instanceof StaleVersionError) {
-          setConflict({ current: error.current, changes: describeSteps(steps) });
+          setConflict({ current: error.current, changes: describeFormChanges(values, base) });
           return;
         }
         throw error;
@@ -187,8 +188,6 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
   const reapply = () => {
     if (!conflict) return;
     const { current } = conflict;
-    const stillThere = new Set(current.measurements.map((m) => m.id));
-    setRemovedIds((ids) => ids.filter((id) => stillThere.has(id)));
     setBase(current);
     setConflict(null);
     clearErrors();
@@ -198,15 +197,10 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
     if (!conflict) return;
     setBase(conflict.current);
     reset(formFromEntry(conflict.current));
-    setRemovedIds([]);
     setConflict(null);
     setNotice(`Loaded version ${conflict.current.version}; your changes were dropped.`);
   };
-  const removeRow = (index: number) => {
-    const id = getValues(`measurements.${index}.id`);
-    if (id) setRemovedIds((ids) => [...ids, id]);
-    measurements.remove(index);
-  };
+  const removeRow = (index: number) => measurements.remove(index);
 
   return (
     <Screen maxWidth={880}>

@@ -21,12 +21,10 @@ import {
   type ComplexListResponse,
   type ComplexSearchQuery,
   type CreateComplexInput,
-  type MeasurementInput,
   type ReviewInput,
   type ReviewResponse,
   type TransitionInput,
-  type UpdateComplexInput,
-  type UpdateMeasurementInput,
+  type SaveComplexInput,
 } from '@/lib/schemas/library';
 import { ApiError, apiErrorFrom, apiRequest } from './api-client';
 
@@ -125,13 +123,6 @@ async function versionedRequest<T>(path: string, schema: z.ZodType<T>, init: { m
   return schema.parse(payload);
 }
 
-/** Re-labels a step's field problems so they land on the right form row ("value" → "measurements.2.value"). */
-function withFieldPrefix(error: unknown, prefix: string): unknown {
-  if (!(error instanceof ApiError) || error instanceof StaleVersionError || !prefix) return error;
-  const fields = Object.fromEntries(Object.entries(error.fields).map(([key, message]) => [`${prefix}${key}`, message]));
-  return new ApiError(error.status, error.code, error.message, fields);
-}
-
 // ---- plain API functions ------------------------------------------------------------------------
 
 const entryPath = (id: string) => `/complexes/${encodeURIComponent(id)}`;
@@ -148,25 +139,9 @@ export function createComplex(input: CreateComplexInput): Promise<ComplexDetail>
   return apiRequest('/complexes', complexDetailSchema, { method: 'POST', body: input });
 }
 
-export function updateComplex(id: string, input: UpdateComplexInput): Promise<ComplexDetail> {
-  return versionedRequest(entryPath(id), complexDetailSchema, { method: 'PATCH', body: input });
-}
-
-export function addMeasurement(id: string, input: MeasurementInput): Promise<ComplexDetail> {
-  return versionedRequest(`${entryPath(id)}/measurements`, complexDetailSchema, { method: 'POST', body: input });
-}
-
-export function updateMeasurement(id: string, measurementId: string, input: UpdateMeasurementInput): Promise<ComplexDetail> {
-  return versionedRequest(`${entryPath(id)}/measurements/${encodeURIComponent(measurementId)}`, complexDetailSchema, {
-    method: 'PATCH',
-    body: input,
-  });
-}
-
-export function deleteMeasurement(id: string, measurementId: string, version: number): Promise<ComplexDetail> {
-  return versionedRequest(`${entryPath(id)}/measurements/${encodeURIComponent(measurementId)}?version=${version}`, complexDetailSchema, {
-    method: 'DELETE',
-  });
+/** Saves the whole entry (one request, one revision); a stale version throws StaleVersionError. */
+export function saveComplex(id: string, input: SaveComplexInput): Promise<ComplexDetail> {
+  return versionedRequest(entryPath(id), complexDetailSchema, { method: 'PUT', body: input });
 }
 
 export function submitComplex(id: string, input: TransitionInput = {}): Promise<ComplexDetail> {
@@ -198,45 +173,6 @@ export async function fetchLigands(groupId: string | null, signal?: AbortSignal)
   const query = groupId ? `?groupId=${encodeURIComponent(groupId)}` : '';
   const { ligands } = await apiRequest(`/ligands${query}`, ligandsResponseSchema, { signal });
   return ligands;
-}
-
-/** One step of saving an edited entry; `fieldPrefix` points server field problems at the form row. */
-export type EditStep =
-  | { kind: 'update-entry'; input: Omit<UpdateComplexInput, 'version'> }
-  | { kind: 'add-measurement'; input: Omit<MeasurementInput, 'version'>; fieldPrefix: string }
-  | { kind: 'update-measurement'; measurementId: string; input: Omit<UpdateMeasurementInput, 'version'>; fieldPrefix: string }
-  | { kind: 'delete-measurement'; measurementId: string };
-
-/**
- * Saves an edit as a chain of versioned changes (entry fields, then each measurement): every step
- * names the version the previous one produced, so a change by someone else in between is a 409.
- * Returns the entry after the last step (or the current entry when there was nothing to save).
- */
-export async function saveComplexEdits(id: string, baseVersion: number, steps: readonly EditStep[]): Promise<ComplexDetail> {
-  let version = baseVersion;
-  let latest: ComplexDetail | null = null;
-  for (const step of steps) {
-    try {
-      switch (step.kind) {
-        case 'update-entry':
-          latest = await updateComplex(id, { ...step.input, version });
-          break;
-        case 'add-measurement':
-          latest = await addMeasurement(id, { ...step.input, version });
-          break;
-        case 'update-measurement':
-          latest = await updateMeasurement(id, step.measurementId, { ...step.input, version });
-          break;
-        case 'delete-measurement':
-          latest = await deleteMeasurement(id, step.measurementId, version);
-          break;
-      }
-    } catch (error) {
-      throw withFieldPrefix(error, 'fieldPrefix' in step ? step.fieldPrefix : '');
-    }
-    version = latest.version;
-  }
-  return latest ?? fetchComplex(id);
 }
 
 // ---- cache rules ----------------------------------------------------------------------------------
@@ -330,16 +266,13 @@ export function useCreateComplexMutation() {
   });
 }
 
+/** The one place a stale save (409) is handled: the cache takes the entry as it is now. */
 export function useSaveComplexMutation(id: string) {
   const client = useQueryClient();
-  return useMutation<ComplexDetail, Error, { baseVersion: number; steps: readonly EditStep[] }>({
-    mutationFn: ({ baseVersion, steps }) => saveComplexEdits(id, baseVersion, steps),
+  return useMutation<ComplexDetail, Error, SaveComplexInput>({
+    mutationFn: (input) => saveComplex(id, input),
     onSuccess: (entry) => entryChanged(client, entry),
-    onError: (error) => {
-      rememberCurrent(client, error);
-      // Earlier steps may have been saved before a later one failed: reload what is there now.
-      if (!(error instanceof StaleVersionError)) void client.invalidateQueries({ queryKey: complexKeys.detail(id) });
-    },
+    onError: (error) => rememberCurrent(client, error),
   });
 }
 

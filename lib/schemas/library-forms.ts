@@ -6,11 +6,12 @@ import {
   measurementKindSchema,
   type Citation,
   type CitationInput,
+  type ComplexDetail,
   type CreateComplexInput,
   type Measurement,
   type MeasurementInput,
   type MeasurementKind,
-  type UpdateMeasurementInput,
+  type SaveComplexInput,
 } from './library';
 
 /**
@@ -192,40 +193,62 @@ export const complexFormSchema = complexFormShape.superRefine((values, ctx) => {
   }
 });
 
-/** The measurement as the server holds it, in the PATCH shape, to tell which rows changed. */
-function comparable(input: Omit<MeasurementInput, 'version'>) {
-  return JSON.stringify([
-    input.kind,
-    input.value,
-    input.unit,
-    input.temperatureK ?? null,
-    input.ionicStrengthM ?? null,
-    input.medium ?? null,
-    input.method ?? null,
-    input.partnerFormula ?? null,
-    input.notes ?? null,
-  ]);
-}
-
 function sameCitation(row: CitationFormValues, stored: Citation | null): boolean {
   return JSON.stringify(citationFromForm(row)) === JSON.stringify(citationFromForm(citationToForm(stored)));
 }
 
+/** The form as it starts from a stored entry. */
+export function formFromEntry(entry: ComplexDetail): ComplexFormValues {
+  return {
+    groupId: entry.groupId,
+    formula: entry.formula,
+    name: entry.name,
+    notes: entry.notes ?? '',
+    message: '',
+    measurements: entry.measurements.map(measurementToForm),
+  };
+}
+
 /**
- * What changed in one existing measurement, as a PATCH body (null when nothing did). An untouched
- * citation is left out; a cleared one is unlinked; an edited one is sent in full.
+ * The body of PUT /api/complexes/:id: the whole entry as the form holds it, based on `base`.
+ * Rows keep their measurement id; an untouched citation stays linked by id, an edited one is sent
+ * in full (the server finds it again by DOI), a cleared one is dropped.
  */
-export function measurementPatch(row: MeasurementFormValues, stored: Measurement): Omit<UpdateMeasurementInput, 'version'> | null {
-  const next = measurementFromForm(row);
-  const storedInput = measurementFromForm(measurementToForm(stored));
-  const valuesChanged = comparable(next) !== comparable(storedInput);
-  const citationChanged = !sameCitation(row.citation, stored.citation);
-  if (!valuesChanged && !citationChanged) return null;
-  const { citation, ...fields } = next;
-  const patch: Omit<UpdateMeasurementInput, 'version'> = { ...fields };
-  if (citationChanged) {
-    if (citation) patch.citation = citation;
-    else patch.citationId = null;
+export function saveInputFromForm(values: ComplexFormValues, base: ComplexDetail): SaveComplexInput {
+  const stored = new Map(base.measurements.map((m) => [m.id, m]));
+  const message = values.message.trim();
+  return {
+    version: base.version,
+    formula: values.formula.trim(),
+    name: values.name.trim(),
+    notes: blankToNull(values.notes),
+    measurements: values.measurements.map((row) => {
+      const { citation, ...fields } = measurementFromForm(row);
+      const before = row.id ? stored.get(row.id) : undefined;
+      const keepLink = before?.citation && sameCitation(row.citation, before.citation);
+      return {
+        ...(before ? { id: before.id } : {}),
+        ...fields,
+        ...(keepLink ? { citationId: before.citation!.id } : { citation }),
+      };
+    }),
+    ...(message ? { message } : {}),
+  };
+}
+
+/** One line per change the form holds against `base`, for the person to check after a conflict. */
+export function describeFormChanges(values: ComplexFormValues, base: ComplexDetail): string[] {
+  const lines: string[] = [];
+  if (values.formula.trim() !== base.formula) lines.push(`Formula → ${values.formula.trim()}`);
+  if (values.name.trim() !== base.name) lines.push(`Name → “${values.name.trim()}”`);
+  if ((blankToNull(values.notes) ?? null) !== (base.notes ?? null)) lines.push('Notes changed');
+  const kept = new Set(values.measurements.map((row) => row.id).filter(Boolean));
+  for (const row of values.measurements) {
+    const label = measurementKindRules[row.kind].label.toLowerCase();
+    if (!row.id) lines.push(`Add a ${label} measurement (${row.value} ${row.unit})`);
   }
-  return patch;
+  for (const m of base.measurements) {
+    if (!kept.has(m.id)) lines.push(`Remove the ${measurementKindRules[m.kind].label.toLowerCase()} measurement`);
+  }
+  return lines;
 }

@@ -99,12 +99,12 @@ describe('ComplexFormScreen (edit)', () => {
     const opened = detail({ version: 3 });
     const current = detail({ version: 4, name: 'hexaaquachromium(III) ion', updatedAt: '2026-01-06T09:30:00.000Z' });
     const saved = detail({ version: 5, name: 'chromium(III) hexahydrate' });
-    let patches = 0;
+    let saves = 0;
     const { calls } = mockFetch({
       'GET /api/auth/me': { status: 200, body: contributorMe },
       'GET /api/complexes/c-cr-aqua': { status: 200, body: opened },
-      'PATCH /api/complexes/c-cr-aqua': () =>
-        patches++ === 0
+      'PUT /api/complexes/c-cr-aqua': () =>
+        saves++ === 0
           ? { status: 409, body: { error: { code: 'CONFLICT', message: 'This entry was changed by someone else.', currentVersion: 4, current } } }
           : { status: 200, body: saved },
     });
@@ -121,11 +121,13 @@ describe('ComplexFormScreen (edit)', () => {
     fireEvent.press(screen.getByTestId('complex-conflict-reapply'));
     fireEvent.press(screen.getByTestId('complex-form-save'));
     await waitFor(() => expect(routerCalls.replace).toHaveBeenCalledWith('/library/c-cr-aqua'));
-    const patchBodies = calls.filter((c) => c.method === 'PATCH').map((c) => c.body);
-    expect(patchBodies).toEqual([
-      { name: 'chromium(III) hexahydrate', version: 3 },
-      { name: 'chromium(III) hexahydrate', version: 4 },
+    // One request per save, each the whole entry on top of the version it is based on.
+    const saveBodies = calls.filter((c) => c.method === 'PUT').map((c) => c.body as { name: string; version: number });
+    expect(saveBodies.map((b) => [b.name, b.version])).toEqual([
+      ['chromium(III) hexahydrate', 3],
+      ['chromium(III) hexahydrate', 4],
     ]);
+    expect(calls.filter((c) => c.method !== 'GET' && c.method !== 'PUT')).toEqual([]);
   });
 
   it('can drop the change and load the current version instead', async () => {
@@ -133,7 +135,7 @@ describe('ComplexFormScreen (edit)', () => {
     mockFetch({
       'GET /api/auth/me': { status: 200, body: contributorMe },
       'GET /api/complexes/c-cr-aqua': { status: 200, body: detail({ version: 3 }) },
-      'PATCH /api/complexes/c-cr-aqua': { status: 409, body: { error: { code: 'CONFLICT', message: 'Stale.', currentVersion: 4, current } } },
+      'PUT /api/complexes/c-cr-aqua': { status: 409, body: { error: { code: 'CONFLICT', message: 'Stale.', currentVersion: 4, current } } },
     });
     renderWithQueries(<ComplexFormScreen mode="edit" complexId="c-cr-aqua" />);
     fireEvent.changeText(await screen.findByTestId('complex-form-name'), 'my name');
@@ -143,16 +145,18 @@ describe('ComplexFormScreen (edit)', () => {
     expect(screen.queryByTestId('complex-conflict')).toBeNull();
   });
 
-  it('saves a removed measurement as a versioned delete', async () => {
+  it('saves a removed measurement as the whole entry without it, in one request', async () => {
     const { calls } = mockFetch({
       'GET /api/auth/me': { status: 200, body: contributorMe },
       'GET /api/complexes/c-cr-aqua': { status: 200, body: detail({ version: 3 }) },
-      'DELETE /api/complexes/c-cr-aqua/measurements/m-1': { status: 200, body: detail({ version: 4, measurements: [] }) },
+      'PUT /api/complexes/c-cr-aqua': { status: 200, body: detail({ version: 4, measurements: [] }) },
     });
     renderWithQueries(<ComplexFormScreen mode="edit" complexId="c-cr-aqua" />);
     fireEvent.press(await screen.findByTestId('complex-form-m-0-remove'));
     fireEvent.press(screen.getByTestId('complex-form-save'));
     await waitFor(() => expect(routerCalls.replace).toHaveBeenCalledWith('/library/c-cr-aqua'));
-    expect(calls.find((c) => c.method === 'DELETE')?.url).toBe('/api/complexes/c-cr-aqua/measurements/m-1?version=3');
+    const writes = calls.filter((c) => c.method !== 'GET');
+    expect(writes).toHaveLength(1);
+    expect(writes[0]!.body).toMatchObject({ version: 3, measurements: [] });
   });
 });
