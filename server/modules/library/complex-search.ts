@@ -29,7 +29,8 @@ import { membershipsOf, type MembershipInfo } from './library-access';
  * the entry. Rank (0–1) is the mean over tokens: 1 for a metal or a whole word, 0.9 for the start
  * of a word, 0.7 inside a word (word similarity in the typo pass) — cheap string tests.
  * Filters combine with AND. Order: rank desc then id (with text), name then id (without).
- * Visibility is part of the SQL (see library-access.ts): viewers get accepted snapshots only.
+ * Visibility is part of the SQL (searchSource): restricted readers search, filter and see the
+ * accepted snapshot (the `published_*` columns), authors and curators the working copy.
  *
  * Totals are exact up to SEARCH_COUNT_CAP (1 000) matches, or up to the end of the page asked
  * for if that is deeper; past it the reply says `totalIsLowerBound` (the list reads "1,000+").
@@ -45,7 +46,7 @@ import { membershipsOf, type MembershipInfo } from './library-access';
  * - the typo pass and 3+ text words rank every match and sort (the `single-pass` strategy,
  *   which tests and the bench also use as the reference for the same results).
  * Only the page's rows (≤ 100) are then read from the table (pageOf). Indexes: migrations
- * 20261230 (`complex_search_cover`, `is_published`) and 20261231.
+ * 20261230 (`complex_search_cover`, `is_published`) and 20261231; their published twins 20270136.
  */
 
 interface Row {
@@ -95,38 +96,60 @@ const csv = (ids: readonly string[]) => ids.join(',');
 const inGroups = (ids: readonly string[]) =>
   ids.length === 1 ? frag('c.group_id = ?::uuid', ids[0]) : frag(`c.group_id = any(string_to_array(?, ',')::uuid[])`, csv(ids));
 
+/** The columns a search reads, under the same names in both copies (see `searchSource`). */
+const WORKING_COLUMNS = `c.id, c.group_id, c.name, c.status, c.metal, c.oxidation_state, c.d_electrons, c.verdict,
+  c.ligand_ids, c.measurement_kinds, c.has_citation, c.search_text, true as full_view`;
+const PUBLISHED_COLUMNS = `c.id, c.group_id, c.published_name as name, 'accepted'::varchar(20) as status, c.published_metal as metal,
+  c.published_oxidation_state as oxidation_state, c.published_d_electrons as d_electrons, c.published_verdict as verdict,
+  c.published_ligand_ids as ligand_ids, c.published_measurement_kinds as measurement_kinds, c.published_has_citation as has_citation,
+  c.published_search_text as search_text, false as full_view`;
+
 /**
- * "This reader sees the working copy" and "sees this entry at all", written per role so that a
- * reader with one role (the usual case) gets a plain condition the covering index answers:
- * curators and admins see every entry of their groups, contributors their own plus published
- * ones, viewers published ones only (`is_published`: accepted snapshot, not retired).
+ * What this reader searches: the rows they see, each with the copy they see. Curators and admins
+ * see the working copy of every entry of their groups, contributors the working copy of their own
+ * entries, and everyone (contributors for the entries of others, viewers for all) the accepted
+ * snapshot of published entries (`is_published`: accepted snapshot, not retired), through its
+ * `published_*` columns (migration 20270136). So a word that exists only in a pending edit finds
+ * nothing for them, and the accepted name does. Both parts read under the same column names, so
+ * the text terms, filters and orders below are written once; a reader with one role (the usual
+ * case) gets one part, a plain condition its indexes answer; a contributor gets a UNION ALL that
+ * PostgreSQL plans as an append of the two index scans (merged in order when a page is read in
+ * name order).
  */
-function visibility(memberships: readonly MembershipInfo[], userId: string) {
+export function searchSource(memberships: readonly MembershipInfo[], userId: string): Fragment {
   const curatorGroups = memberships.filter((m) => roleAtLeast(m.role, 'curator')).map((m) => m.groupId);
   const contributorGroups = memberships.filter((m) => m.role === 'contributor').map((m) => m.groupId);
   const viewerGroups = memberships
     .filter((m) => !roleAtLeast(m.role, 'curator') && m.role !== 'contributor')
     .map((m) => m.groupId);
-  const fullParts: Fragment[] = [];
-  const visibleParts: Fragment[] = [];
-  if (curatorGroups.length > 0) {
-    fullParts.push(inGroups(curatorGroups));
-    visibleParts.push(inGroups(curatorGroups));
-  }
+  const workingParts: Fragment[] = [];
+  const publishedParts: Fragment[] = [];
+  if (curatorGroups.length > 0) workingParts.push(inGroups(curatorGroups));
   if (contributorGroups.length > 0) {
     const groups = inGroups(contributorGroups);
-    fullParts.push(frag(`(${groups.sql} and c.created_by_id = ?)`, ...groups.params, userId));
-    visibleParts.push(frag(`(${groups.sql} and (c.created_by_id = ? or c.is_published))`, ...groups.params, userId));
+    workingParts.push(frag(`(${groups.sql} and c.created_by_id = ?::uuid)`, ...groups.params, userId));
+    publishedParts.push(frag(`(${groups.sql} and c.is_published and c.created_by_id is distinct from ?::uuid)`, ...groups.params, userId));
   }
   if (viewerGroups.length > 0) {
     const groups = inGroups(viewerGroups);
-    visibleParts.push(frag(`(${groups.sql} and c.is_published)`, ...groups.params));
+    publishedParts.push(frag(`(${groups.sql} and c.is_published)`, ...groups.params));
   }
-  const or = (parts: Fragment[]) => (parts.length === 0 ? frag('false') : parts.length === 1 ? parts[0]! : (() => {
+  const or = (parts: Fragment[]) => {
     const joined = joinFragments(parts, ' or ');
-    return frag(`(${joined.sql})`, ...joined.params);
-  })());
-  return { full: or(fullParts), visible: or(visibleParts) };
+    return parts.length === 1 ? joined : frag(`(${joined.sql})`, ...joined.params);
+  };
+  const selects: Fragment[] = [];
+  if (workingParts.length > 0) {
+    const where = or(workingParts);
+    selects.push(frag(`select ${WORKING_COLUMNS} from complex c where ${where.sql}`, ...where.params));
+  }
+  if (publishedParts.length > 0) {
+    const where = or(publishedParts);
+    selects.push(frag(`select ${PUBLISHED_COLUMNS} from complex c where ${where.sql}`, ...where.params));
+  }
+  if (selects.length === 0) return frag('(select null::uuid as id where false)');
+  const union = joinFragments(selects, ' union all ');
+  return frag(`(${union.sql})`, ...union.params);
 }
 
 /** Elements that are never the central metal: their symbols stay text tokens. */
@@ -313,11 +336,11 @@ async function runSearch(
   fuzzy: boolean,
   strategy: SearchStrategy,
 ): Promise<ComplexListResponse> {
-  const vis = visibility(memberships, userId);
-  const effectiveStatus = frag(`(case when ${vis.full.sql} then c.status else 'accepted' end)`, ...vis.full.params);
-  // Scope and visibility, then the filters; the text terms separately, because a rank level's
-  // condition (rankLevels) stands in for them.
-  const filters: Fragment[] = [inGroups(memberships.map((m) => m.groupId)), vis.visible];
+  // Scope, visibility and which copy each row is searched by live in the source; here the filters,
+  // and the text terms separately, because a rank level's condition (rankLevels) stands in for them.
+  const source = searchSource(memberships, userId);
+  const from = (alias = 'c') => `${source.sql} ${alias}`;
+  const filters: Fragment[] = [frag('true')];
   if (query.metal) filters.push(frag('c.metal = ?', query.metal));
   if (query.oxidationState !== undefined) filters.push(frag('c.oxidation_state = ?', query.oxidationState));
   if (query.dCount !== undefined) filters.push(frag('c.d_electrons = ?', query.dCount));
@@ -325,7 +348,7 @@ async function runSearch(
   if (query.ligand) filters.push(frag('c.ligand_ids @> array[?]::text[]', query.ligand));
   if (query.measurementKind) filters.push(frag('c.measurement_kinds @> array[?]::text[]', query.measurementKind));
   if (query.hasCitation !== undefined) filters.push(frag('c.has_citation = ?', query.hasCitation));
-  if (query.status) filters.push(frag(`${effectiveStatus.sql} = ?`, ...effectiveStatus.params, query.status));
+  if (query.status) filters.push(frag('c.status = ?', query.status));
   const filterCondition = joinFragments(filters, ' and ');
 
   let rank = frag('null::real');
@@ -342,7 +365,7 @@ async function runSearch(
   // Totals are counted up to the cap (or the end of this page), not to the last match.
   const countLimit = Math.max(SEARCH_COUNT_CAP, offset + query.pageSize);
   const answer = (matches: number, ids: readonly string[]) =>
-    pageOf(em, ids, vis.full, rank).then((items) => ({
+    pageOf(em, ids, source, rank).then((items) => ({
       items,
       total: Math.min(matches, countLimit),
       totalIsLowerBound: matches > countLimit,
@@ -356,11 +379,11 @@ async function runSearch(
     const [walk] = await em.execute<{ n: string | number; ids: string[] | null }[]>(
       `with walk as materialized (
          select c.id, row_number() over (order by lower(c.name) asc, c.id asc) as n
-           from complex c where ${condition.sql}
+           from ${from()} where ${condition.sql}
           order by lower(c.name) asc, c.id asc limit ?)
        select (select count(*) from walk) as n,
               array(select w.id::text from walk w where w.n > ? order by w.n limit ?) as ids`,
-      [...condition.params, countLimit + 1, offset, query.pageSize],
+      [...source.params, ...condition.params, countLimit + 1, offset, query.pageSize],
     );
     return answer(Number(walk?.n ?? 0), walk?.ids ?? []);
   }
@@ -368,8 +391,8 @@ async function runSearch(
   const countUpTo = async (limit: number) => {
     // `limit` stops the scan: at most `limit` matches are visited.
     const [row] = await em.execute<{ n: string | number }[]>(
-      `select count(*) as n from (select 1 from complex c where ${condition.sql} limit ?) x`,
-      [...condition.params, limit],
+      `select count(*) as n from (select 1 from ${from()} where ${condition.sql} limit ?) x`,
+      [...source.params, ...condition.params, limit],
     );
     return Number(row?.n ?? 0);
   };
@@ -398,8 +421,8 @@ async function runSearch(
       const levelCondition = frag(`${filterCondition.sql} and ${level.where.sql}`, ...filterCondition.params, ...level.where.params);
       const [probe] = await em.execute<{ n: string | number; ids: string[] | null }[]>(
         `select count(*) as n, (array_agg(x.id::text order by x.id))[1:?] as ids
-           from (select c.id from complex c where ${levelCondition.sql} limit ?) x`,
-        [needed, ...levelCondition.params, countLimit + 1],
+           from (select c.id from ${from()} where ${levelCondition.sql} limit ?) x`,
+        [needed, ...source.params, ...levelCondition.params, countLimit + 1],
       );
       const size = Number(probe?.n ?? 0);
       matches += size;
@@ -408,8 +431,8 @@ async function runSearch(
         found.push(...(probe?.ids ?? []));
       } else {
         const rows = await em.execute<{ id: string }[]>(
-          `select c.id from complex c where ${levelCondition.sql} order by c.id asc limit ?`,
-          [...levelCondition.params, needed],
+          `select c.id from ${from()} where ${levelCondition.sql} order by c.id asc limit ?`,
+          [...source.params, ...levelCondition.params, needed],
         );
         found.push(...rows.map((r) => r.id));
       }
@@ -422,15 +445,18 @@ async function runSearch(
   const matches = counted ?? (await countUpTo(countLimit + 1));
   if (matches <= offset) return answer(matches, []);
   const rows = await em.execute<{ id: string }[]>(
-    `select h.id from (select c.id, ${rank.sql} as rank from complex c where ${condition.sql}) h
+    `select h.id from (select c.id, ${rank.sql} as rank from ${from()} where ${condition.sql}) h
       order by h.rank desc, h.id asc limit ? offset ?`,
-    [...rank.params, ...condition.params, query.pageSize, offset],
+    [...rank.params, ...source.params, ...condition.params, query.pageSize, offset],
   );
   return answer(matches, rows.map((r) => r.id));
 }
 
-/** The list items for the page's ids, in that order: snapshot, measurement count, author and rank for these rows only. */
-async function pageOf(em: EntityManager, ids: readonly string[], fullView: Fragment, rank: Fragment): Promise<ComplexListItem[]> {
+/**
+ * The list items for the page's ids, in that order: snapshot, measurement count, author and rank
+ * for these rows only. The source says which copy the reader sees and ranks each row by.
+ */
+async function pageOf(em: EntityManager, ids: readonly string[], source: Fragment, rank: Fragment): Promise<ComplexListItem[]> {
   if (ids.length === 0) return [];
   const sql = `
     select c.id, c.group_id, c.formula, c.name, c.status, c.metal, c.oxidation_state, c.d_electrons, c.spin_state,
@@ -443,10 +469,10 @@ async function pageOf(em: EntityManager, ids: readonly string[], fullView: Fragm
            v.rank
       from unnest(string_to_array(?, ',')::uuid[]) with ordinality as p(id, ord)
       join complex c on c.id = p.id
-      cross join lateral (select ${fullView.sql} as full_view, ${rank.sql} as rank) v
+      join lateral (select c.full_view, ${rank.sql} as rank from ${source.sql} c where c.id = p.id) v on true
       left join app_user u on u.id = c.created_by_id
      order by p.ord`;
-  const rows = await em.execute<Row[]>(sql, [csv(ids), ...fullView.params, ...rank.params]);
+  const rows = await em.execute<Row[]>(sql, [csv(ids), ...rank.params, ...source.params]);
   return rows.map(toListItem);
 }
 
