@@ -68,7 +68,7 @@ it('fills the published columns from the accepted snapshot, never from a pending
         `select id, published_name, published_metal, published_oxidation_state, published_d_electrons, published_verdict, published_ligand_ids,
                 published_measurement_kinds, published_has_citation, published_search_text from complex`,
       )
-    ).rows.map((r: { id: string }) => [r.id, r]),
+    ).rows.map((r: { id: string; published_search_text: string | null }) => [r.id, r]),
   );
   expect(rows.get(plain)).toMatchObject({
     published_name: 'hexaaquachromium(III)',
@@ -81,7 +81,7 @@ it('fills the published columns from the accepted snapshot, never from a pending
     published_has_citation: true,
     published_search_text: 'cr h2o 6 3 hexaaquachromium iii cr chromium iii h2o aqua',
   });
-  const pending = rows.get(renamed);
+  const pending = rows.get(renamed)!;
   expect(pending).toMatchObject({
     published_name: 'hexaaquachromium(III) stock',
     published_metal: 'Cr',
@@ -89,7 +89,7 @@ it('fills the published columns from the accepted snapshot, never from a pending
     published_has_citation: false,
   });
   // The engine's words for the snapshot (element name, ligand name), none of the pending edit's.
-  expect(pending.published_search_text.split(' ')).toEqual(expect.arrayContaining(['hexaaquachromium', 'stock', 'chromium', 'aqua']));
+  expect(pending.published_search_text?.split(' ')).toEqual(expect.arrayContaining(['hexaaquachromium', 'stock', 'chromium', 'aqua']));
   expect(pending.published_search_text).not.toMatch(/quillwort|nickel|ammine/);
   expect(rows.get(draft)).toMatchObject({ published_name: null, published_search_text: null, published_metal: null });
 
