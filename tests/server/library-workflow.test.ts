@@ -141,16 +141,29 @@ describe('workflow transitions by role and status (table-driven)', () => {
   });
 });
 
-describe('curators cannot accept their own submission', () => {
+describe('four eyes: curators cannot accept what they submitted or wrote', () => {
   it('refuses when another curator (or admin) exists', async () => {
     const entry = await createEntry(w.curator, w.groupId);
     expect((await w.curator.post(`/api/complexes/${entry.id}/submit`)).status).toBe(200);
     const own = await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept' });
     expect(own.status).toBe(409);
-    expect(apiErrorBodySchema.parse(own.body).error.message).toMatch(/own submission/);
+    expect(apiErrorBodySchema.parse(own.body).error.message).toMatch(/submitted or helped write/);
     const other = await w.admin.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept' });
     expect(other.status).toBe(201);
     expect(reviewResponseSchema.parse(other.body).review.selfAccepted).toBe(false);
+  });
+
+  it('refuses a curator who edited a contributor’s draft, though the contributor submitted it', async () => {
+    const entry = await createEntry(w.author, w.groupId);
+    expect((await w.curator.patch(`/api/complexes/${entry.id}`, { version: entry.version, notes: 'ionic strength added by the curator' })).status).toBe(200);
+    expect((await w.author.post(`/api/complexes/${entry.id}/submit`)).status).toBe(200);
+    const asSeen = complexDetailSchema.parse((await w.curator.get(`/api/complexes/${entry.id}`)).body);
+    expect(asSeen.permissions.canReview).toBe(false);
+    const own = await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept' });
+    expect(own.status).toBe(409);
+    // Returning it for revision stays open to them; another curator may accept.
+    expect(complexDetailSchema.parse((await w.admin.get(`/api/complexes/${entry.id}`)).body).permissions.canReview).toBe(true);
+    expect((await w.admin.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept' })).status).toBe(201);
   });
 
   it('allows it for the group’s only curator and records it in the audit event', async () => {

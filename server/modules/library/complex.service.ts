@@ -111,6 +111,17 @@ async function workingSnapshot(em: EntityManager, complex: ComplexEntity): Promi
   return toSnapshot(complex, await measurementsOf(em, complex.id));
 }
 
+/**
+ * Four eyes: did this person submit the revision in review, or write any change since the last
+ * accepted version (creation included)? Editing someone's draft counts as writing it.
+ */
+async function wroteRevisionInReview(em: EntityManager, complex: ComplexEntity, userId: string): Promise<boolean> {
+  if (complex.submittedById === userId) return true;
+  const since = complex.acceptedVersion ?? 0;
+  const written = await em.count(ComplexRevision, { complexId: complex.id, authorId: userId, kind: { $in: ['create', 'edit'] }, number: { $gt: since } });
+  return written > 0;
+}
+
 /** The entry as this reader may see it (working copy or accepted snapshot), with what they may do. */
 export async function detailFor(em: EntityManager, complex: ComplexEntity, reader: Reader): Promise<ComplexDetail> {
   const view = viewFor(reader, facts(complex)) ?? 'published';
@@ -118,8 +129,8 @@ export async function detailFor(em: EntityManager, complex: ComplexEntity, reade
   const content: ComplexSnapshot = view === 'published' && accepted ? accepted : await workingSnapshot(em, complex);
   const latest = await em.findOne(ComplexReview, { complexId: complex.id }, { orderBy: { createdAt: 'desc', id: 'desc' } });
   const people = await peopleNames(em, [complex.createdById, complex.submittedById, latest?.reviewerId]);
-  const ownSubmission = complex.status === 'in-review' && complex.submittedById === reader.userId && roleAtLeast(reader.role, 'curator');
-  const curators = ownSubmission ? await reviewerCount(em, complex.groupId) : 2;
+  const ownContent = complex.status === 'in-review' && roleAtLeast(reader.role, 'curator') && (await wroteRevisionInReview(em, complex, reader.userId));
+  const curators = ownContent ? await reviewerCount(em, complex.groupId) : 2;
   const pending = accepted != null && complex.status !== 'accepted' && complex.status !== 'retired';
   const working = view === 'working';
   return {
@@ -137,7 +148,7 @@ export async function detailFor(em: EntityManager, complex: ComplexEntity, reade
     createdAt: complex.createdAt.toISOString(),
     updatedAt: complex.updatedAt.toISOString(),
     myRole: reader.role,
-    permissions: permissionsFor(reader, facts(complex), curators),
+    permissions: permissionsFor(reader, facts(complex), curators, ownContent),
     latestReview:
       working && latest
         ? {
@@ -587,12 +598,12 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
   ensureAllowed(entry, 'review');
   const { complex } = entry;
   let selfAccepted = false;
-  if (input.decision === 'accept' && complex.submittedById === actor.userId) {
+  if (input.decision === 'accept' && (await wroteRevisionInReview(em, complex, actor.userId))) {
     const reviewers = await reviewerCount(em, complex.groupId);
     if (reviewers > 1) {
       throw new AppError(
         'CONFLICT',
-        'You cannot accept your own submission: another curator of this group must review it (you may still return it for revision or decline it).',
+        'You cannot accept a revision you submitted or helped write: another curator of this group must review it (you may still return it for revision or decline it).',
       );
     }
     selfAccepted = true;

@@ -46,9 +46,13 @@ function isEditor(reader: Reader, entry: EntryFacts): boolean {
   return roleAtLeast(reader.role, 'curator') || (reader.role === 'contributor' && entry.createdById === reader.userId);
 }
 
-export function permissionsFor(reader: Reader, entry: EntryFacts, curatorCount = 2): ComplexPermissions {
+/**
+ * What the reader may do. `wroteContent`: the reader submitted the revision in review or wrote any
+ * of its changes; they may accept it only when the group has no other curator (four eyes).
+ */
+export function permissionsFor(reader: Reader, entry: EntryFacts, curatorCount = 2, wroteContent = entry.submittedById === reader.userId): ComplexPermissions {
   const reviewer = roleAtLeast(reader.role, 'curator');
-  const ownSubmission = entry.submittedById === reader.userId;
+  const ownSubmission = wroteContent;
   return {
     canEdit: isEditor(reader, entry) && editableStatuses.includes(entry.status),
     canSubmit: isEditor(reader, entry) && submittableStatuses.includes(entry.status),
