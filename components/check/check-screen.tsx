@@ -10,6 +10,9 @@ import { useDebouncedValue } from '@/components/ui/use-debounced-value';
 import { useWideLayout } from '@/components/ui/use-wide-layout';
 import { ExampleChips, GeometryChoice, TemperatureChoice } from './check-options';
 import { FormulaInput } from './formula-input';
+import { IncomingLigandCard } from './incoming-ligand-card';
+import { MechanismCard } from './mechanism-card';
+import { PlannerLinkCard } from './planner-link-card';
 import {
   CautionsCard,
   HintsCard,
@@ -107,6 +110,11 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
         <CautionsCard result={state.result} />
         {wide ? null : options}
         <IdentityCard result={state.result} />
+        <MechanismCard result={state.result} />
+        {state.result.geometry === 'square-planar' && state.result.dElectrons === 8 && state.result.electronShell === 'd' ? (
+          <PlannerLinkCard formula={state.result.formula} />
+        ) : null}
+        <IncomingLigandCard result={state.result} />
         <ScaleCard result={state.result} />
         <LigandFieldCard result={state.result} />
         <HintsCard result={state.result} />

@@ -57,6 +57,8 @@ export function AppShell() {
           {wide ? <Brand /> : null}
           {/* The landing view is a route of the tab set but has no button of its own. */}
           <TabTrigger name="index" href="/" style={styles.hidden} />
+          {/* The order-of-addition planner is reached from Check (square-planar complexes), not from the bar. */}
+          <TabTrigger name="planner" href="/planner" style={styles.hidden} />
           {sections.map((section) =>
             visible.includes(section) ? (
               <TabTrigger key={section.name} name={section.name} href={section.href} asChild>

@@ -12,6 +12,8 @@ export function sectionTitleParts(pathname: string): string[] {
       return ['Check'];
     case 'route':
       return ['Route'];
+    case 'planner':
+      return ['Order of addition'];
     case 'review':
       return ['Review'];
     case 'library':
