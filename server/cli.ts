@@ -2,6 +2,8 @@ import fs from 'node:fs';
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
 import { classifyMany } from '@/lib/chem/classify';
+import { romanNumeral } from '@/lib/chem/metal-ions';
+import { formatPowerOfTen, formatScientific } from '@/lib/chem/number-format';
 import { formulaProblemText } from '@/lib/chem/types';
 import { predictRoutes } from '@/lib/chem/route';
 import { formationRequestSchema, marcusRequestSchema, sequenceRequestSchema } from '@/lib/schemas/chem';
@@ -102,9 +104,9 @@ function classifyCommand({ flags, positional }: ParsedArgs) {
       print(`${result.formula}\n  cannot be read: ${formulaProblemText(result.error, result.position)}\n`);
     } else {
       print(
-        `${result.formula}\n  ${result.metal}(${result.oxidationState}) d${result.dElectrons}` +
+        `${result.formula}\n  ${result.metal}(${romanNumeral(result.oxidationState)}) d${result.dElectrons}` +
           `${result.spinState ? ` ${result.spinState} spin` : ''}, ${result.geometry}: ${result.verdict.toUpperCase()}` +
-          ` (log k ≈ ${result.logKPerSecond.toFixed(1)} s⁻¹, ${result.decidedBy})\n` +
+          ` (k ≈ ${formatPowerOfTen(result.logKPerSecond)} s⁻¹, ${result.decidedBy})\n` +
           result.reasons.map((reason) => `   - ${reason}`).join('\n') +
           `\n  Mechanism: ${result.mechanism.class} (${result.mechanism.evidence === 'measured' ? 'measured' : 'from the trend'}, ${result.mechanism.confidence} confidence)\n` +
           [...result.mechanism.reasons, ...(result.mechanism.assistedPaths ?? []).map((path) => `${path.text} (${path.rateLaw})`)].map((reason) => `   - ${reason}`).join('\n') +
@@ -156,7 +158,7 @@ function marcusCommand({ flags }: ParsedArgs) {
     return;
   }
   print(
-    `k12 = ${result.k12.toExponential(3)} M⁻¹ s⁻¹   (K12 = ${result.K12.toExponential(3)}, f12 = ${result.f12.toPrecision(4)})` +
+    `k12 = ${formatScientific(result.k12, 3)} M⁻¹ s⁻¹   (K12 = ${formatScientific(result.K12, 3)}, f12 = ${formatScientific(result.f12, 3)})` +
       (result.comparison ? `\n${result.comparison.explanation}` : ''),
   );
 }

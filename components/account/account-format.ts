@@ -1,3 +1,4 @@
+import { formatDate, formatDateTime } from '@/lib/chem/number-format';
 import type { Role } from '@/lib/schemas/groups';
 
 /**
@@ -23,18 +24,14 @@ export const roleLabels: Record<Role, string> = {
   admin: 'Admin',
 };
 
-/** "12 Dec 2026" — day, short month and year; no time, which the reader rarely needs here. */
+/** The product's one date style, following the reader's locale ("12 Dec 2026" in en-GB); no time. */
 export function formatDay(iso: string): string {
-  const date = new Date(iso);
-  if (Number.isNaN(date.getTime())) return iso;
-  return date.toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+  return formatDate(iso);
 }
 
-/** "12 Dec 2026, 14:05" for sessions, where the time matters. */
+/** The same style with the time, for sessions, where the time matters ("12 Dec 2026, 14:05" in en-GB). */
 export function formatMoment(iso: string): string {
-  const date = new Date(iso);
-  if (Number.isNaN(date.getTime())) return iso;
-  return date.toLocaleString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
+  return formatDateTime(iso);
 }
 
 /** A readable guess at the device from its user-agent string ("Firefox on Linux"); never more than a hint. */

@@ -3,6 +3,7 @@ import { StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import Svg, { Circle, G, Line, Path, Rect, Text as SvgText, TSpan } from 'react-native-svg';
 
 import { FIVE_MINUTE_LOG_K, ONE_MINUTE_LOG_K } from '@/lib/chem/verdict-bands';
+import { formatPowerOfTen } from '@/lib/chem/number-format';
 import type { Verdict } from '@/lib/chem/types';
 import { colors, fonts, verdictColors } from '@/components/ui/theme';
 
@@ -68,11 +69,6 @@ function clampLogK(logK: number): { value: number; clamped: 'low' | 'high' | nul
   return { value: logK, clamped: null };
 }
 
-function formatLog(value: number): string {
-  const rounded = Math.round(value * 10) / 10;
-  return (rounded === 0 ? 0 : rounded).toFixed(1);
-}
-
 function shorten(text: string, maxChars = MAX_LABEL_CHARS): string {
   return text.length > maxChars ? `${text.slice(0, maxChars - 1)}…` : text;
 }
@@ -112,9 +108,9 @@ function placeNeighbours(neighbours: readonly LabilityNeighbour[], xOf: (logK: n
 }
 
 function describeScale(label: string, logK: number, verdict: Verdict, neighbours: readonly LabilityNeighbour[]): string {
-  const head = `${label}: log k = ${formatLog(logK)}, ${verdict}; one-minute line at 10^${formatLog(ONE_MINUTE_LOG_K)} s^-1`;
+  const head = `${label}: k ≈ ${formatPowerOfTen(logK)} s⁻¹, ${verdict}; one-minute line at k ≈ ${formatPowerOfTen(ONE_MINUTE_LOG_K)} s⁻¹`;
   if (neighbours.length === 0) return head;
-  const around = neighbours.map((n) => `${n.label} (log k ${formatLog(n.logK)}, ${n.measured ? 'measured' : 'predicted'})`).join(', ');
+  const around = neighbours.map((n) => `${n.label} (k ≈ ${formatPowerOfTen(n.logK)} s⁻¹, ${n.measured ? 'measured' : 'predicted'})`).join(', ');
   return `${head}; nearby: ${around}`;
 }
 

@@ -1,6 +1,7 @@
 import { View, StyleSheet } from 'react-native';
 import Svg, { G, Line, Path, Rect, Text as SvgText, TSpan } from 'react-native-svg';
 
+import { formatInteger } from '@/lib/chem/number-format';
 import { fillOrbitals, levelElectrons, type OrbitalFilling, type OrbitalLevel } from '@/lib/chem/orbital-filling';
 import type { Geometry, SpinState } from '@/lib/chem/types';
 import { colors, fonts } from '@/components/ui/theme';
@@ -83,9 +84,8 @@ function levelYs(levels: readonly OrbitalLevel[]): { ys: number[]; barycentreY: 
 }
 
 function formatWavenumber(cm: number): string {
-  // Estimates are good to a few per cent: show hundreds, grouped with a thin space.
-  const rounded = Math.round(cm / 100) * 100;
-  return String(rounded).replace(/\B(?=(\d{3})+(?!\d))/g, '\u2009');
+  // Estimates are good to a few per cent: show hundreds, grouped as every quantity is (number-format).
+  return formatInteger(Math.round(cm / 100) * 100);
 }
 
 function UpElectron({ x, baseY }: { x: number; baseY: number }) {

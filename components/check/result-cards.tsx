@@ -7,7 +7,8 @@ import { CHECKED_MARKER, type Classification } from '@/lib/chem/types';
 import { BulletList } from '@/components/ui/bullet-list';
 import { Card } from '@/components/ui/card';
 import { CautionBox } from '@/components/ui/caution-box';
-import { duration, groupedInteger, powerOfTen, roman, scientific } from '@/components/ui/format';
+import { duration, powerOfTen, roman, scientific } from '@/components/ui/format';
+import { formatCelsius, formatCelsiusFromKelvin, formatDecimal, formatInteger, UNITS } from '@/lib/chem/number-format';
 import { FormulaText } from '@/components/ui/formula-text';
 import { KeyValueGrid } from '@/components/ui/key-value';
 import { AppText } from '@/components/ui/text';
@@ -35,19 +36,19 @@ export function VerdictCard({ result }: { result: Classification }) {
           <AppText variant="label" tone="accent">Measured in your group’s library</AppText>
           <AppText style={styles.headlineEntry}>{library.entryName}</AppText>
           <AppText>
-            k = {scientific(library.kPerSecond)} s⁻¹ at {(library.temperatureK - 273.15).toFixed(0)} °C ({library.kind.replace('-', ' ')})
+            k = {scientific(library.kPerSecond)} s⁻¹ at {formatCelsiusFromKelvin(library.temperatureK)} ({library.kind.replace('-', ' ')})
           </AppText>
           <AppText variant="caption" tone="muted" testID="verdict-headline-citation">{shortCitation(library.citation)}</AppText>
         </View>
       ) : null}
       <AppText variant="lead" testID="verdict-rate">
-        k ≈ {powerOfTen(result.logKPerSecond)} s⁻¹ · t½ ≈ {duration(result.halfLifeSeconds)} at {result.temperatureC} °C
+        k ≈ {powerOfTen(result.logKPerSecond)} s⁻¹ · t½ ≈ {duration(result.halfLifeSeconds)} at {formatCelsius(result.temperatureC)}
       </AppText>
       {result.measured && !library ? (
         <View style={styles.measured} testID="measured-value">
           <AppText variant="label" tone="accent">Measured</AppText>
           <AppText>
-            k = {scientific(result.measured.kPerSecond)} s⁻¹ at {(result.measured.temperatureK - 273.15).toFixed(0)} °C
+            k = {scientific(result.measured.kPerSecond)} s⁻¹ at {formatCelsiusFromKelvin(result.measured.temperatureK)}
             ({result.measured.kind.replace('-', ' ')})
           </AppText>
           <AppText variant="caption" tone="muted">{result.measured.source}</AppText>
@@ -104,7 +105,7 @@ export function IdentityCard({ result }: { result: Classification }) {
           { label: 'Spin', value: result.spinState ? `${result.spinState}${result.nearSpinCrossover ? ' (near crossover)' : ''}` : '—' },
           { label: 'Coordination no.', value: String(result.coordinationNumber) },
           { label: 'Geometry', value: `${result.geometry}${result.geometrySource === 'given' ? ' (chosen)' : ''}` },
-          { label: 'Molar mass', value: `${result.molarMassGPerMol.toFixed(2)} g/mol` },
+          { label: 'Molar mass', value: `${formatDecimal(result.molarMassGPerMol, 2)} ${UNITS.gramPerMole}` },
         ]}
       />
       <AppText variant="caption" tone="muted">
@@ -123,15 +124,15 @@ const DELTA_O_LABELS = { measured: 'Δo (measured)', estimated: 'Δo (estimate)'
 
 export function LigandFieldCard({ result }: { result: Classification }) {
   const items: { label: string; value: string }[] = [];
-  if (result.deltaOcm !== null) items.push({ label: DELTA_O_LABELS[result.deltaOBasis ?? 'estimated'], value: `${groupedInteger(result.deltaOcm)} cm⁻¹` });
-  if (result.lfseDq !== null) items.push({ label: 'LFSE', value: `${result.lfseDq} Dq` });
-  if (result.lfseKJPerMol !== null) items.push({ label: 'LFSE', value: `${result.lfseKJPerMol.toFixed(0)} kJ/mol` });
+  if (result.deltaOcm !== null) items.push({ label: DELTA_O_LABELS[result.deltaOBasis ?? 'estimated'], value: `${formatInteger(result.deltaOcm)} ${UNITS.perCentimetre}` });
+  if (result.lfseDq !== null) items.push({ label: 'LFSE', value: `${formatDecimal(result.lfseDq, Number.isInteger(result.lfseDq) ? 0 : 2)} Dq` });
+  if (result.lfseKJPerMol !== null) items.push({ label: 'LFSE', value: `${formatDecimal(result.lfseKJPerMol, 0)} ${UNITS.kilojoulePerMole}` });
   if (result.activationEnergyDq) {
-    items.push({ label: 'CFAE dissociative', value: `${result.activationEnergyDq.dissociative.toFixed(2)} Dq` });
-    items.push({ label: 'CFAE associative', value: `${result.activationEnergyDq.associative.toFixed(2)} Dq` });
+    items.push({ label: 'CFAE dissociative', value: `${formatDecimal(result.activationEnergyDq.dissociative, 2)} Dq` });
+    items.push({ label: 'CFAE associative', value: `${formatDecimal(result.activationEnergyDq.associative, 2)} Dq` });
   }
   if (result.activationEnergyKJPerMol) {
-    items.push({ label: 'CFAE dissoc.', value: `${result.activationEnergyKJPerMol.dissociative.toFixed(0)} kJ/mol` });
+    items.push({ label: 'CFAE dissoc.', value: `${formatDecimal(result.activationEnergyKJPerMol.dissociative, 0)} ${UNITS.kilojoulePerMole}` });
   }
   if (result.jahnTeller) items.push({ label: 'Jahn–Teller', value: result.jahnTeller });
   return (
@@ -174,7 +175,7 @@ export function ScaleCard({ result }: { result: Classification }) {
     <Card title="Lability scale" testID="scale-card">
       <LabilityScale logK={result.logKPerSecond} verdict={result.verdict} label={toDisplayFormula(result.formula)} neighbours={neighbours} />
       <AppText variant="caption" tone="muted">
-        First-order exchange constant per bound ligand at {result.temperatureC} °C, among published water-exchange
+        First-order exchange constant per bound ligand at {formatCelsius(result.temperatureC)}, among published water-exchange
         constants (Helm & Merbach, Chem. Rev. 2005). The line marks a one-minute half-life (Taube’s criterion).
       </AppText>
     </Card>

@@ -1,6 +1,7 @@
 import Svg, { Line, Rect, Text as SvgText, Circle, Path } from 'react-native-svg';
 import { StyleSheet, View } from 'react-native';
 import { superscript } from '@/components/ui/format';
+import { formatPowerOfTen } from '@/lib/chem/number-format';
 import { colors, fonts } from '@/components/ui/theme';
 
 const W = 360;
@@ -25,8 +26,8 @@ export function MarcusChart({ predictedLogK, observedLogK, windowLog = 1 }: {
   const ticks: number[] = [];
   for (let t = lo; t <= hi; t += step) ticks.push(t);
   const description =
-    `Predicted k12 10^${predictedLogK.toFixed(1)} M⁻¹ s⁻¹` +
-    (observedLogK === null ? '' : `, observed 10^${observedLogK.toFixed(1)} M⁻¹ s⁻¹`);
+    `Predicted k12 ≈ ${formatPowerOfTen(predictedLogK)} M⁻¹ s⁻¹` +
+    (observedLogK === null ? '' : `, observed ${formatPowerOfTen(observedLogK)} M⁻¹ s⁻¹`);
   return (
     <View style={styles.frame} accessible accessibilityLabel={description} testID="marcus-chart">
       <Svg width="100%" height="100%" viewBox={`0 0 ${W} ${H}`}>

@@ -5,7 +5,7 @@ import { StyleSheet, TextInput, View } from 'react-native';
 import { marcusCrossRate, MarcusInputError, type MarcusResult } from '@/lib/chem/marcus';
 import { marcusFormSchema, type MarcusForm } from '@/lib/schemas/chem';
 import { Card } from '@/components/ui/card';
-import { scientific } from '@/components/ui/format';
+import { estimate } from '@/components/ui/format';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, radius, spacing } from '@/components/ui/theme';
 import { MarcusChart } from './marcus-chart';
@@ -97,7 +97,7 @@ export function MarcusPanel({ prefill, sourceNotes, tableEstimate = true }: { pr
       {result && typeof result !== 'string' ? (
         <View style={styles.result} testID="marcus-result">
           <AppText variant="lead">
-            k12 ≈ {scientific(result.k12)} M⁻¹ s⁻¹ · K12 = {scientific(result.K12)} · f12 = {result.f12.toPrecision(3)}
+            k12 ≈ {estimate(result.k12)} M⁻¹ s⁻¹ · K12 = {estimate(result.K12)} · f12 = {estimate(result.f12, 3)}
           </AppText>
           <MarcusChart
             predictedLogK={Math.log10(result.k12)}

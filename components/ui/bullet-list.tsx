@@ -1,5 +1,5 @@
 import { StyleSheet, View } from 'react-native';
-import { AppText } from './text';
+import { TypesetText } from './typeset-text';
 import { colors, spacing } from './theme';
 
 export function BulletList({ items, testID }: { items: string[]; testID?: string }) {
@@ -8,7 +8,7 @@ export function BulletList({ items, testID }: { items: string[]; testID?: string
       {items.map((item) => (
         <View key={item} style={styles.row}>
           <View style={styles.dot} />
-          <AppText style={styles.text}>{item}</AppText>
+          <TypesetText style={styles.text}>{item}</TypesetText>
         </View>
       ))}
     </View>

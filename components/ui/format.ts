@@ -1,49 +1,30 @@
-/** Presentation of numbers for chemists: powers of ten with superscripts, durations in plain units. */
-const SUPERSCRIPT: Record<string, string> = {
-  '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹', '-': '⁻', '.': '·',
-};
+/**
+ * Presentation of numbers for the screens. The notation itself lives in one place,
+ * lib/chem/number-format.ts (shared with the engine's reasons and the CLI); these are the names the
+ * components use.
+ */
+import { formatDuration, formatPowerOfTen, formatRecorded, formatScientific, superscript } from '@/lib/chem/number-format';
 
-export function superscript(text: string): string {
-  return [...text].map((ch) => SUPERSCRIPT[ch] ?? ch).join('');
+export { superscript };
+
+/** 10^x as a × 10ⁿ with two significant figures, e.g. powerOfTen(−5.62) → "2.4 × 10⁻⁶". */
+export function powerOfTen(log10: number): string {
+  return formatPowerOfTen(log10, 2);
 }
 
-/** 10^x with x to one decimal, e.g. 10⁻⁵·⁶ (the middle dot keeps the decimal legible in superscript). */
-export function powerOfTen(log10: number, decimals = 1): string {
-  return `10${superscript(log10.toFixed(decimals))}`;
+/** A recorded value (a measurement) with up to four significant figures: "2.4 × 10⁻⁶", "108.6". */
+export function scientific(value: number): string {
+  return formatRecorded(value);
 }
 
-/** A value in scientific notation with a superscript exponent, e.g. 2.4 × 10⁻⁶. */
-export function scientific(value: number, digits = 2): string {
-  if (value === 0 || !Number.isFinite(value)) return String(value);
-  const exponent = Math.floor(Math.log10(Math.abs(value)));
-  if (exponent >= -2 && exponent <= 4) return String(Number(value.toPrecision(digits + 1)));
-  const mantissa = value / 10 ** exponent;
-  return `${mantissa.toFixed(digits - 1)} × 10${superscript(String(exponent))}`;
+/** A computed estimate with set significant figures (two by default): "1.3 × 10⁵". */
+export function estimate(value: number, significant = 2): string {
+  return formatScientific(value, significant);
 }
 
-const UNITS: [number, string][] = [
-  [365.25 * 86400, 'years'],
-  [86400, 'days'],
-  [3600, 'h'],
-  [60, 'min'],
-  [1, 's'],
-  [1e-3, 'ms'],
-  [1e-6, 'µs'],
-  [1e-9, 'ns'],
-  [1e-12, 'ps'],
-];
-
-/** A half-life in the largest unit that keeps the number ≥ 1, e.g. "3.3 days", "8 ms". */
+/** A half-life on the one duration ladder (ps … y): "3.3 d", "8.0 ms". */
 export function duration(seconds: number): string {
-  if (!Number.isFinite(seconds)) return 'forever';
-  if (seconds > 1e6 * 365.25 * 86400) return `${scientific(seconds / (365.25 * 86400))} years`;
-  for (const [size, unit] of UNITS) {
-    if (seconds >= size) {
-      const value = seconds / size;
-      return `${value >= 100 ? Math.round(value) : Number(value.toPrecision(2))} ${unit}`;
-    }
-  }
-  return `${scientific(seconds)} s`;
+  return formatDuration(seconds);
 }
 
 /**
@@ -54,7 +35,7 @@ export function duration(seconds: number): string {
 export function groupedInteger(value: number): string {
   const rounded = Math.round(value);
   const grouped = String(Math.abs(rounded)).replace(/\B(?=(\d{3})+(?!\d))/g, ',');
-  return rounded < 0 ? `-${grouped}` : grouped;
+  return rounded < 0 ? `\u2212${grouped}` : grouped;
 }
 
 /** Oxidation states as Roman numerals: one definition, in the engine. */

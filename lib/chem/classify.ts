@@ -38,7 +38,7 @@ const {
 } = ligandField;
 const { confidenceFrom, measuredLogKAt, predictLogK, scaleLogKWithoutEyring, verdictFromLogK } = lability;
 const { ionLabel, ionicRadiusPm, metalIon } = metalIons;
-const { formatFixed, formatPrecision2 } = numberFormat;
+const { capitaliseSentence, formatCelsius, formatDuration, formatFixed, formatInteger, formatPowerOfTen, formatRecorded } = numberFormat;
 
 interface MeasuredRecord {
   species: string;
@@ -313,19 +313,19 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   if (hasNitrosyl) reasons.push('nitrosyl counted as NO⁺ (linear, 2-electron donor) by convention');
   if (hasHapticLigand) reasons.push('η5-cyclopentadienyl counted as three coordination sites (6-electron donor) by convention');
   if (measuredDeltaO) {
-    reasons.push(`Δo = ${measuredDeltaO.deltaOcm} cm⁻¹, measured for ${measuredDeltaO.species} (${measuredDeltaO.source})`);
+    reasons.push(`Δo = ${formatInteger(measuredDeltaO.deltaOcm)} cm⁻¹, measured for ${measuredDeltaO.species} (${measuredDeltaO.source})`);
   } else if (deltaO !== null) {
     const fgText = deltaOReason(deltaO.fAverage, deltaO.g, deltaO.gKind === 'aqua', deltaO.fEstimated, deltaO.deltaOcm);
     const piFactor = deltaO.effectiveDeltaOcm / deltaO.deltaOcm;
     reasons.push(
       piFactor > 1.001
-        ? `Δo ≈ ${answerDeltaOcm} cm⁻¹: π-acceptor ligands raised ×${formatFixed(piFactor, 2)} for back-bonding over ${fgText.replace(/^Δo ≈ /, '')} (weights calibrated on the measured Δo of the hexacyanoferrates and of the tris(diimine)iron(II) spin states)`
+        ? `Δo ≈ ${formatInteger(answerDeltaOcm ?? 0)} cm⁻¹: π-acceptor ligands raised ×${formatFixed(piFactor, 2)} for back-bonding over ${fgText.replace(/^Δo ≈ /, '')} (weights calibrated on the measured Δo of the hexacyanoferrates and of the tris(diimine)iron(II) spin states)`
         : fgText,
     );
   } else if (hasLigandField) {
-    reasons.push(`Δo ≈ ${answerDeltaOcm} cm⁻¹, a rough value: no published g for ${ionLabel(metal, oxidationState)}${ligandWithoutF ? ' or no f for a ligand' : ''}`);
+    reasons.push(`Δo ≈ ${formatInteger(answerDeltaOcm ?? 0)} cm⁻¹, a rough value: no published g for ${ionLabel(metal, oxidationState)}${ligandWithoutF ? ' or no f for a ligand' : ''}`);
   }
-  if (answerDeltaOcm !== null && geometry === 'tetrahedral') reasons.push(`tetrahedral: Δt ≈ ${Math.round((answerDeltaOcm * 4) / 9)} cm⁻¹ (4/9 of the octahedral Δo)`);
+  if (answerDeltaOcm !== null && geometry === 'tetrahedral') reasons.push(`Tetrahedral: Δt ≈ ${formatInteger((answerDeltaOcm * 4) / 9)} cm⁻¹ (4/9 of the octahedral Δo)`);
   if (spin.spinState !== null) {
     reasons.push(`${spin.spinState} spin: ${spin.basis}`);
     if (spin.nearSpinCrossover) reasons.push('near spin crossover: Δo and the pairing energy are close — check the spin state experimentally');
@@ -363,12 +363,12 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     const { logK: measuredLogK, usedEyring } = measuredLogKAt(measuredMatch.rate, temperatureK);
     logK = measuredLogK;
     decidedBy = 'reference';
-    reasons.push(`measured k_ex = ${measuredMatch.rate.kPerSecond.toExponential(1)} s⁻¹ at 25 °C for ${measuredMatch.species} (${measuredMatch.rate.source}) decides; the model alone gives ~10^${formatFixed(predictedLogK, 1)} s⁻¹`);
+    reasons.push(`Measured water-exchange kₑₓ = ${formatRecorded(measuredMatch.rate.kPerSecond)} s⁻¹ at ${formatCelsius(measuredMatch.rate.temperatureK - 273.15)} for ${measuredMatch.species} (${measuredMatch.rate.source}) decides; the model alone gives k ≈ ${formatPowerOfTen(predictedLogK)} s⁻¹`);
     if (Math.abs(temperatureK - 298.15) > 1e-9) {
-      reasons.push(usedEyring ? `moved to ${temperatureC} °C with the measured Eyring ΔH‡ = ${measuredMatch.rate.deltaHActivationKJPerMol} kJ/mol` : `moved to ${temperatureC} °C assuming ΔS‡ = 0 (no activation parameters published here)`);
+      reasons.push(usedEyring ? `Moved to ${formatCelsius(temperatureC)} with the measured Eyring ΔH‡ = ${measuredMatch.rate.deltaHActivationKJPerMol} kJ mol⁻¹` : `Moved to ${formatCelsius(temperatureC)} assuming ΔS‡ = 0 (no activation parameters published here)`);
     }
   } else if (Math.abs(temperatureK - 298.15) > 1e-9) {
-    reasons.push(`moved to ${temperatureC} °C assuming the whole barrier is enthalpic (ΔS‡ = 0): a rough correction`);
+    reasons.push(`Moved to ${formatCelsius(temperatureC)} assuming the whole barrier is enthalpic (ΔS‡ = 0): a rough correction`);
   }
   const { verdict, halfLifeSeconds, reason: rateReason } = rateAt(logK);
   const confidence = confidenceFrom(logK, prediction.roughness, decidedBy === 'reference');
@@ -377,6 +377,8 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
 
   const hints = hintsFor(metal, oxidationState, verdict, ligands, dElectrons, geometry);
   reasons.push(decidedBy === 'reference' ? 'The verdict rests on the published measurement above; the model estimate is shown for comparison.' : DISCLAIMER);
+  // Every reason is a sentence: capitalised here, once, whichever module wrote it (symbols such as "d6" keep their case).
+  for (let index = 0; index < reasons.length; index++) reasons[index] = capitaliseSentence(reasons[index] as string);
 
   return {
     formula,
@@ -443,13 +445,13 @@ function classifyDinuclear(
   const headline = results[main] as Classification;
   const centreLines = results.map(
     (result, index) =>
-      `centre ${index + 1}: ${ionLabel(result.metal, result.oxidationState)} as ${(centres[index] as formulaParser.MetalCentre).species} — ${result.verdict}, k ≈ 10^${formatFixed(result.logKPerSecond, 1)} s⁻¹`,
+      `Centre ${index + 1}: ${ionLabel(result.metal, result.oxidationState)} as ${(centres[index] as formulaParser.MetalCentre).species} — ${result.verdict}, k ≈ ${formatPowerOfTen(result.logKPerSecond)} s⁻¹`,
   );
   const bridges = (centres[0] as formulaParser.MetalCentre).bridges.map((bridge) => bridge.ligand.name).join(', ');
   const reasons = [
     ...parsed.readings.map((reading) => reading.text),
     ...parsed.warnings,
-    `µ-bridged dinuclear species (bridge: ${bridges}): each metal centre is classified on its own; the faster centre (${main + 1}) sets the verdict`,
+    `A µ-bridged dinuclear species (bridge: ${bridges}): each metal centre is classified on its own; the faster centre (${main + 1}) sets the verdict`,
     ...centreLines,
     ...headline.reasons.filter((reason) => !headline.readings?.some((reading) => reading.text === reason)),
   ];
@@ -569,7 +571,7 @@ function deltaOReason(fAverage: number, g: number, aquaG: boolean, fEstimated: b
   let text = texts[slot];
   if (text === undefined) {
     const source = aquaG ? 'g taken as the aqua ion’s Δo' : 'Jørgensen g';
-    text = `Δo ≈ f·g = ${formatFixed(fAverage, 2)} × ${g} × 10³ = ${deltaOcm} cm⁻¹ (${source}${fEstimated ? '; some f values are rough estimates' : ''})`;
+    text = `Δo ≈ f·g = ${formatFixed(fAverage, 2)} × ${g} × 10³ = ${formatInteger(deltaOcm)} cm⁻¹ (${source}${fEstimated ? '; some f values are rough estimates' : ''})`;
     texts[slot] = text;
     deltaOReasonCount++;
   }
@@ -595,7 +597,8 @@ function rateAt(logK: number): RateText {
     const verdict = verdictFromLogK(logK);
     const halfLifeSeconds = Math.LN2 / 10 ** logK;
     const band = verdict === 'labile' ? 'under a minute' : verdict === 'intermediate' ? 'one to five minutes' : 'five minutes or more';
-    const reason = `${verdict}: k ≈ 10^${formatFixed(logK, 1)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${band}; labile under 1 min, inert from 5 min)`;
+    // k from log k to two decimals, as the answer's logKPerSecond (the card and the reason show the same k).
+    const reason = `${VERDICT_WORDS[verdict]}: k ≈ ${formatPowerOfTen(Math.round(logK * 100) / 100)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${band}; labile under 1 min, inert from 5 min)`;
     rate = { verdict, halfLifeSeconds, reason };
     if (rateByLogK.size >= RATE_MEMO_LIMIT) rateByLogK.clear();
     rateByLogK.set(logK, rate);
@@ -603,17 +606,7 @@ function rateAt(logK: number): RateText {
   return rate;
 }
 
-// formatPrecision2 is toPrecision(2) without the runtime call (proved equal in number-format.test.ts).
-function formatDuration(seconds: number): string {
-  if (!Number.isFinite(seconds)) return 'forever';
-  if (seconds < 1e-3) return `${formatPrecision2(seconds * 1e6)} µs`;
-  if (seconds < 1) return `${formatPrecision2(seconds * 1e3)} ms`;
-  if (seconds < 120) return `${formatPrecision2(seconds)} s`;
-  if (seconds < 7200) return `${formatPrecision2(seconds / 60)} min`;
-  if (seconds < 172800) return `${formatPrecision2(seconds / 3600)} h`;
-  if (seconds < 3.15e7 * 2) return `${formatPrecision2(seconds / 86400)} days`;
-  return `${formatPrecision2(seconds / 3.15e7)} years`;
-}
+const VERDICT_WORDS: Record<Classification['verdict'], string> = { labile: 'Labile', intermediate: 'Intermediate', inert: 'Inert' };
 
 const HINT_HEAT = 'Inert at room temperature: plan on heat, a long reflux or a catalyst rather than waiting.';
 const HINT_INTERMEDIATE = 'Substitution takes minutes: allow time or warm gently.';

@@ -14,7 +14,7 @@ import type { Confidence, Geometry, LigandInstance, MeasuredRate, SpinState } fr
 import { ONE_MINUTE_LOG_K, verdictFromLogK } from './verdict-bands';
 
 // Read once: under tsx each use of an imported name is a getter call (see classify.ts).
-const { formatFixed } = numberFormat;
+const { formatFixed, formatInteger } = numberFormat;
 
 // The verdict bands live in verdict-bands.ts (one definition for the whole product).
 export { ONE_MINUTE_LOG_K, verdictFromLogK };
@@ -215,7 +215,7 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
     }
     if (input.egElectrons > 0 && input.geometry === 'octahedral') {
       logK += PER_EG_ELECTRON * input.egElectrons;
-      reasons.push(`${input.egElectrons} σ-antibonding e_g electron${input.egElectrons > 1 ? 's' : ''}: weaker metal–ligand bonds`);
+      reasons.push(`${input.egElectrons} σ-antibonding eg electron${input.egElectrons > 1 ? 's' : ''}: weaker metal–ligand bonds`);
     }
     const octahedralLike = input.geometry === 'octahedral';
     const taubeInert = octahedralLike && input.egElectrons === 0 && input.vacantT2g === 0 && d >= 3 && d <= 6;
@@ -230,11 +230,11 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
           const cfaeKJ = cfaeDq * (input.deltaOcm / 10) * KJ_PER_MOL_PER_CM;
           const change = -(CFAE_FRACTION * cfaeKJ) / RT_LN10_KJ;
           logK += change;
-          reasons.push(`crystal-field activation energy ${formatFixed(cfaeDq, 2)} Dq ≈ ${Math.round(cfaeKJ)} kJ/mol with Δo ≈ ${Math.round(input.deltaOcm)} cm⁻¹ (${signed(change)} log units)`);
+          reasons.push(`crystal-field activation energy ${formatFixed(cfaeDq, 2)} Dq ≈ ${Math.round(cfaeKJ)} kJ mol⁻¹ with Δo ≈ ${formatInteger(input.deltaOcm)} cm⁻¹ (${signed(change)} log units)`);
           if (input.deltaORough) roughness += 1;
         } else {
           roughness += 1;
-          reasons.push(`crystal-field activation energy ${formatFixed(cfaeDq, 2)} Dq, but no Δo estimate to put it in kJ/mol`);
+          reasons.push(`crystal-field activation energy ${formatFixed(cfaeDq, 2)} Dq, but no Δo estimate to put it in kJ mol⁻¹`);
         }
       }
     }
@@ -274,9 +274,9 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
 
 /** Why an octahedral d3 or low-spin d4–d6 ion is slow, in words true for each count. */
 function taubeInertReason(d: number, zText: string): string {
-  if (d === 3) return `d3 with ${zText} charge: each t2g orbital singly occupied (t2g³), e_g empty: no empty orbital to accept an entering ligand and no e_g electron to weaken the bonds`;
-  if (d === 6) return 'low-spin d6: t2g set filled (t2g⁶), e_g empty: no empty orbital to accept an entering ligand and no e_g electron to weaken the bonds';
-  return `low-spin d${d}: t2g${d === 4 ? '⁴' : '⁵'} leaves no t2g orbital empty (the vacancy is a half-filled orbital, not an empty one) and e_g is empty: no easy associative path and no e_g electron to weaken the bonds`;
+  if (d === 3) return `d3 with ${zText} charge: each t2g orbital singly occupied (t2g³), eg empty: no empty orbital to accept an entering ligand and no eg electron to weaken the bonds`;
+  if (d === 6) return 'low-spin d6: t2g set filled (t2g⁶), eg empty: no empty orbital to accept an entering ligand and no eg electron to weaken the bonds';
+  return `low-spin d${d}: t2g${d === 4 ? '⁴' : '⁵'} leaves no t2g orbital empty (the vacancy is a half-filled orbital, not an empty one) and eg is empty: no easy associative path and no eg electron to weaken the bonds`;
 }
 
 const MACROCYCLE_REASON = 'macrocyclic or cryptand ligand: the macrocyclic kinetic effect (dissociation far slower than for open-chain ligands) is not in this model; the rate is only a guess';

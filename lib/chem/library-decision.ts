@@ -1,4 +1,5 @@
 import { eyringRatePerSecond, verdictFromLogK, ONE_MINUTE_LOG_K } from './lability';
+import { capitaliseSentence, formatCelsius, formatCelsiusFromKelvin, formatDuration, formatPowerOfTen, formatRecorded } from './number-format';
 import type { CitationRef, Classification, LibraryMeasurementRef, Verdict } from './types';
 
 /**
@@ -136,37 +137,12 @@ const KIND_WORDS: Record<DecidingKind, string> = {
 };
 
 function celsius(kelvin: number): string {
-  const c = Math.round((kelvin - 273.15) * 10) / 10;
-  return `${Number.isInteger(c) ? c.toFixed(0) : c.toFixed(1)} °C`;
+  return formatCelsiusFromKelvin(kelvin);
 }
 
+/** A measured k as recorded: "2.2 × 10⁻⁹ s⁻¹". */
 function kText(k: number): string {
-  const [mantissa, exponent] = k.toExponential(1).split('e');
-  return `${mantissa} × 10^${Number(exponent)} s⁻¹`;
-}
-
-// The same units and rounding as the app's duration display (components/ui/format.ts), so the
-// reason and the card beside it say the same half-life.
-const DURATION_UNITS: [number, string][] = [
-  [365.25 * 86400, 'years'],
-  [86400, 'days'],
-  [3600, 'h'],
-  [60, 'min'],
-  [1, 's'],
-  [1e-3, 'ms'],
-  [1e-6, 'µs'],
-  [1e-9, 'ns'],
-];
-
-function durationText(seconds: number): string {
-  if (!Number.isFinite(seconds)) return 'forever';
-  for (const [size, unit] of DURATION_UNITS) {
-    if (seconds >= size) {
-      const value = seconds / size;
-      return `${value >= 100 ? Math.round(value) : Number(value.toPrecision(2))} ${unit}`;
-    }
-  }
-  return `${seconds.toExponential(1)} s`;
+  return `${formatRecorded(k)} s⁻¹`;
 }
 
 /** The headline that names the deciding entry and its citation. */
@@ -193,10 +169,10 @@ export function decideByLibrary(
   const side = verdict === 'intermediate' ? 'close to' : logK > ONE_MINUTE_LOG_K ? 'faster than' : 'slower than';
   const reasons = [`${libraryHeadline(ref)} decides.`];
   if (Math.abs(ref.temperatureK - temperatureK) > 1e-6) {
-    reasons.push(`moved from ${celsius(ref.temperatureK)} to ${result.temperatureC} °C assuming the whole barrier is enthalpic (ΔS‡ = 0): a rough correction`);
+    reasons.push(`Moved from ${celsius(ref.temperatureK)} to ${formatCelsius(result.temperatureC)} assuming the whole barrier is enthalpic (ΔS‡ = 0): a rough correction`);
   }
-  reasons.push(`${verdict}: k ≈ ${kText(10 ** logK)}, t½ ≈ ${durationText(halfLifeSeconds)} (${side} the one-minute line)`);
-  reasons.push(`the model alone gives k ≈ 10^${modelLogK.toFixed(1)} s⁻¹ (${modelVerdict}); it is kept below as the footnote`);
+  reasons.push(capitaliseSentence(`${verdict}: k ≈ ${formatPowerOfTen(logK)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${side} the one-minute line)`));
+  reasons.push(`The model alone gives k ≈ ${formatPowerOfTen(modelLogK)} s⁻¹ (${modelVerdict}); it is kept below as the footnote`);
   return {
     ...result,
     verdict,

@@ -3,11 +3,13 @@
  * Basolo–Pearson crystal-field activation energies (CFAE).
  */
 import * as ligandsModule from './ligands';
+import * as numberFormat from './number-format';
 import type { MetalElement, MetalIon } from './metal-ions';
 import type { Geometry, LigandInstance, SpinState } from './types';
 
 // Read once: under tsx each use of an imported name is a getter call (see classify.ts).
 const { ligandFieldFactor } = ligandsModule;
+const { formatInteger } = numberFormat;
 
 /** 1 cm⁻¹ = 0.01196266 kJ/mol (CODATA conversion, hc·N_A). */
 export const KJ_PER_MOL_PER_CM = 0.01196266;
@@ -248,7 +250,7 @@ export function decideSpin(params: {
     const pairing = freeIonPairing === null ? null : freeIonPairing * PAIRING_REDUCTION;
     const basis =
       deltaOcm !== null && pairing !== null && deltaOcm > pairing
-        ? `cyanide, carbonyl or organometallic ligands dominate: Δo ≈ ${Math.round(deltaOcm)} cm⁻¹ is above the pairing energy in the complex (≈ ${Math.round(pairing)} cm⁻¹), low spin`
+        ? `cyanide, carbonyl or organometallic ligands dominate: Δo ≈ ${formatInteger(deltaOcm)} cm⁻¹ is above the pairing energy in the complex (≈ ${formatInteger(pairing)} cm⁻¹), low spin`
         : 'cyanide, carbonyl or organometallic ligands dominate: their complexes are low spin (common practice)';
     return { spinState: 'low', nearSpinCrossover: false, hasChoice: true, basis, pairingEnergyCm: pairing };
   }
@@ -261,12 +263,12 @@ export function decideSpin(params: {
   const effective = deltaOcm;
   const low = effective > reducedPairing;
   const near = Math.abs(effective - reducedPairing) / reducedPairing < CROSSOVER_WINDOW;
-  const pairingText = freeIonPairing === null ? `an assumed pairing energy (~${Math.round(reducedPairing)} cm⁻¹, rough)` : `the pairing energy reduced in the complex (0.8 × ${freeIonPairing} = ${Math.round(reducedPairing)} cm⁻¹)`;
+  const pairingText = freeIonPairing === null ? `an assumed pairing energy (about ${formatInteger(reducedPairing)} cm⁻¹, rough)` : `the pairing energy reduced in the complex (0.8 × ${formatInteger(freeIonPairing)} = ${formatInteger(reducedPairing)} cm⁻¹)`;
   return {
     spinState: low ? 'low' : 'high',
     nearSpinCrossover: near,
     hasChoice: true,
-    basis: `Δo ≈ ${Math.round(effective)} cm⁻¹ is ${low ? 'above' : 'below'} ${pairingText}`,
+    basis: `Δo ≈ ${formatInteger(effective)} cm⁻¹ is ${low ? 'above' : 'below'} ${pairingText}`,
     pairingEnergyCm: reducedPairing,
   };
 }

@@ -14,6 +14,7 @@
  * Pure arithmetic: no I/O. Self-exchange constants are good to about ±0.5 log units at best and
  * several depend on the medium (cation catalysis), so the result is an order-of-magnitude guide.
  */
+import { formatDecimal, formatScientific } from './number-format';
 
 /** Collision frequency of two neutral molecules in solution (M⁻¹ s⁻¹), the usual choice (Marcus; Sutin 1983). */
 export const COLLISION_FREQUENCY_Z = 1e11;
@@ -290,7 +291,7 @@ function compare(observedK12: number, predictedK12: number): MarcusComparison {
       verdict: 'consistent-with-outer-sphere',
       explanation:
         `Observed k12 is within a factor of ${10 ** window} of the outer-sphere prediction ` +
-        `(|log(obs/pred)| = ${Math.abs(logRatio).toFixed(2)} ≤ ${window}); agreement is what an outer-sphere route ` +
+        `(|log(obs/pred)| = ${formatDecimal(Math.abs(logRatio), 2)} ≤ ${window}); agreement is what an outer-sphere route ` +
         'leads one to expect, though on its own it does not exclude a bridged route.',
     };
   }
@@ -301,7 +302,7 @@ function compare(observedK12: number, predictedK12: number): MarcusComparison {
       logRatio,
       verdict: 'faster-than-outer-sphere',
       explanation:
-        `Observed k12 is ${ratio.toExponential(1)} times the outer-sphere prediction (log ratio ${logRatio.toFixed(2)} > ${window}): ` +
+        `Observed k12 is ${formatScientific(ratio, 2)} times the outer-sphere prediction (log ratio ${formatDecimal(logRatio, 2)} > ${window}): ` +
         'a path the cross relation does not describe is likely, most often a bridged (inner-sphere) route; ' +
         'also check for catalysis by the medium (e.g. cation catalysis of anion couples) and the k11 values used.',
     };
@@ -312,7 +313,7 @@ function compare(observedK12: number, predictedK12: number): MarcusComparison {
     logRatio,
     verdict: 'slower-than-predicted',
     explanation:
-      `Observed k12 is ${(1 / ratio).toExponential(1)} times slower than the prediction (log ratio ${logRatio.toFixed(2)} < −${window}): ` +
+      `Observed k12 is ${formatScientific(1 / ratio, 2)} times slower than the prediction (log ratio ${formatDecimal(logRatio, 2)} < −${window}): ` +
       'work terms, non-adiabatic transfer, a spin change, or an unsuitable k11 (e.g. the anomalously slow cross reactions ' +
       'of aqueous Fe(III)/Fe(II)) are the usual suspects; a bridged route cannot make a reaction slower than the outer-sphere path.',
   };
@@ -442,10 +443,10 @@ export function marcusCrossRate(input: MarcusInput): MarcusResult {
 
   if (workTerms === null) notes.push('Work terms neglected (or taken to cancel), as in the textbook form.');
   if (f12 < 0.1) {
-    notes.push(`Large driving force: f12 = ${f12.toPrecision(3)} lowers k12 ${(1 / Math.sqrt(f12)).toFixed(1)}-fold; do not drop it.`);
+    notes.push(`Large driving force: f12 = ${formatScientific(f12, 3)} lowers k12 ${formatScientific(1 / Math.sqrt(f12), 2)}-fold; do not drop it.`);
   }
   if (k12 > 1e10) {
-    notes.push('Predicted k12 exceeds the diffusion limit (~1e9–1e10 M⁻¹ s⁻¹): the observed rate will be diffusion-controlled.');
+    notes.push('Predicted k12 exceeds the diffusion limit (about 10⁹–10¹⁰ M⁻¹ s⁻¹): the observed rate will be diffusion-controlled.');
   }
   if (K12 > 1e20 || K12 < 1e-20) {
     notes.push('|log K12| > 20: far outside the range where the cross relation has been tested (inverted region not modelled).');

@@ -26,6 +26,7 @@ import { classifyFormula } from './classify';
 import { parseFormula } from './formula-parser';
 import { marcusCrossRate, MarcusInputError, type MarcusResult } from './marcus';
 import { romanNumeral as roman } from './metal-ions';
+import { capitaliseSentence, formatDuration, formatPowerOfTen } from './number-format';
 import { findCouple, speciesKey } from './redox-couples';
 import type {
   BridgeAssessment,
@@ -82,13 +83,7 @@ function label(partner: RoutePartner): string {
 }
 
 function formatHalfLife(seconds: number): string {
-  if (!Number.isFinite(seconds)) return 'indefinitely long';
-  if (seconds < 1e-3) return `${seconds.toExponential(0)} s`;
-  if (seconds < 60) return `${seconds.toPrecision(2)} s`;
-  if (seconds < 3600) return `${(seconds / 60).toPrecision(2)} min`;
-  if (seconds < 86400 * 2) return `${(seconds / 3600).toPrecision(2)} h`;
-  if (seconds < 86400 * 365) return `${(seconds / 86400).toPrecision(2)} days`;
-  return `${(seconds / (86400 * 365)).toPrecision(2)} years`;
+  return Number.isFinite(seconds) ? formatDuration(seconds) : 'indefinitely long';
 }
 
 function labilityWords(role: string, partner: RoutePartner): string {
@@ -496,7 +491,7 @@ export function predictRoute(oxidantFormula: string, reductantFormula: string, o
     } else if (good.length > 0) {
       route = 'either';
       reasons.push(
-        `${opener.parsed.input} substitutes only moderately fast (log k ≈ ${(hostIsOxidant ? red : ox).logKPerSecond.toFixed(1)} s⁻¹): a bridged path would be limited by its substitution rate, and the outer-sphere path may win (e.g. V(II) reductions are often substitution-controlled or outer-sphere, common practice).`,
+        `${opener.parsed.input} substitutes only moderately fast (k ≈ ${formatPowerOfTen((hostIsOxidant ? red : ox).logKPerSecond)} s⁻¹): a bridged path would be limited by its substitution rate, and the outer-sphere path may win (e.g. V(II) reductions are often substitution-controlled or outer-sphere, common practice).`,
       );
     } else if (openerSpeed === 'fast' && hostIsOxidant) {
       // Murmann, Taube & Posey, J. Am. Chem. Soc. 1957, 79, 262: with Cr(II), the 18O of
@@ -584,14 +579,14 @@ export function predictRoute(oxidantFormula: string, reductantFormula: string, o
     input: { first: oxidantFormula, second: reductantFormula },
     route,
     redoxPair: assigned.redoxPair,
-    reasons,
+    reasons: reasons.map(capitaliseSentence),
     bridgingCandidates,
     bridgeHost,
     oxidant: ox,
     reductant: red,
     roles: assigned.roles,
     transferredLigand,
-    expectedProducts,
+    expectedProducts: expectedProducts.map(capitaliseSentence),
     cautions: uniqueStrings([...ox.cautions, ...red.cautions]),
     marcus,
     marcusNotes,

@@ -82,7 +82,7 @@ export interface MeasurementKindRule {
 
 /** Units and physical limits per kind (common practice; diffusion limit ≈ 10¹⁰–10¹¹ M⁻¹ s⁻¹). */
 export const measurementKindRules: Readonly<Record<MeasurementKind, MeasurementKindRule>> = {
-  'water-exchange': { label: 'Water exchange', symbol: 'k_ex', units: ['s-1'], positive: true, min: 0, max: 1e12 },
+  'water-exchange': { label: 'Water exchange', symbol: 'kₑₓ', units: ['s-1'], positive: true, min: 0, max: 1e12 },
   'ligand-exchange': { label: 'Ligand exchange', symbol: 'k', units: ['s-1', 'M-1 s-1'], positive: true, min: 0, max: 1e12 },
   substitution: { label: 'Substitution', symbol: 'k', units: ['s-1', 'M-1 s-1'], positive: true, min: 0, max: 1e12 },
   'self-exchange': { label: 'Self-exchange', symbol: 'k11', units: ['M-1 s-1'], positive: true, min: 0, max: 1e12 },

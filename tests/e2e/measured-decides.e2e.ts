@@ -75,7 +75,7 @@ describe('a group measurement decides on Check', () => {
     assert.match(await page.getByTestId('verdict-headline').innerText(), /Pentaammineaquacobalt\(III\)[\s\S]*H\. R\. Hunt, H\. Taube, J\. Am\. Chem\. Soc\. 1958, 80, 2642/);
     // k = 5.7e-6 s⁻¹ → t½ = ln 2 / k ≈ 1.2e5 s ≈ 1.4 days: inert by the one-minute line (Taube 1952).
     assert.match(card, /inert/i);
-    assert.match(await page.getByTestId('verdict-rate').innerText(), /t½ ≈ 1.4 days/);
+    assert.match(await page.getByTestId('verdict-rate').innerText(), /t½ ≈ 1.4 d\b/);
     assert.match(await page.getByTestId('verdict-model-footnote').innerText(), /Model’s prediction/);
     await screenshot(page, 'measured-decides-check-wide');
     await context.close();

@@ -28,7 +28,9 @@ describe('LabilityScale', () => {
 
   it('describes itself for screen readers', () => {
     render(<LabilityScale logK={3.2} verdict="labile" label="[Cu(en)₂]²⁺" />);
-    expect(screen.getByLabelText('[Cu(en)₂]²⁺: log k = 3.2, labile; one-minute line at 10^-1.9 s^-1')).toBeTruthy();
+    // 10^3.2 = 1585 s⁻¹ → "1600" at two significant figures; the one-minute line k = ln 2 / 60 s = 0.01155 s⁻¹
+    // (Taube, Chem. Rev. 1952, 50, 69) → "0.012" (notation: common practice, two significant figures).
+    expect(screen.getByLabelText('[Cu(en)₂]²⁺: k ≈ 1600 s⁻¹, labile; one-minute line at k ≈ 0.012 s⁻¹')).toBeTruthy();
   });
 
   it('labels the decades with powers of ten and marks the one-minute line', () => {
@@ -69,6 +71,7 @@ describe('LabilityScale', () => {
       rows.set(y, row);
     }
     expect(rows.size).toBe(2); // some above, some below
-    expect(screen.getByLabelText(/nearby: \[Cr\(H₂O\)₆\]³⁺ \(log k -5\.6, measured\)/)).toBeTruthy();
+    // The neighbour given as log k −5.6: 10^−5.6 = 2.51 × 10⁻⁶ (hand arithmetic), written a × 10ⁿ to two figures.
+    expect(screen.getByLabelText(/nearby: \[Cr\(H₂O\)₆\]³⁺ \(k ≈ 2\.5 × 10⁻⁶ s⁻¹, measured\)/)).toBeTruthy();
   });
 });

@@ -24,7 +24,8 @@ describe('OrbitalDiagram', () => {
   it('shows the Δo value only when it is known', () => {
     const { rerender } = render(<OrbitalDiagram dElectrons={3} geometry="octahedral" spinState={null} deltaOcm={17400} />);
     expect(screen.getByTestId('splitting-arrow')).toBeTruthy();
-    expect(svgTexts(screen.getByTestId('splitting-arrow'))).toContain('≈ 17\u2009400 cm⁻¹');
+    // Digits grouped in threes by a thin (narrow no-break) space, never a comma (IUPAC Green Book, 3rd ed. 2007, §1.3).
+    expect(svgTexts(screen.getByTestId('splitting-arrow'))).toContain('≈ 17\u202f400 cm⁻¹');
     rerender(<OrbitalDiagram dElectrons={3} geometry="octahedral" spinState={null} deltaOcm={null} />);
     expect(screen.getByTestId('splitting-arrow')).toBeTruthy();
     expect(screen.queryByTestId('splitting-value')).toBeNull();

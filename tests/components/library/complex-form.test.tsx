@@ -32,7 +32,7 @@ describe('ComplexFormScreen (new entry)', () => {
     fireEvent.changeText(screen.getByTestId('complex-form-m-0-value'), '-2');
     fireEvent.press(screen.getByTestId('complex-form-save'));
     // Wording from measurementKindRules / checkMeasurement in lib/schemas/library.ts.
-    expect(await screen.findByTestId('complex-form-m-0-value-error')).toHaveTextContent('Water exchange (k_ex) must be greater than zero.');
+    expect(await screen.findByTestId('complex-form-m-0-value-error')).toHaveTextContent('Water exchange (kₑₓ) must be greater than zero.');
     // Cross reactions need their partner.
     fireEvent.press(screen.getByTestId('complex-form-m-0-kind-cross-reaction'));
     expect(screen.getByTestId('complex-form-m-0-unit-M-1 s-1')).toBeTruthy();

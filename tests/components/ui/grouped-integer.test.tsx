@@ -13,6 +13,6 @@ describe('groupedInteger', () => {
 
   it('rounds to a whole number first and keeps the sign', () => {
     expect(groupedInteger(17399.6)).toBe('17,400');
-    expect(groupedInteger(-1500.2)).toBe('-1,500');
+    expect(groupedInteger(-1500.2)).toBe('−1,500'); // the real minus sign (U+2212), common practice
   });
 });

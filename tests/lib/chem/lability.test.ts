@@ -66,7 +66,7 @@ describe('trap 1: the d-count rule is not enough (SCIENCE.md)', () => {
   it('[V(H2O)6]2+ is d3 yet labile (only 2+); [Cr(H2O)6]3+ is d3 and inert', () => {
     expect(classifyFormula('[V(H2O)6]2+').predictedLogKPerSecond).toBeGreaterThan(0);
     expect(classifyFormula('[Cr(H2O)6]3+').predictedLogKPerSecond).toBeLessThan(-3);
-    expect(classifyFormula('[V(H2O)6]2+').reasons.join(' ')).toMatch(/only 2\+/);
+    expect(classifyFormula('[V(H2O)6]2+').reasons.join(' ')).toMatch(/only 2\+/i);
   });
   it('[Ni(H2O)6]2+ shares the d3 CFAE in Dq yet is labile', () => {
     // Basolo & Pearson 1967 (cfse_cfae.json): d3 and d8 both 2.00 / 4.26 Dq, ±0.02.

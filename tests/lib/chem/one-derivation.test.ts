@@ -133,7 +133,9 @@ describe('verdict bands: one definition, consistent with the one-minute line', (
 
   it('the rate line says which band the half-life is in, never "close to" the line', () => {
     for (const result of results) {
-      const line = result.reasons.find((reason) => reason.startsWith(`${result.verdict}: k ≈`));
+      // Sentences start with a capital: "Labile: k ≈ …".
+      const verdictWord = result.verdict.charAt(0).toUpperCase() + result.verdict.slice(1);
+      const line = result.reasons.find((reason) => reason.startsWith(`${verdictWord}: k ≈`));
       expect(line).toMatch(/labile under 1 min, inert from 5 min/);
     }
   });
