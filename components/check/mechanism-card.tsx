@@ -37,12 +37,12 @@ export function MechanismCard({ result }: { result: Classification }) {
         </View>
       </View>
       <PathwayPicture mechanism={mechanism} coordinationNumber={result.coordinationNumber} />
-      <AppText variant="mono" testID="mechanism-rate-law">{mechanism.rateLaw}</AppText>
+      <AppText variant="caption" style={styles.mono} testID="mechanism-rate-law">{mechanism.rateLaw}</AppText>
       <BulletList items={mechanism.reasons} testID="mechanism-reasons" />
       {mechanism.assistedPaths?.map((path) => (
         <View key={path.kind} style={styles.path} testID={`mechanism-${path.kind}`}>
           <AppText variant="label" tone="accent">{path.kind === 'base-hydrolysis' ? 'Base hydrolysis' : 'Acid-catalysed aquation'}</AppText>
-          <AppText variant="mono">{path.rateLaw}</AppText>
+          <AppText variant="caption" style={styles.mono}>{path.rateLaw}</AppText>
           <AppText tone="soft">{path.text}</AppText>
         </View>
       ))}
@@ -121,4 +121,5 @@ const styles = StyleSheet.create({
   head: { flexDirection: 'row', gap: spacing.md, alignItems: 'center' },
   headText: { flex: 1, gap: 2 },
   path: { gap: 2, paddingTop: spacing.xs },
+  mono: { fontFamily: fonts.mono, fontSize: 13, lineHeight: 19 },
 });

@@ -56,7 +56,7 @@ export function PlannerScreen({ initialStart, initialLigands }: PlannerScreenPro
         </AppText>
       </View>
       <View style={[styles.inputs, wide && styles.inputsWide]}>
-        <View style={styles.field}>
+        <View style={[styles.field, wide && styles.fieldWide]}>
           <TextField
             label="Start complex"
             value={start}
@@ -66,7 +66,7 @@ export function PlannerScreen({ initialStart, initialLigands }: PlannerScreenPro
             error={state.kind === 'problem' && state.field === 'start' ? state.problem : undefined}
           />
         </View>
-        <View style={styles.field}>
+        <View style={[styles.field, wide && styles.fieldWide]}>
           <TextField
             label="Entering ligands, in order"
             value={ligands}
@@ -128,7 +128,8 @@ const styles = StyleSheet.create({
   intro: { gap: spacing.xs },
   inputs: { gap: spacing.lg },
   inputsWide: { flexDirection: 'row', alignItems: 'flex-start' },
-  field: { flex: 1, gap: spacing.sm },
+  field: { gap: spacing.sm },
+  fieldWide: { flex: 1 },
   chips: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
   result: { gap: spacing.lg },
   chain: { alignItems: 'center', gap: spacing.sm },

@@ -11,6 +11,7 @@
  * −d[complex]/dt = (k_aq + k_H[H⁺])[complex] (same sources).
  */
 import baseHydrolysisData from '@/data/base-hydrolysis.json';
+import { scientificText } from './scientific-text';
 import type { Checked, LigandInstance } from './types';
 
 export interface AssistedPath {
@@ -67,7 +68,7 @@ export function assistedPaths(metal: string, oxidationState: number, ligands: re
     kind: 'base-hydrolysis',
     rateLaw: 'rate = k_OH[complex][OH⁻]',
     text: baseMeasured
-      ? `${baseText}; for ${record?.species} k_OH = ${baseMeasured.kOHPerMolarSecond} M⁻¹ s⁻¹ against k_aq = ${baseMeasured.kAquationPerSecond.toExponential(1)} s⁻¹ at ${baseMeasured.temperatureC} °C (${baseMeasured.source}), about 10^${Math.log10(baseMeasured.kOHPerMolarSecond / baseMeasured.kAquationPerSecond).toFixed(1)} times faster at 1 M OH⁻ and still about 10^${Math.log10((baseMeasured.kOHPerMolarSecond * 1e-4) / baseMeasured.kAquationPerSecond).toFixed(1)} times at pH 10`
+      ? `${baseText}; for ${record?.species} k_OH = ${baseMeasured.kOHPerMolarSecond} M⁻¹ s⁻¹ against k_aq = ${scientificText(baseMeasured.kAquationPerSecond)} s⁻¹ at ${baseMeasured.temperatureC} °C (${baseMeasured.source}), about ${scientificText(baseMeasured.kOHPerMolarSecond / baseMeasured.kAquationPerSecond, 1)} times faster at 1 M OH⁻ and still about ${scientificText((baseMeasured.kOHPerMolarSecond * 1e-4) / baseMeasured.kAquationPerSecond, 1)} times at pH 10`
       : baseText,
     ...(baseMeasured ? { measured: baseMeasured } : {}),
   });
@@ -78,7 +79,7 @@ export function assistedPaths(metal: string, oxidationState: number, ligands: re
     paths.push({
       kind: 'acid-catalysed-aquation',
       rateLaw: 'rate = (k_aq + k_H[H⁺])[complex]',
-      text: acidRecord ? `${acidText}; for ${acidRecord.species} k_H = ${acidRecord.kH} M⁻¹ s⁻¹ against k_aq = ${acidRecord.kAquation.toExponential(1)} s⁻¹ (${acidRecord.source})` : acidText,
+      text: acidRecord ? `${acidText}; for ${acidRecord.species} k_H = ${acidRecord.kH} M⁻¹ s⁻¹ against k_aq = ${scientificText(acidRecord.kAquation)} s⁻¹ (${acidRecord.source})` : acidText,
       ...(acidRecord ? { measured: { kHPerMolarSecond: acidRecord.kH, kAquationPerSecond: acidRecord.kAquation, temperatureC: acidRecord.temperatureC, source: acidRecord.source, checked: acidRecord.checked } } : {}),
     });
   }

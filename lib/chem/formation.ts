@@ -13,6 +13,7 @@
 import formationRateData from '@/data/formation-rates.json';
 import { classifyFormula } from './classify';
 import { findLigand, suggestLigandSpelling } from './ligands';
+import { scientificText } from './scientific-text';
 import { FormulaError, formulaProblemText, type Checked, type Confidence, type LigandDefinition } from './types';
 
 export type FormationField = 'complex' | 'ligand' | 'ionicStrength' | 'temperature' | 'contactDistance';
@@ -153,10 +154,7 @@ function signed(charge: number): string {
   return charge === 0 ? '0' : `${charge > 0 ? '+' : '−'}${Math.abs(charge)}`;
 }
 
-function scientific(value: number): string {
-  const [mantissa = '', exponent = '0'] = value.toExponential(1).split('e');
-  return `${mantissa}×10^${Number(exponent)}`;
-}
+const scientific = (value: number) => scientificText(value);
 
 /** The Eigen–Wilkins estimate of k_f for a ligand entering a metal complex (usually an aqua ion). */
 export function formationRate(complex: string, ligandText: string, options: FormationOptions = {}): FormationResult {
@@ -222,7 +220,7 @@ export function formationRate(complex: string, ligandText: string, options: Form
       confidence = 'low';
     } else if (kex >= 1e8 && RIGID_CHELATES.has(ligand.id)) {
       limitingStep = 'ring-closure';
-      reasons.push(`chelate on a very labile ion (k_ex ≥ 10^8 s⁻¹): the first bond forms so fast that ring closure, with the ligand turning its second donor into place, limits; the estimate is an upper bound`);
+      reasons.push(`chelate on a very labile ion (k_ex ≥ 10⁸ s⁻¹): the first bond forms so fast that ring closure, with the ligand turning its second donor into place, limits; the estimate is an upper bound`);
     } else {
       limitingStep = 'first-bond';
       reasons.push('chelate: the first bond limits; once one donor is bound the second is held beside the metal and ring closure is fast');
