@@ -40,6 +40,14 @@ export const csvColumns = [
 export const csvColumnSchema = z.enum(csvColumns);
 export type CsvColumn = z.infer<typeof csvColumnSchema>;
 
+/**
+ * The columns the CSV export writes: the importer's, with the entry's review state (`status`:
+ * draft, in-review, accepted, returned, declined, retired, as the reader sees the entry) after its
+ * name. The importer ignores `status`: imported entries wait for review (`in-review`).
+ */
+export const exportCsvColumns = ['entry', 'formula', 'name', 'status', ...csvColumns.slice(3)] as const;
+export type ExportCsvColumn = (typeof exportCsvColumns)[number];
+
 /** Other headers people use for the same column (compared lower-case, ignoring spaces, _ - . and brackets). */
 export const csvColumnSynonyms: Readonly<Record<CsvColumn, readonly string[]>> = {
   entry: ['entry', 'entry id', 'entry key', 'group', 'complex id', 'key'],

@@ -1,6 +1,6 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { stringify } from 'csv-stringify/sync';
-import { csvColumns, type CsvColumn, type ExportQuery } from '@/lib/schemas/exchange';
+import { exportCsvColumns, type ExportCsvColumn, type ExportQuery } from '@/lib/schemas/exchange';
 import { spreadsheetSafe } from './spreadsheet-safety';
 import type { Citation as CitationDto, ComplexSnapshot } from '@/lib/schemas/library';
 import { Citation } from '@/server/modules/library/citation.entity';
@@ -12,8 +12,9 @@ import { Measurement } from '@/server/modules/library/measurement.entity';
 
 /**
  * The library as the reader sees it (the library search decides which entries and which copy:
- * viewers get accepted snapshots, authors and curators the working copy), written as CSV in the
- * importer's columns so that export → import gives the same library back.
+ * restricted readers match and get accepted snapshots, authors and curators the working copy),
+ * written as CSV in the importer's columns plus `status`, so that export → import gives the same
+ * library back.
  */
 
 export const EXPORT_MAX_ENTRIES = 20_000;
@@ -61,15 +62,16 @@ const cell = (value: string | number | null | undefined) => (value === null || v
 export function snapshotsAsCsv(snapshots: readonly ComplexSnapshot[]): string {
   const rows: string[][] = [];
   snapshots.forEach((snapshot, index) => {
-    const entry: Partial<Record<CsvColumn, string>> = {
+    const entry: Partial<Record<ExportCsvColumn, string>> = {
       entry: String(index + 1),
       formula: snapshot.formula,
       name: snapshot.name,
+      status: snapshot.status,
       notes: cell(snapshot.notes),
     };
     const measured = snapshot.measurements.length > 0 ? snapshot.measurements : [null];
     for (const m of measured) {
-      const values: Partial<Record<CsvColumn, string>> = { ...entry };
+      const values: Partial<Record<ExportCsvColumn, string>> = { ...entry };
       if (m) {
         // String(number) is the shortest text that reads back as the same double (ECMA-262 Number::toString).
         Object.assign(values, {
@@ -95,12 +97,12 @@ export function snapshotsAsCsv(snapshots: readonly ComplexSnapshot[]): string {
           });
         }
       }
-      rows.push(csvColumns.map((column) => spreadsheetSafe(values[column] ?? '')));
+      rows.push(exportCsvColumns.map((column) => spreadsheetSafe(values[column] ?? '')));
     }
   });
   // Cells a spreadsheet would run as formulas carry a leading apostrophe (spreadsheet-safety.ts);
   // the importer takes it off again, so an export still imports back unchanged.
-  return stringify([csvColumns as unknown as string[], ...rows], { record_delimiter: '\r\n' });
+  return stringify([exportCsvColumns as unknown as string[], ...rows], { record_delimiter: '\r\n' });
 }
 
 /** The distinct citations of the exported entries, in first-seen order. */

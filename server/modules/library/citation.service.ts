@@ -83,8 +83,3 @@ export async function citationOfGroup(em: EntityManager, groupId: string, citati
   }
   return toCitationDto(citation);
 }
-
-export async function listCitations(em: EntityManager, groupId: string): Promise<CitationDto[]> {
-  const rows = await em.find(Citation, { groupId }, { orderBy: { year: 'desc', authors: 'asc', id: 'asc' }, limit: 2000 });
-  return rows.map(toCitationDto);
-}

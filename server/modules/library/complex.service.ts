@@ -47,6 +47,7 @@ import { ComplexRevision, type RevisionKind } from './revision.entity';
 import { diffSnapshots } from './revision-diff';
 import { noChanges, summariseChanges, summariseCreation, type EntryChanges } from './change-summary';
 import { emitLibraryEvent } from './library-events';
+import { acceptedRevisionNumbers } from './library-visibility';
 
 /**
  * Library entries: create, read, edit (optimistic locking), the review workflow, measurements,
@@ -704,7 +705,7 @@ async function visibleRevisions(em: EntityManager, entry: LoadedEntry) {
   const view = viewFor(entry.reader, facts(entry.complex));
   const where =
     view === 'published'
-      ? { complexId: entry.complex.id, number: { $lte: entry.complex.acceptedVersion ?? 0 } }
+      ? { complexId: entry.complex.id, number: { $in: await acceptedRevisionNumbers(em, entry.complex.id) } }
       : { complexId: entry.complex.id };
   return em.find(ComplexRevision, where, { orderBy: { number: 'desc' } });
 }

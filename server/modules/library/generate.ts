@@ -45,7 +45,13 @@ export async function generateSyntheticEntries(em: EntityManager, options: Gener
                 'formula', g.v->>'formula', 'name', (g.v->>'name') || ' (synthetic ' || g.n || ')', 'notes', 'Synthetic benchmark entry',
                 'status', 'accepted', 'metal', g.v->>'metal', 'oxidationState', (g.v->>'oxidationState')::int,
                 'dElectrons', (g.v->>'dElectrons')::int, 'spinState', g.v->'spinState', 'verdict', g.v->>'verdict',
-                'ligandIds', g.v->'ligandIds', 'measurements', '[]'::jsonb) end,
+                'ligandIds', g.v->'ligandIds', 'measurements',
+                -- The accepted content holds the same measurement kinds as the working copy (restricted readers search it).
+                case when g.n % 3 = 0 then jsonb_build_array(jsonb_build_object(
+                  'id', gen_random_uuid(), 'kind', 'water-exchange', 'value', 1, 'unit', 's-1', 'temperatureK', 298.15,
+                  'ionicStrengthM', null, 'medium', null, 'method', null, 'partnerFormula', null, 'citation', null,
+                  'notes', 'Synthetic benchmark value', 'createdAt', now(), 'updatedAt', now()))
+                else '[]'::jsonb end) end,
               case when ? = 'accepted' then 1 end, case when ? = 'accepted' then now() end, now(), now()
          from g`,
       [JSON.stringify(templates), options.count, templates.length, options.groupId, status, options.createdById ?? null, status, status, status],

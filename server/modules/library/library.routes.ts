@@ -20,11 +20,12 @@ import type { Orm } from '@/server/db/orm';
 import { getAuth, getMembership, isUuid, requireAuth, requireGroupRole } from '@/server/http/auth-middleware';
 import { AppError } from '@/server/http/errors';
 import { optionalJsonBody, parseWith } from '@/server/http/validate';
-import { findOrCreateCitation, listCitations } from './citation.service';
+import { findOrCreateCitation } from './citation.service';
 import * as complexes from './complex.service';
 import { reviewQueue, searchComplexes } from './complex-search';
 import { classifyOrExplain } from './derive';
 import { membershipIn, resolveGroup } from './library-access';
+import { citationVisibleTo, listVisibleCitations, ownFieldsView } from './library-visibility';
 import { addLigand, listLigands } from './ligand.service';
 import { findLibraryMeasurements } from './measured.service';
 
@@ -143,7 +144,7 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
   router.get('/citations', requireAuth, async (req, res) => {
     const { groupId } = parseWith(groupQuerySchema, req.query, 'query');
     const membership = await resolveGroup(em(), actor(res).userId, groupId);
-    res.json({ citations: await listCitations(em(), membership.groupId) });
+    res.json({ citations: await listVisibleCitations(em(), membership, actor(res).userId) });
   });
 
   router.post('/citations', requireAuth, async (req, res) => {
@@ -152,7 +153,11 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
     const membership = await resolveGroup(manager, actor(res).userId, groupId);
     if (membership.role === 'viewer') throw new AppError('FORBIDDEN', 'Viewers cannot add citations; contributors and curators can.');
     const result = await findOrCreateCitation(manager, membership.groupId, citation, actor(res).userId);
-    res.status(result.created ? 201 : 200).json(result.citation);
+    if (result.created || (await citationVisibleTo(manager, membership, actor(res).userId, result.citation.id))) {
+      res.status(result.created ? 201 : 200).json(result.citation);
+    } else {
+      res.status(200).json(ownFieldsView(result.citation, citation));
+    }
   });
 
   router.get('/ligands', requireAuth, async (req, res) => {
