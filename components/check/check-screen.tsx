@@ -1,11 +1,12 @@
 import { useCallback, useEffect, useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { Platform, Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
 import { decideByLibrary } from '@/lib/chem/library-decision';
 import type { Geometry, LibraryMeasurementRef } from '@/lib/chem/types';
 import { deferred } from '@/components/deferred/deferred';
+import { JumpBar, type JumpTarget } from '@/components/ui/jump-bar';
 import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
-import { spacing } from '@/components/ui/theme';
+import { colors, radius, spacing } from '@/components/ui/theme';
 import { useDebouncedValue } from '@/components/ui/use-debounced-value';
 import { useWideLayout } from '@/components/ui/use-wide-layout';
 import { ExampleChips, GeometryChoice, TemperatureChoice } from './check-options';
@@ -33,7 +34,18 @@ export interface CheckScreenProps {
   onFormulaSettled?: (formula: string) => void;
 }
 
-/** Check: one complex, labile or inert, and why. Input left and cards right on a wide screen. */
+const CHECK_SECTIONS: JumpTarget[] = [
+  { id: 'verdict', label: 'Verdict' },
+  { id: 'why', label: 'Why' },
+  { id: 'ligand-field', label: 'Ligand field' },
+  { id: 'safety', label: 'Safety' },
+];
+
+/**
+ * Check: one complex, labile or inert, and why. The controls (examples, geometry, temperature) sit with
+ * the input: in a column that stays in view on a wide screen, in one folded line under the field on a
+ * phone. The verdict leads the results; a jump bar reaches the sections below it.
+ */
 export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenProps) {
   const wide = useWideLayout();
   const [formula, setFormula] = useState(initialFormula);
@@ -41,6 +53,7 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
   // An unusable temperature in the field: no result is shown rather than one for another temperature.
   const [temperatureProblem, setTemperatureProblem] = useState<string | null>(null);
   const [geometry, setGeometry] = useState<Geometry | null>(null);
+  const [conditionsOpen, setConditionsOpen] = useState(false);
   const settled = useDebouncedValue(formula, 180);
   const state = useClassification(settled, temperatureC, geometry);
   // Measured decides: the group's accepted measurement for this species, handed up by the deferred card.
@@ -61,6 +74,39 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
     onFormulaSettled?.(settled.trim());
   }, [settled, onFormulaSettled]);
 
+  // Geometry override and temperature, with the input: always open on a wide screen; on a phone one line
+  // that opens (and stays open while the temperature field holds an unusable value).
+  const showOptions = wide || conditionsOpen || temperatureProblem !== null;
+  const conditionsLine =
+    state.kind === 'result' && !wide ? (
+      <Pressable
+        accessibilityRole="button"
+        accessibilityState={{ expanded: showOptions }}
+        accessibilityLabel={`Conditions: ${geometry ?? `${state.result.geometry} (predicted)`}, ${temperatureC} °C. ${showOptions ? 'Hide' : 'Change'}`}
+        onPress={() => setConditionsOpen((open) => !open || temperatureProblem !== null)}
+        style={styles.conditions}
+        testID="check-conditions"
+      >
+        <AppText variant="label" tone="muted">Conditions</AppText>
+        <AppText style={styles.conditionsValue} numberOfLines={1}>
+          {geometry ?? state.result.geometry} · {temperatureC} °C
+        </AppText>
+        <AppText tone="accent" style={styles.conditionsAction}>{showOptions ? 'Hide' : 'Change'}</AppText>
+      </Pressable>
+    ) : null;
+  const options =
+    state.kind === 'result' && showOptions ? (
+      <View style={styles.inputColumn} testID="check-options">
+        <GeometryChoice
+          value={geometry}
+          predicted={geometry === null ? state.result.geometry : null}
+          coordinationNumber={state.result.coordinationNumber}
+          onChange={setGeometry}
+        />
+        <TemperatureChoice valueC={temperatureC} onChange={setTemperatureC} onProblem={setTemperatureProblem} />
+      </View>
+    ) : null;
+
   const inputColumn = (
     <View style={styles.inputColumn}>
       <View style={styles.intro}>
@@ -78,22 +124,10 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
         testID="formula-input"
       />
       <ExampleChips onPick={updateFormula} oneRow={!wide} />
+      {conditionsLine}
+      {wide ? null : options}
     </View>
   );
-
-  // Geometry override and temperature: beside the input on a wide screen, under the verdict on a phone.
-  const options =
-    state.kind === 'result' ? (
-      <View style={styles.inputColumn}>
-        <GeometryChoice
-          value={geometry}
-          predicted={geometry === null ? state.result.geometry : null}
-          coordinationNumber={state.result.coordinationNumber}
-          onChange={setGeometry}
-        />
-        <TemperatureChoice valueC={temperatureC} onChange={setTemperatureC} onProblem={setTemperatureProblem} />
-      </View>
-    ) : null;
 
   const results =
     state.kind === 'result' && temperatureProblem ? (
@@ -101,23 +135,22 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
         <View style={styles.placeholder} testID="check-temperature-problem">
           <AppText tone="danger">No result: {temperatureProblem}</AppText>
         </View>
-        {wide ? null : options}
       </View>
     ) : state.kind === 'result' ? (
       <View style={styles.cards} testID="check-result">
-        <VerdictCard result={shown ?? state.result} />
+        <JumpBar targets={CHECK_SECTIONS} label="Sections of the answer" testID="check-jump-bar" />
+        <VerdictCard result={shown ?? state.result} whyOpenInitially={wide} />
         <LibraryMeasuredCard formula={state.result.formula} temperatureC={temperatureC} onDecision={onDecision} />
-        <CautionsCard result={state.result} />
-        {wide ? null : options}
-        <IdentityCard result={state.result} />
+        <LigandFieldCard result={state.result} />
         <MechanismCard result={state.result} />
         {state.result.geometry === 'square-planar' && state.result.dElectrons === 8 && state.result.electronShell === 'd' ? (
           <PlannerLinkCard formula={state.result.formula} />
         ) : null}
         <IncomingLigandCard result={state.result} />
         <ScaleCard result={state.result} />
-        <LigandFieldCard result={state.result} />
+        <IdentityCard result={state.result} />
         <HintsCard result={state.result} />
+        <CautionsCard result={state.result} />
       </View>
     ) : state.kind === 'empty' ? (
       <View style={styles.placeholder} testID="check-empty">
@@ -132,7 +165,7 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
     <Screen>
       {wide ? (
         <View style={styles.wideRow}>
-          <View style={styles.wideInput}>
+          <View style={[styles.wideInput, Platform.OS === 'web' ? stickyColumn : null]} testID="check-input-column">
             {inputColumn}
             {options}
           </View>
@@ -148,7 +181,23 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
   );
 }
 
+// position: sticky (web): the input column stays in view while the answer scrolls past it.
+const stickyColumn = { position: 'sticky', top: spacing.lg, alignSelf: 'flex-start' } as unknown as ViewStyle;
+
 const styles = StyleSheet.create({
+  conditions: {
+    minHeight: 44,
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: spacing.sm,
+    borderWidth: 1,
+    borderColor: colors.line,
+    borderRadius: radius.md,
+    backgroundColor: colors.card,
+    paddingHorizontal: spacing.md,
+  },
+  conditionsValue: { flex: 1 },
+  conditionsAction: { fontWeight: '600' },
   inputColumn: { gap: spacing.lg },
   intro: { gap: spacing.xs },
   cards: { gap: spacing.lg },

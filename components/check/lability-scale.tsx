@@ -44,7 +44,7 @@ const NEIGHBOUR_DOT_Y = AXIS_Y - 13;
 const ROW_BELOW_Y = 87;
 const DECADE_LABEL_Y = 108;
 const MINUTE_LABEL_Y = 128;
-const LABEL_FONT = 11;
+const LABEL_FONT = 12;
 const CHAR_W = LABEL_FONT * 0.58;
 const MAX_LABEL_CHARS = 16;
 const MAX_MARKER_CHARS = 28;
@@ -120,7 +120,7 @@ function PowerOfTen({ x, exponent }: { x: number; exponent: number }) {
   return (
     <SvgText testID="decade-label" x={x} y={DECADE_LABEL_Y} fontSize={LABEL_FONT} fontFamily={fonts.mono} fill={colors.muted} textAnchor="middle">
       <TSpan>10</TSpan>
-      <TSpan dy={-5} fontSize={8}>{exponentText}</TSpan>
+      <TSpan dy={-5} fontSize={LABEL_FONT}>{exponentText}</TSpan>
     </SvgText>
   );
 }
@@ -168,6 +168,9 @@ export function LabilityScale({ logK, verdict, label, neighbours = [], intermedi
     below: [{ from: minuteX - 2, to: minuteX + 2 }],
   });
 
+  // A label ("10" and a two-digit exponent at 12 px) needs about 40 px; thin the labels to keep them apart.
+  const pxPerDecade = (width - 2 * PAD_X) / span;
+  const decadeStep = [2, 5, 10].find((step) => step * pxPerDecade >= 44) ?? 10;
   const decades: number[] = [];
   for (let exponent = SCALE_MIN_LOG_K; exponent <= SCALE_MAX_LOG_K; exponent++) decades.push(exponent);
   const minuteLabelX = labelCentre(minuteX, 62, width);
@@ -186,15 +189,15 @@ export function LabilityScale({ logK, verdict, label, neighbours = [], intermedi
         <Rect testID="band-inert" x={leftEnd} y={BAND_TOP} width={Math.max(0, bandLowX - leftEnd)} height={AXIS_Y - BAND_TOP} fill={verdictColors.inert.bg} />
         <Rect testID="band-intermediate" x={bandLowX} y={BAND_TOP} width={Math.max(0, bandHighX - bandLowX)} height={AXIS_Y - BAND_TOP} fill={verdictColors.intermediate.bg} />
         <Rect testID="band-labile" x={bandHighX} y={BAND_TOP} width={Math.max(0, rightEnd - bandHighX)} height={AXIS_Y - BAND_TOP} fill={verdictColors.labile.bg} />
-        <SvgText x={markerX < leftEnd + 40 ? markerX + 8 : leftEnd + 5} y={BAND_TOP + 10} fontSize={10} fontFamily={fonts.strong} fill={verdictColors.inert.fg}>inert</SvgText>
-        <SvgText x={markerX > rightEnd - 44 ? markerX - 8 : rightEnd - 5} y={BAND_TOP + 10} fontSize={10} fontFamily={fonts.strong} fill={verdictColors.labile.fg} textAnchor="end">labile</SvgText>
+        <SvgText x={markerX < leftEnd + 40 ? markerX + 8 : leftEnd + 5} y={BAND_TOP + 11} fontSize={LABEL_FONT} fontFamily={fonts.strong} fill={verdictColors.inert.fg}>inert</SvgText>
+        <SvgText x={markerX > rightEnd - 44 ? markerX - 8 : rightEnd - 5} y={BAND_TOP + 11} fontSize={LABEL_FONT} fontFamily={fonts.strong} fill={verdictColors.labile.fg} textAnchor="end">labile</SvgText>
 
         {/* Axis with a tick per decade, labelled every second decade */}
         <Line x1={leftEnd} y1={AXIS_Y} x2={rightEnd} y2={AXIS_Y} stroke={colors.ink} strokeWidth={1.2} />
         {decades.map((exponent) => {
           const x = xOf(exponent);
-          // Every second decade; every fourth on very narrow screens so labels never touch.
-          const labelled = exponent % (width < 320 ? 4 : 2) === 0;
+          // Every second decade where there is room, else every fifth, so labels (12 px) never touch.
+          const labelled = exponent % decadeStep === 0;
           return (
             <G key={exponent}>
               <Line x1={x} y1={AXIS_Y} x2={x} y2={AXIS_Y + (labelled ? 6 : 3)} stroke={colors.ink} strokeWidth={1} />
@@ -202,7 +205,7 @@ export function LabilityScale({ logK, verdict, label, neighbours = [], intermedi
             </G>
           );
         })}
-        <SvgText x={rightEnd} y={HEIGHT - 2} fontSize={9} fontFamily={fonts.body} fill={colors.muted} textAnchor="end">k / s⁻¹</SvgText>
+        <SvgText x={rightEnd} y={HEIGHT - 2} fontSize={LABEL_FONT} fontFamily={fonts.body} fill={colors.muted} textAnchor="end">k / s⁻¹</SvgText>
 
         {/* Taube's one-minute line */}
         <G testID="one-minute">

@@ -16,6 +16,11 @@ export interface OrbitalDiagramProps {
 
 // Drawing units (the SVG scales to its container through the viewBox).
 const VIEW_W = 360;
+/**
+ * Text size in drawing units: the drawing scales with its frame, and 14 units stay at least 12 px down
+ * to a frame of 310 px (a 390 px phone's card).
+ */
+const TEXT = 14;
 const VIEW_H = 232;
 const CENTRE_X = 214;
 const MID_Y = 122;
@@ -98,12 +103,12 @@ function DownElectron({ x, baseY }: { x: number; baseY: number }) {
   return <Path testID="electron-down" d={`M ${x} ${top} L ${x} ${baseY} L ${x + ARROW_BARB} ${baseY - ARROW_BARB - 1}`} stroke={colors.accent} strokeWidth={1.8} strokeLinecap="round" strokeLinejoin="round" fill="none" />;
 }
 
-function SubscriptLabel({ x, y, main, sub, anchor = 'start', size = 13 }: { x: number; y: number; main: string; sub: string; anchor?: 'start' | 'end'; size?: number }) {
+function SubscriptLabel({ x, y, main, sub, anchor = 'start', size = 15 }: { x: number; y: number; main: string; sub: string; anchor?: 'start' | 'end'; size?: number }) {
   // One text with a lowered, smaller run: the renderer places the subscript right after the letter.
   return (
     <SvgText x={x} y={y} fontSize={size} fontFamily={fonts.body} fill={colors.ink} textAnchor={anchor}>
       <TSpan>{main}</TSpan>
-      {sub ? <TSpan dy={size * 0.3} fontSize={size * 0.78}>{sub}</TSpan> : null}
+      {sub ? <TSpan dy={size * 0.3} fontSize={Math.max(TEXT, size * 0.8)}>{sub}</TSpan> : null}
     </SvgText>
   );
 }
@@ -127,7 +132,7 @@ function LevelGroup({ level, y, labelBelow }: { level: OrbitalLevel; y: number; 
         );
       })}
       {labelBelow ? (
-        <SvgText x={CENTRE_X} y={y + 20} fontSize={12} fontFamily={fonts.body} fill={colors.inkSoft} textAnchor="middle">
+        <SvgText x={CENTRE_X} y={y + 20} fontSize={TEXT} fontFamily={fonts.body} fill={colors.inkSoft} textAnchor="middle">
           five d orbitals, unsplit
         </SvgText>
       ) : (
@@ -149,9 +154,9 @@ function SplittingArrow({ fromY, toY, symbolSub, value }: { fromY: number; toY: 
       <Line x1={x} y1={fromY - 1} x2={x} y2={toY + 1} stroke={colors.inkSoft} strokeWidth={1.3} />
       <Path d={`M ${x - head} ${toY + head + 1} L ${x} ${toY} L ${x + head} ${toY + head + 1}`} stroke={colors.inkSoft} strokeWidth={1.3} fill="none" />
       <Path d={`M ${x - head} ${fromY - head - 1} L ${x} ${fromY} L ${x + head} ${fromY - head - 1}`} stroke={colors.inkSoft} strokeWidth={1.3} fill="none" />
-      <SubscriptLabel x={x - 8} y={value ? midY - 12 : midY + 4} main="Δ" sub={symbolSub} anchor="end" size={14} />
+      <SubscriptLabel x={x - 8} y={value ? midY - 12 : midY + 4} main="Δ" sub={symbolSub} anchor="end" size={16} />
       {value ? (
-        <SvgText testID="splitting-value" x={x - 8} y={midY + 4} fontSize={11} fontFamily={fonts.mono} fill={colors.inkSoft} textAnchor="end">
+        <SvgText testID="splitting-value" x={x - 8} y={midY + 4} fontSize={TEXT} fontFamily={fonts.mono} fill={colors.inkSoft} textAnchor="end">
           {value}
         </SvgText>
       ) : null}
@@ -188,13 +193,13 @@ export function OrbitalDiagram({ dElectrons, geometry, spinState, deltaOcm = nul
         {/* Energy axis */}
         <Line x1={18} y1={VIEW_H - 14} x2={18} y2={22} stroke={colors.lineStrong} strokeWidth={1.2} />
         <Path d={`M 14 28 L 18 20 L 22 28`} stroke={colors.lineStrong} strokeWidth={1.2} fill="none" />
-        <SvgText x={26} y={26} fontSize={11} fontFamily={fonts.body} fill={colors.muted}>E</SvgText>
+        <SvgText x={26} y={26} fontSize={TEXT} fontFamily={fonts.body} fill={colors.muted}>E</SvgText>
 
         {/* Barycentre: the mean energy the split sets keep */}
         {!degenerate ? (
           <G testID="barycentre">
             <Line x1={arrow ? ARROW_X + 8 : 30} y1={barycentreY} x2={VIEW_W - 8} y2={barycentreY} stroke={colors.lineStrong} strokeWidth={1} strokeDasharray="5 4" />
-            <SvgText x={VIEW_W - 8} y={barycentreY + 13} fontSize={10} fontFamily={fonts.body} fill={colors.muted} textAnchor="end">barycentre</SvgText>
+            <SvgText x={VIEW_W - 8} y={barycentreY + 13} fontSize={TEXT} fontFamily={fonts.body} fill={colors.muted} textAnchor="end">barycentre</SvgText>
           </G>
         ) : null}
 
@@ -204,7 +209,7 @@ export function OrbitalDiagram({ dElectrons, geometry, spinState, deltaOcm = nul
           <LevelGroup key={level.id} level={level} y={ys[index] ?? MID_Y} labelBelow={degenerate} />
         ))}
 
-        <SvgText x={30} y={VIEW_H - 10} fontSize={11} fontFamily={fonts.body} fill={colors.muted}>
+        <SvgText x={30} y={VIEW_H - 10} fontSize={TEXT} fontFamily={fonts.body} fill={colors.muted}>
           {`d${dElectrons}${spinState !== null && dElectrons > 0 && dElectrons < 10 ? ` · ${spinState} spin` : ''}`}
         </SvgText>
       </Svg>

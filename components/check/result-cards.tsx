@@ -1,5 +1,6 @@
-import { VERDICT_BANDS_TEXT } from '@/lib/chem/verdict-bands';
-import { StyleSheet, View } from 'react-native';
+import { VERDICT_BANDS_TEXT, VERDICT_DEFINITIONS } from '@/lib/chem/verdict-bands';
+import { useState } from 'react';
+import { Pressable, StyleSheet, View } from 'react-native';
 import { toDisplayFormula } from '@/lib/chem/display-formula';
 import { nearestReferenceRates } from '@/lib/chem/reference-rates';
 import { shortCitation } from '@/lib/chem/library-decision';
@@ -12,8 +13,10 @@ import { formatCelsius, formatCelsiusFromKelvin, formatDecimal, formatInteger, U
 import { FormulaText } from '@/components/ui/formula-text';
 import { KeyValueGrid } from '@/components/ui/key-value';
 import { AppText } from '@/components/ui/text';
-import { colors, spacing } from '@/components/ui/theme';
-import { VerdictBadge } from '@/components/ui/verdict-badge';
+import { jumpTo } from '@/components/ui/jump-bar';
+import { colors, fonts, radius, spacing, verdictColors } from '@/components/ui/theme';
+import { VerdictGlyph } from '@/components/ui/verdict-badge';
+import { capitalise, keyReason, totalSpin } from './key-reason';
 import { LabilityScale } from './lability-scale';
 import { OrbitalDiagram } from './orbital-diagram';
 
@@ -21,56 +24,130 @@ const CONFIDENCE_WORDS = { high: 'high confidence', medium: 'medium confidence',
 
 const DECIDED_WORDS = { library: 'decided by your group’s measurement', reference: 'decided by a published measurement' } as const;
 
-export function VerdictCard({ result }: { result: Classification }) {
-  const library = result.decidedBy === 'library' ? result.libraryMeasurement : undefined;
+const kindWords = (kind: string) => kind.replace(/-/g, ' ');
+
+/**
+ * The verdict as the hero of the page: the word, the half-life as the number that matters, one reason
+ * and what decided it; the derivation follows under "Why" (open on a wide screen, one tap on a phone).
+ */
+export function VerdictCard({ result, whyOpenInitially = true }: { result: Classification; whyOpenInitially?: boolean }) {
   return (
-    <Card title="Verdict" testID="verdict-card">
-      <View style={styles.verdictHead}>
-        <VerdictBadge verdict={result.verdict} size="md" />
-        <AppText tone="soft" testID="verdict-confidence">
-          {result.decidedBy === 'model' ? `predicted · ${CONFIDENCE_WORDS[result.confidence]}` : DECIDED_WORDS[result.decidedBy]}
-        </AppText>
+    <>
+      <VerdictHero result={result} />
+      <WhyCard result={result} openInitially={whyOpenInitially} />
+    </>
+  );
+}
+
+function VerdictHero({ result }: { result: Classification }) {
+  const library = result.decidedBy === 'library' ? result.libraryMeasurement : undefined;
+  const palette = verdictColors[result.verdict];
+  const reason = library || result.measured ? null : keyReason(result);
+  return (
+    <View nativeID="verdict" style={[styles.hero, { borderTopColor: palette.fg }]} testID="verdict-card">
+      <AppText variant="label" tone="muted">Verdict</AppText>
+      <View
+        style={styles.heroHead}
+        accessible
+        accessibilityRole="header"
+        accessibilityLabel={`Verdict: ${result.verdict}`}
+        accessibilityHint={VERDICT_DEFINITIONS[result.verdict]}
+        testID="verdict-badge"
+      >
+        <VerdictGlyph verdict={result.verdict} color={palette.fg} size={40} />
+        <AppText style={[styles.heroWord, { color: palette.fg }]}>{result.verdict}</AppText>
       </View>
+      <AppText style={styles.heroNumbers} testID="verdict-rate">
+        <AppText style={styles.heroNumber}>t½ ≈ {duration(result.halfLifeSeconds)}</AppText>{' '}
+        <AppText tone="soft" style={styles.heroNumberAside}>
+          at {formatCelsius(result.temperatureC)} · k ≈ {powerOfTen(result.logKPerSecond)} s⁻¹
+        </AppText>
+      </AppText>
+      {reason ? (
+        <AppText variant="lead" testID="verdict-key-reason">{reason}</AppText>
+      ) : null}
       {library ? (
         <View style={styles.measured} testID="verdict-headline">
           <AppText variant="label" tone="accent">Measured in your group’s library</AppText>
           <AppText style={styles.headlineEntry}>{library.entryName}</AppText>
           <AppText>
-            k = {scientific(library.kPerSecond)} s⁻¹ at {formatCelsiusFromKelvin(library.temperatureK)} ({library.kind.replace('-', ' ')})
+            k = {scientific(library.kPerSecond)} s⁻¹ at {formatCelsiusFromKelvin(library.temperatureK)} ({kindWords(library.kind)})
           </AppText>
           <AppText variant="caption" tone="muted" testID="verdict-headline-citation">{shortCitation(library.citation)}</AppText>
         </View>
       ) : null}
-      <AppText variant="lead" testID="verdict-rate">
-        k ≈ {powerOfTen(result.logKPerSecond)} s⁻¹ · t½ ≈ {duration(result.halfLifeSeconds)} at {formatCelsius(result.temperatureC)}
-      </AppText>
       {result.measured && !library ? (
         <View style={styles.measured} testID="measured-value">
           <AppText variant="label" tone="accent">Measured</AppText>
           <AppText>
             k = {scientific(result.measured.kPerSecond)} s⁻¹ at {formatCelsiusFromKelvin(result.measured.temperatureK)}
-            ({result.measured.kind.replace('-', ' ')})
+            ({kindWords(result.measured.kind)})
           </AppText>
-          <AppText variant="caption" tone="muted">{result.measured.source}</AppText>
+          <AppText variant="caption" tone="muted" testID="measured-source">{result.measured.source}</AppText>
           {result.measured.checked ? (
             <AppText variant="caption" tone="soft" testID="measured-checked">{CHECKED_MARKER[result.measured.checked]}</AppText>
           ) : null}
         </View>
       ) : null}
-      <AppText variant="caption" tone="muted" testID="verdict-definition">
-        {VERDICT_BANDS_TEXT}
+      <AppText tone="soft">
+        Verdict{' '}
+        <AppText tone="soft" testID="verdict-confidence">
+          {result.decidedBy === 'model'
+            ? `decided by the model: predicted · ${CONFIDENCE_WORDS[result.confidence]} — a rule of thumb, not a measurement`
+            : DECIDED_WORDS[result.decidedBy]}
+        </AppText>
       </AppText>
-      <BulletList items={result.reasons} testID="verdict-reasons" />
-      {library && result.modelVerdict && result.predictedLogKPerSecond !== undefined ? (
-        <View style={styles.footnote} testID="verdict-model-footnote">
-          <AppText variant="caption" tone="soft">
-            Model’s prediction (footnote): {result.modelVerdict}, k ≈ {powerOfTen(result.predictedLogKPerSecond)} s⁻¹
-            {result.modelVerdict !== result.verdict ? ' — the measurement overrules it' : ''}
+      {result.cautions.length > 0 ? (
+        <Pressable accessibilityRole="link" onPress={() => jumpTo('safety')} style={styles.hazardLink} testID="verdict-safety-link">
+          <AppText style={styles.hazardText}>
+            Handle with care: {result.cautions.length === 1 ? 'one safety note' : `${result.cautions.length} safety notes`} under Safety
           </AppText>
-          {result.modelReasons ? <BulletList items={result.modelReasons} testID="verdict-model-reasons" /> : null}
+        </Pressable>
+      ) : null}
+    </View>
+  );
+}
+
+/** The derivation: every reason the engine gave (a published measurement's citation only once, above). */
+function WhyCard({ result, openInitially }: { result: Classification; openInitially: boolean }) {
+  const [open, setOpen] = useState(openInitially);
+  const library = result.decidedBy === 'library' ? result.libraryMeasurement : undefined;
+  const citation = result.measured && !library ? result.measured.source : null;
+  // The citation is printed once, with the measurement in the verdict: the reason repeating it is left out here.
+  const reasons = citation ? result.reasons.filter((reason) => !reason.includes(citation)) : result.reasons;
+  return (
+    <View nativeID="why" style={styles.why} testID="verdict-why">
+      <Pressable
+        accessibilityRole="button"
+        accessibilityState={{ expanded: open }}
+        accessibilityLabel={open ? 'Why: hide the reasons' : `Why: show ${reasons.length} reasons`}
+        onPress={() => setOpen((value) => !value)}
+        style={styles.whyHead}
+        testID="verdict-why-toggle"
+      >
+        <AppText variant="label" tone="muted">Why</AppText>
+        <AppText tone="accent" style={styles.whyCount}>
+          {open ? 'Hide' : `Show ${reasons.length} reasons`}
+        </AppText>
+      </Pressable>
+      {open ? (
+        <View style={styles.whyBody}>
+          <BulletList items={reasons.map(capitalise)} testID="verdict-reasons" />
+          <AppText variant="caption" tone="muted" testID="verdict-definition">
+            {VERDICT_BANDS_TEXT}
+          </AppText>
+          {library && result.modelVerdict && result.predictedLogKPerSecond !== undefined ? (
+            <View style={styles.footnote} testID="verdict-model-footnote">
+              <AppText variant="caption" tone="soft">
+                Model’s prediction (footnote): {result.modelVerdict}, k ≈ {powerOfTen(result.predictedLogKPerSecond)} s⁻¹
+                {result.modelVerdict !== result.verdict ? ' — the measurement overrules it' : ''}
+              </AppText>
+              {result.modelReasons ? <BulletList items={result.modelReasons.map(capitalise)} testID="verdict-model-reasons" /> : null}
+            </View>
+          ) : null}
         </View>
       ) : null}
-    </Card>
+    </View>
   );
 }
 
@@ -102,7 +179,7 @@ export function IdentityCard({ result }: { result: Classification }) {
         items={[
           { label: 'Metal', value: `${result.metal}(${roman(result.oxidationState)})` },
           { label: `${shell} electrons`, value: `${shell}${result.dElectrons}` },
-          { label: 'Spin', value: result.spinState ? `${result.spinState}${result.nearSpinCrossover ? ' (near crossover)' : ''}` : '—' },
+          { label: 'Spin', value: spinText(result) },
           { label: 'Coordination no.', value: String(result.coordinationNumber) },
           { label: 'Geometry', value: `${result.geometry}${result.geometrySource === 'given' ? ' (chosen)' : ''}` },
           { label: 'Molar mass', value: `${formatDecimal(result.molarMassGPerMol, 2)} ${UNITS.gramPerMole}` },
@@ -125,18 +202,26 @@ const DELTA_O_LABELS = { measured: 'Δo (measured)', estimated: 'Δo (estimate)'
 export function LigandFieldCard({ result }: { result: Classification }) {
   const items: { label: string; value: string }[] = [];
   if (result.deltaOcm !== null) items.push({ label: DELTA_O_LABELS[result.deltaOBasis ?? 'estimated'], value: `${formatInteger(result.deltaOcm)} ${UNITS.perCentimetre}` });
-  if (result.lfseDq !== null) items.push({ label: 'LFSE', value: `${formatDecimal(result.lfseDq, Number.isInteger(result.lfseDq) ? 0 : 2)} Dq` });
-  if (result.lfseKJPerMol !== null) items.push({ label: 'LFSE', value: `${formatDecimal(result.lfseKJPerMol, 0)} ${UNITS.kilojoulePerMole}` });
+  // One LFSE: in Dq, and in kJ mol⁻¹ beside it when Δo is known.
+  const lfse = [
+    result.lfseDq !== null ? `${formatDecimal(result.lfseDq, Number.isInteger(result.lfseDq) ? 0 : 2)} Dq` : null,
+    result.lfseKJPerMol !== null ? `${formatDecimal(result.lfseKJPerMol, 0)} ${UNITS.kilojoulePerMole}` : null,
+  ].filter((part): part is string => part !== null);
+  if (lfse.length > 0) items.push({ label: 'LFSE', value: lfse.join(' ≈ ') });
   if (result.activationEnergyDq) {
-    items.push({ label: 'CFAE dissociative', value: `${formatDecimal(result.activationEnergyDq.dissociative, 2)} Dq` });
-    items.push({ label: 'CFAE associative', value: `${formatDecimal(result.activationEnergyDq.associative, 2)} Dq` });
-  }
-  if (result.activationEnergyKJPerMol) {
-    items.push({ label: 'CFAE dissoc.', value: `${formatDecimal(result.activationEnergyKJPerMol.dissociative, 0)} ${UNITS.kilojoulePerMole}` });
+    const kj = result.activationEnergyKJPerMol;
+    items.push({
+      label: 'CFAE dissociative',
+      value: `${formatDecimal(result.activationEnergyDq.dissociative, 2)} Dq${kj ? ` ≈ ${formatDecimal(kj.dissociative, 0)} ${UNITS.kilojoulePerMole}` : ''}`,
+    });
+    items.push({
+      label: 'CFAE associative',
+      value: `${formatDecimal(result.activationEnergyDq.associative, 2)} Dq${kj ? ` ≈ ${formatDecimal(kj.associative, 0)} ${UNITS.kilojoulePerMole}` : ''}`,
+    });
   }
   if (result.jahnTeller) items.push({ label: 'Jahn–Teller', value: result.jahnTeller });
   return (
-    <Card title="Ligand field" testID="ligand-field-card">
+    <Card title="Ligand field" testID="ligand-field-card" nativeID="ligand-field">
       {result.electronShell === 'd' ? (
         <OrbitalDiagram
           dElectrons={result.dElectrons}
@@ -191,12 +276,61 @@ export function HintsCard({ result }: { result: Classification }) {
   );
 }
 
+/** Safety: the cautions in full, or a plain statement that none is flagged (never a clearance). */
 export function CautionsCard({ result }: { result: Classification }) {
-  return <CautionBox cautions={result.cautions} testID="cautions" />;
+  return (
+    <View nativeID="safety">
+      {result.cautions.length > 0 ? (
+        <CautionBox cautions={result.cautions} testID="cautions" />
+      ) : (
+        <Card title="Safety" testID="no-cautions">
+          <AppText tone="soft">
+            No caution is flagged for this formula. That is not a clearance: follow the supplier’s safety data sheet, your
+            institution’s safety office and local regulations.
+          </AppText>
+        </Card>
+      )}
+    </View>
+  );
+}
+
+/** Spin as chemists state it: high or low where there is a choice, else the one arrangement and its S. */
+function spinText(result: Classification): string {
+  if (result.spinState) return `${result.spinState}${result.nearSpinCrossover ? ' (near crossover)' : ''}`;
+  const unpaired = result.unpairedElectrons;
+  if (unpaired === null || unpaired === undefined) return 'no high/low choice';
+  const shell = result.electronShell === 'f' ? 'f' : 'd';
+  return `one arrangement (${shell}${result.dElectrons}): ${unpaired} unpaired, S = ${totalSpin(unpaired)}`;
 }
 
 const styles = StyleSheet.create({
-  verdictHead: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, flexWrap: 'wrap' },
+  hero: {
+    backgroundColor: colors.card,
+    borderRadius: radius.lg,
+    borderWidth: 1,
+    borderColor: colors.line,
+    borderTopWidth: 6,
+    padding: spacing.lg,
+    gap: spacing.sm,
+  },
+  heroHead: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },
+  heroWord: { fontFamily: fonts.strong, fontSize: 44, lineHeight: 52, letterSpacing: -0.5 },
+  heroNumbers: { lineHeight: 36 },
+  heroNumber: { fontFamily: fonts.strong, fontSize: 28, lineHeight: 36 },
+  heroNumberAside: { fontSize: 16 },
+  hazardLink: { minHeight: 44, justifyContent: 'center', alignSelf: 'flex-start' },
+  hazardText: { color: colors.hazard, fontFamily: fonts.strong, textDecorationLine: 'underline' },
+  why: {
+    backgroundColor: colors.card,
+    borderRadius: radius.lg,
+    borderWidth: 1,
+    borderColor: colors.line,
+    paddingHorizontal: spacing.lg,
+    paddingBottom: spacing.sm,
+  },
+  whyHead: { minHeight: 48, flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: spacing.md },
+  whyCount: { fontWeight: '600' },
+  whyBody: { gap: spacing.sm, paddingBottom: spacing.sm },
   readAs: { flexDirection: 'row', alignItems: 'baseline', gap: spacing.sm, flexWrap: 'wrap' },
   measured: {
     borderLeftWidth: 3,

@@ -82,10 +82,10 @@ export function PairPicture({ route, oxidant, reductant, bridge }: PairPicturePr
             </SvgText>
           </G>
         )}
-        <SvgText x={leftX} y={H - 8} fontSize={11} fontFamily={fonts.body} fill={colors.muted} textAnchor="middle">
+        <SvgText x={leftX} y={H - 8} fontSize={12} fontFamily={fonts.body} fill={colors.muted} textAnchor="middle">
           oxidant
         </SvgText>
-        <SvgText x={rightX} y={H - 8} fontSize={11} fontFamily={fonts.body} fill={colors.muted} textAnchor="middle">
+        <SvgText x={rightX} y={H - 8} fontSize={12} fontFamily={fonts.body} fill={colors.muted} textAnchor="middle">
           reductant
         </SvgText>
       </Svg>

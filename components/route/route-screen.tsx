@@ -1,10 +1,11 @@
 import { useEffect, useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { Platform, StyleSheet, View, type ViewStyle } from 'react-native';
 import { BulletList } from '@/components/ui/bullet-list';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { CautionBox } from '@/components/ui/caution-box';
 import { Chip } from '@/components/ui/chip';
+import { JumpBar, type JumpTarget } from '@/components/ui/jump-bar';
 import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
 import { spacing } from '@/components/ui/theme';
@@ -127,7 +128,8 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
       : null;
     results = (
       <View style={styles.cards} testID="route-result">
-        <Card title="Likely route">
+        <JumpBar targets={ROUTE_SECTIONS} label="Sections of the answer" testID="route-jump-bar" />
+        <Card title="Likely route" nativeID="route">
           <RouteBadge route={result.route} />
           <PairPicture route={result.route} oxidant={result.oxidant} reductant={result.reductant} bridge={bridge} />
           <View style={styles.partners}>
@@ -147,8 +149,12 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
         <Card title="Expected products" testID="expected-products">
           <BulletList items={result.expectedProducts} />
         </Card>
-        <BridgingCandidates candidates={result.bridgingCandidates} />
-        <MarcusPanel prefill={state.marcusPrefill} sourceNotes={result.marcusNotes} tableEstimate={result.marcus !== null} />
+        <View nativeID="bridges">
+          <BridgingCandidates candidates={result.bridgingCandidates} />
+        </View>
+        <View nativeID="marcus">
+          <MarcusPanel prefill={state.marcusPrefill} sourceNotes={result.marcusNotes} tableEstimate={result.marcus !== null} />
+        </View>
       </View>
     );
   } else if (state.kind === 'incomplete') {
@@ -164,7 +170,7 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
     <Screen>
       {wide ? (
         <View style={styles.wideRow}>
-          <View style={styles.wideInputs}>{inputs}</View>
+          <View style={[styles.wideInputs, Platform.OS === 'web' ? stickyColumn : null]}>{inputs}</View>
           <View style={styles.wideResults}>{results}</View>
         </View>
       ) : (
@@ -186,6 +192,15 @@ function PartnerLine({ role, formula, verdict }: { role: string; formula: string
     </View>
   );
 }
+
+const ROUTE_SECTIONS: JumpTarget[] = [
+  { id: 'route', label: 'Route' },
+  { id: 'bridges', label: 'Bridges' },
+  { id: 'marcus', label: 'Marcus' },
+];
+
+// position: sticky (web): the pair stays in view while the answer scrolls past it.
+const stickyColumn = { position: 'sticky', top: spacing.lg, alignSelf: 'flex-start' } as unknown as ViewStyle;
 
 const styles = StyleSheet.create({
   inputs: { gap: spacing.md },

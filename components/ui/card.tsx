@@ -3,14 +3,16 @@ import { StyleSheet, View, type ViewStyle, type StyleProp } from 'react-native';
 import { AppText } from './text';
 import { colors, radius, spacing } from './theme';
 
-export function Card({ title, children, style, testID }: {
+export function Card({ title, children, style, testID, nativeID }: {
   title?: string;
+  /** The section's id in the page (jump bars link to it). */
+  nativeID?: string;
   children: ReactNode;
   style?: StyleProp<ViewStyle>;
   testID?: string;
 }) {
   return (
-    <View style={[styles.card, style]} testID={testID}>
+    <View style={[styles.card, style]} testID={testID} nativeID={nativeID}>
       {title ? <AppText variant="label" tone="muted">{title}</AppText> : null}
       {children}
     </View>

@@ -76,7 +76,7 @@ describe('formulas as written', () => {
     await page.getByTestId('formula-input').fill('CrCl3·6H2O');
     await page.getByTestId('read-as').waitFor();
     assert.match(await page.getByTestId('read-as').innerText(), /solid[\s\S]*CrCl₂\(H₂O\)₄/i);
-    assert.match(await page.getByTestId('verdict-card').innerText(), /read as the complex in the solid/i);
+    assert.match(await page.getByTestId('verdict-why').innerText(), /read as the complex in the solid/i);
     await screenshot(page, 'check-hydrate-read-as-wide');
     await page.close();
   });

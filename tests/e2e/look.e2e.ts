@@ -141,3 +141,61 @@ describe('toasts and confirmations', () => {
     await context.close();
   });
 });
+
+describe('Check: the verdict as the hero', () => {
+  it('phone: the verdict, its half-life and reason lead; the controls sit with the input; Why opens on a tap; the jump bar reaches Safety', async () => {
+    const page = await browser.newPage({ viewport: viewports.phone });
+    await page.goto(`${baseUrl()}/check?formula=${encodeURIComponent('[Co(NH3)5Cl]Cl2')}`);
+    await page.getByTestId('verdict-card').waitFor();
+    const conditions = page.getByTestId('check-conditions');
+    const hero = page.getByTestId('verdict-card');
+    const conditionsBox = await conditions.boundingBox();
+    const heroBox = await hero.boundingBox();
+    assert.ok(conditionsBox && heroBox && conditionsBox.y < heroBox.y, 'the conditions come before the verdict');
+    assert.ok(heroBox.y + 200 < viewports.phone.height, 'the verdict starts in the first screen');
+    // [Co(NH3)5Cl]2+: low-spin d6 Co(III), inert (common practice; Taube 1952).
+    const word = page.getByTestId('verdict-badge').getByText('inert', { exact: true });
+    const fontSize = await word.evaluate((el) => parseFloat(getComputedStyle(el).fontSize));
+    assert.ok(fontSize >= 36, `the verdict word is large (${fontSize} px)`);
+    assert.match(await page.getByTestId('verdict-rate').innerText(), /t½ ≈/);
+    assert.equal(await page.getByTestId('verdict-reasons').count(), 0, 'Why starts closed on a phone');
+    await screenshot(page, 'check-hero-phone');
+    await page.getByTestId('verdict-why-toggle').click();
+    await page.getByTestId('verdict-reasons').waitFor();
+    await conditions.click();
+    await page.getByTestId('check-options').waitFor();
+    await page.getByTestId('jump-safety').click();
+    await page.waitForFunction(() => {
+      const safety = document.getElementById('safety');
+      return !!safety && safety.getBoundingClientRect().top < window.innerHeight && document.activeElement === safety;
+    });
+    await page.close();
+  });
+
+  it('wide: the input column stays in view while the answer scrolls, and Why is open', async () => {
+    const page = await browser.newPage({ viewport: viewports.wide });
+    await page.goto(`${baseUrl()}/check?formula=${encodeURIComponent('K3[Fe(CN)6]')}`);
+    await page.getByTestId('verdict-reasons').waitFor();
+    await screenshot(page, 'check-hero-wide');
+    await page.getByTestId('jump-ligand-field').click();
+    await page.waitForFunction(() => (document.getElementById('ligand-field')?.getBoundingClientRect().top ?? 999) < 150);
+    const input = await page.getByTestId('formula-input').boundingBox();
+    assert.ok(input && input.y >= 0 && input.y < viewports.wide.height, 'the formula field is still on screen');
+    await screenshot(page, 'check-ligand-field-wide');
+    await page.close();
+  });
+
+  it('Route has a jump bar to Route, Bridges and Marcus', async () => {
+    const page = await browser.newPage({ viewport: viewports.phone });
+    await page.goto(`${baseUrl()}/route?oxidant=${encodeURIComponent('[Co(NH3)5Cl]2+')}&reductant=${encodeURIComponent('[Cr(H2O)6]2+')}`);
+    await page.getByTestId('route-jump-bar').waitFor();
+    await page.getByTestId('jump-marcus').click();
+    // The Marcus panel ends the page: it comes into view (as far up as the page can scroll) and takes the focus.
+    await page.waitForFunction(() => {
+      const marcus = document.getElementById('marcus');
+      return !!marcus && marcus.getBoundingClientRect().top < window.innerHeight / 2 && document.activeElement === marcus;
+    });
+    await screenshot(page, 'route-jump-marcus-phone');
+    await page.close();
+  });
+});

@@ -1,4 +1,4 @@
-import { render, screen } from '@testing-library/react-native';
+import { fireEvent, render, screen } from '@testing-library/react-native';
 
 import { LabilityScale } from '@/components/check/lability-scale';
 
@@ -37,8 +37,30 @@ describe('LabilityScale', () => {
     render(<LabilityScale logK={-5.6} verdict="inert" label="[Cr(H₂O)₆]³⁺" />);
     const texts = svgTexts(screen.getByTestId('lability-scale'));
     const decadeLabels = screen.getAllByTestId('decade-label').map((node) => svgTexts(node).join(' '));
-    expect(decadeLabels).toEqual(['10 −10', '10 −8', '10 −6', '10 −4', '10 −2', '10 0', '10 2', '10 4', '10 6', '10 8', '10 10']);
+    // At the phone width (340 px, 14.4 px per decade) the 12 px labels go every fifth decade so they never touch.
+    expect(decadeLabels).toEqual(['10 −10', '10 −5', '10 0', '10 5', '10 10']);
     expect(texts).toEqual(expect.arrayContaining(['t½ = 1 min', 'inert', 'labile', 'k / s⁻¹']));
+  });
+
+  it('labels every second decade where there is room, and never sets labels closer than 44 px', () => {
+    render(<LabilityScale logK={-5.6} verdict="inert" label="[Cr(H₂O)₆]³⁺" />);
+    fireEvent(screen.getByTestId('lability-scale'), 'layout', { nativeEvent: { layout: { width: 760, height: 136 } } });
+    const labels = screen.getAllByTestId('decade-label');
+    expect(labels.map((node) => svgTexts(node).join(' '))).toEqual(['10 −10', '10 −8', '10 −6', '10 −4', '10 −2', '10 0', '10 2', '10 4', '10 6', '10 8', '10 10']);
+    const xs = labels.map((node) => Number(node.props.x));
+    for (let i = 1; i < xs.length; i++) expect((xs[i] as number) - (xs[i - 1] as number)).toBeGreaterThanOrEqual(44);
+  });
+
+  it('writes every label of the scale at 12 px or more', () => {
+    render(<LabilityScale logK={-5.6} verdict="inert" label="[Cr(H₂O)₆]³⁺" neighbours={[{ label: '[V(H₂O)₆]³⁺', logK: 2.7, measured: true }]} />);
+    const sizes: number[] = [];
+    const visit = (node: { props: Record<string, unknown>; children?: unknown[] }) => {
+      if (node.props.fontSize !== undefined) sizes.push(Number(node.props.fontSize));
+      for (const child of node.children ?? []) if (typeof child === 'object' && child !== null) visit(child as typeof node);
+    };
+    visit(screen.getByTestId('lability-scale') as unknown as { props: Record<string, unknown>; children?: unknown[] });
+    expect(sizes.length).toBeGreaterThan(5);
+    expect(Math.min(...sizes)).toBeGreaterThanOrEqual(12);
   });
 
   it('clamps values off the scale with an arrow', () => {
