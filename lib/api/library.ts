@@ -7,6 +7,7 @@ import {
   type QueryClient,
 } from '@tanstack/react-query';
 import type { z } from 'zod';
+import { useMemo } from 'react';
 import {
   complexDetailSchema,
   complexListResponseSchema,
@@ -26,7 +27,7 @@ import {
   type TransitionInput,
   type SaveComplexInput,
 } from '@/lib/schemas/library';
-import { ApiError, apiErrorFrom, apiRequest } from './api-client';
+import { ApiError, apiErrorFrom, apiRequest, requestHeaders, writeKeys } from './api-client';
 
 /**
  * The curated library: typed calls for /api/complexes, /api/review-queue and /api/ligands,
@@ -100,12 +101,12 @@ export function retryUnlessClientError(failureCount: number, error: unknown): bo
  * Like apiRequest, but a stale-version 409 keeps its `current` entry (apiRequest's generic error
  * shape drops extra members of the error body).
  */
-async function versionedRequest<T>(path: string, schema: z.ZodType<T>, init: { method: string; body?: unknown }): Promise<T> {
+async function versionedRequest<T>(path: string, schema: z.ZodType<T>, init: { method: string; body?: unknown; idempotencyKey?: string }): Promise<T> {
   let response: Response;
   try {
     response = await fetch(`/api${path}`, {
       method: init.method,
-      headers: init.body === undefined ? undefined : { 'Content-Type': 'application/json' },
+      headers: requestHeaders(init),
       body: init.body === undefined ? undefined : JSON.stringify(init.body),
       credentials: 'same-origin',
     });
@@ -135,13 +136,13 @@ export function fetchComplex(id: string, signal?: AbortSignal): Promise<ComplexD
   return apiRequest(entryPath(id), complexDetailSchema, { signal });
 }
 
-export function createComplex(input: CreateComplexInput): Promise<ComplexDetail> {
-  return apiRequest('/complexes', complexDetailSchema, { method: 'POST', body: input });
+export function createComplex(input: CreateComplexInput, idempotencyKey?: string): Promise<ComplexDetail> {
+  return apiRequest('/complexes', complexDetailSchema, { method: 'POST', body: input, idempotencyKey });
 }
 
 /** Saves the whole entry (one request, one revision); a stale version throws StaleVersionError. */
-export function saveComplex(id: string, input: SaveComplexInput): Promise<ComplexDetail> {
-  return versionedRequest(entryPath(id), complexDetailSchema, { method: 'PUT', body: input });
+export function saveComplex(id: string, input: SaveComplexInput, idempotencyKey?: string): Promise<ComplexDetail> {
+  return versionedRequest(entryPath(id), complexDetailSchema, { method: 'PUT', body: input, idempotencyKey });
 }
 
 export function submitComplex(id: string, input: TransitionInput = {}): Promise<ComplexDetail> {
@@ -260,18 +261,26 @@ export function useLigandsQuery(groupId: string | null, enabled = true) {
 
 export function useCreateComplexMutation() {
   const client = useQueryClient();
+  const keys = useMemo(() => writeKeys(), []);
   return useMutation<ComplexDetail, Error, CreateComplexInput>({
-    mutationFn: createComplex,
-    onSuccess: (entry) => entryChanged(client, entry),
+    mutationFn: (input) => createComplex(input, keys.keyFor(input)),
+    onSuccess: (entry) => {
+      keys.done();
+      return entryChanged(client, entry);
+    },
   });
 }
 
 /** The one place a stale save (409) is handled: the cache takes the entry as it is now. */
 export function useSaveComplexMutation(id: string) {
   const client = useQueryClient();
+  const keys = useMemo(() => writeKeys(), []);
   return useMutation<ComplexDetail, Error, SaveComplexInput>({
-    mutationFn: (input) => saveComplex(id, input),
-    onSuccess: (entry) => entryChanged(client, entry),
+    mutationFn: (input) => saveComplex(id, input, keys.keyFor(input)),
+    onSuccess: (entry) => {
+      keys.done();
+      return entryChanged(client, entry);
+    },
     onError: (error) => rememberCurrent(client, error),
   });
 }

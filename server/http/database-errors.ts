@@ -23,6 +23,10 @@ const unavailableMessages = [
   'connect ECONNREFUSED',
   'Client has encountered a connection error',
   'the database system is',
+  'Connection ended unexpectedly',
+  'terminating connection',
+  // knex, when the connection died in the middle of a transaction and the next query finds it closed.
+  'Transaction query already complete',
 ];
 
 export function isDatabaseUnavailable(error: unknown): boolean {

@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import type { ApiErrorBody } from '@/lib/schemas/errors';
 import { AppError } from './errors';
 import { isDatabaseUnavailable } from './database-errors';
+import { isKeyClash } from './idempotency';
 
 /** Unknown routes under /api get the error shape, never the app's HTML. */
 export const apiNotFound: RequestHandler = (req, _res, next) => {
@@ -23,6 +24,9 @@ function toAppError(error: unknown): AppError {
   const status = (error as { status?: unknown; statusCode?: unknown } | null)?.status;
   if (typeof status === 'number' && status >= 400 && status < 500) {
     return new AppError('VALIDATION_FAILED', 'The request could not be read.');
+  }
+  if (isKeyClash(error)) {
+    return new AppError('CONFLICT', 'Another request with the same Idempotency-Key is being saved; send it again in a moment to get its result.');
   }
   if (isDatabaseUnavailable(error)) {
     return new AppError('UNAVAILABLE', 'The database is not reachable right now. Try again in a moment.');

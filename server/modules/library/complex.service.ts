@@ -22,6 +22,7 @@ import {
   type UpdateMeasurementInput,
 } from '@/lib/schemas/library';
 import { AppError, notFound } from '@/server/http/errors';
+import { claimIdempotencyKey } from '@/server/http/idempotency';
 import { parseWith } from '@/server/http/validate';
 import { recordAudit } from '@/server/modules/audit/audit.service';
 import { User } from '@/server/modules/auth/user.entity';
@@ -217,6 +218,7 @@ async function commit(em: EntityManager, actor: Actor, complex: ComplexEntity, b
         { ...plan.set, version: newVersion, updatedAt: new Date() },
       );
       if (affected === 0) throw new StaleVersion();
+      await claimIdempotencyKey(tem, complex.id);
       await plan.apply?.(tem, newVersion);
       await refreshMeasurementSummary(tem, complex.id);
       const fresh = await tem.findOneOrFail(Complex, { id: complex.id }, { refresh: true });
@@ -326,6 +328,7 @@ export async function createComplex(em: EntityManager, actor: Actor, input: Crea
   const id = randomUUID();
   await em.transactional(async (tem) => {
     const now = new Date();
+    await claimIdempotencyKey(tem, id);
     await tem.insert(Complex, {
       id,
       groupId: membership.groupId,
@@ -658,7 +661,6 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
       },
     },
   });
-  const review = await em.findOneOrFail(ComplexReview, { id: reviewId });
   emitLibraryEvent(em, {
     type: 'reviewed',
     complexId: complex.id,
@@ -670,7 +672,15 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
     comment: input.comment,
     submitterId: complex.submittedById ?? null,
   });
-  const people = await peopleNames(em, [actor.userId]);
+  return reviewResponse(em, actor, id, reviewId);
+}
+
+/** A review with the entry after it; the latest review when no id is given (replayed retries). */
+export async function reviewResponse(em: EntityManager, actor: Actor, id: string, reviewId?: string): Promise<ReviewResponse> {
+  const review = reviewId
+    ? await em.findOneOrFail(ComplexReview, { id: reviewId })
+    : await em.findOneOrFail(ComplexReview, { complexId: id }, { orderBy: { createdAt: 'desc', id: 'desc' } });
+  const people = await peopleNames(em, [review.reviewerId]);
   return {
     review: {
       id: review.id,

@@ -19,6 +19,7 @@ import { FeedCache, type ChangeFeed } from '@/server/db/change-feed';
 import type { Orm } from '@/server/db/orm';
 import { getAuth, getMembership, isUuid, requireAuth, requireGroupRole } from '@/server/http/auth-middleware';
 import { AppError } from '@/server/http/errors';
+import { idempotent } from '@/server/http/idempotency';
 import { optionalJsonBody, parseWith } from '@/server/http/validate';
 import { findOrCreateCitation } from './citation.service';
 import * as complexes from './complex.service';
@@ -54,6 +55,9 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
   const searches = searchCache(changeFeed);
   const em = () => orm.em.fork();
   const actor = (res: Parameters<typeof getAuth>[0]) => ({ userId: getAuth(res).user.id });
+  // Writes accept an Idempotency-Key; a retry gets the first result (or the entry as it is now).
+  const once = (status: number) => idempotent(orm, status, (_req, res, id) => complexes.getComplex(em(), actor(res), id));
+  const reviewOnce = idempotent(orm, 201, (_req, res, id) => complexes.reviewResponse(em(), actor(res), id));
 
   router.get('/complexes', requireAuth, async (req, res) => {
     const query = parseWith(complexSearchQuerySchema, req.query, 'query');
@@ -65,7 +69,7 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
     res.json(cached ?? (await run()));
   });
 
-  router.post('/complexes', requireAuth, async (req, res) => {
+  router.post('/complexes', requireAuth, once(201), async (req, res) => {
     const input = parseWith(createComplexInputSchema, req.body);
     res.status(201).json(await complexes.createComplex(em(), actor(res), input));
   });
@@ -75,28 +79,28 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
   });
 
   // The whole entry, based on a version: the one way the app saves an edit.
-  router.put('/complexes/:id', requireAuth, async (req, res) => {
+  router.put('/complexes/:id', requireAuth, once(200), async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     res.json(await complexes.saveComplex(em(), actor(res), id, parseWith(saveComplexInputSchema, req.body)));
   });
 
-  router.patch('/complexes/:id', requireAuth, async (req, res) => {
+  router.patch('/complexes/:id', requireAuth, once(200), async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     const input = parseWith(updateComplexInputSchema, req.body);
     res.json(await complexes.updateComplex(em(), actor(res), id, input));
   });
 
-  router.post('/complexes/:id/submit', requireAuth, async (req, res) => {
+  router.post('/complexes/:id/submit', requireAuth, once(200), async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     res.json(await complexes.submitComplex(em(), actor(res), id, parseWith(transitionInputSchema, optionalJsonBody(req))));
   });
 
-  router.post('/complexes/:id/reviews', requireAuth, async (req, res) => {
+  router.post('/complexes/:id/reviews', requireAuth, reviewOnce, async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     res.status(201).json(await complexes.reviewComplex(em(), actor(res), id, parseWith(reviewInputSchema, req.body)));
   });
 
-  router.post('/complexes/:id/retire', requireAuth, async (req, res) => {
+  router.post('/complexes/:id/retire', requireAuth, once(200), async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     res.json(await complexes.retireComplex(em(), actor(res), id, parseWith(transitionInputSchema, optionalJsonBody(req))));
   });
@@ -119,18 +123,18 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
     res.json(await complexes.getRevision(em(), actor(res), id, number));
   });
 
-  router.post('/complexes/:id/measurements', requireAuth, async (req, res) => {
+  router.post('/complexes/:id/measurements', requireAuth, once(201), async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     res.status(201).json(await complexes.addMeasurement(em(), actor(res), id, parseWith(measurementInputSchema, req.body)));
   });
 
-  router.patch('/complexes/:id/measurements/:mid', requireAuth, async (req, res) => {
+  router.patch('/complexes/:id/measurements/:mid', requireAuth, once(200), async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     const mid = pathId(req, 'mid', 'That measurement');
     res.json(await complexes.updateMeasurement(em(), actor(res), id, mid, parseWith(updateMeasurementInputSchema, req.body)));
   });
 
-  router.delete('/complexes/:id/measurements/:mid', requireAuth, async (req, res) => {
+  router.delete('/complexes/:id/measurements/:mid', requireAuth, once(200), async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     const mid = pathId(req, 'mid', 'That measurement');
     const { version } = parseWith(versionQuerySchema, req.query, 'query');
