@@ -97,6 +97,26 @@ it('answers 503 (never another 5xx, never a hang) while PostgreSQL is stopped mi
   expect(recoveredAfterMs).toBeGreaterThanOrEqual(0);
   expect(recoveredAfterMs).toBeLessThan(10_000);
   expect(Number(found[0]?.n)).toBe(report.acknowledgedCreates.length);
+  // Safe retries: every create answered 503 (or not at all) is sent again with its Idempotency-Key,
+  // as a client does after Retry-After. Those that had in fact committed must not be written twice.
+  const names = report.unansweredCreates.map((u) => u.body.name);
+  const committedBefore = await queryRows<{ name: string }>(cluster.url, 'select name from complex where name = any($1)', [names]);
+  const retried = [];
+  for (const unanswered of report.unansweredCreates) {
+    retried.push((await unanswered.client.request('POST', '/api/complexes', unanswered.body, { headers: { 'Idempotency-Key': unanswered.key } })).status);
+  }
+  const duplicates = await queryRows<{ name: string; n: string }>(
+    cluster.url,
+    'select name, count(*) as n from complex where name = any($1) group by name having count(*) > 1',
+    [names],
+  );
+  console.log(
+    `retries after the outage: ${report.unansweredCreates.length} creates answered 503 or not at all, ${committedBefore.length} of them had committed; ` +
+      `retried with their keys: ${retried.filter((s) => s === 201).length} × 201; duplicated by the retry: ${duplicates.length}`,
+  );
+  expect(retried.every((status) => status === 201)).toBe(true);
+  expect(duplicates).toEqual([]);
+
   // And it really works again: a write after recovery.
   const after = new HttpClient(server.baseUrl);
   await after.signIn('contributor@larkspur.example.org', DEMO_PASSWORD);

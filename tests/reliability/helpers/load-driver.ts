@@ -36,6 +36,8 @@ export interface LoadReport {
   failures: string[];
   /** 409s that followed an unanswered change of the same entry (its commit raced the outage). */
   conflictsAfterUnansweredChange: number;
+  /** Creates answered 503 or not at all, with what a client needs to send them again (same Idempotency-Key). */
+  unansweredCreates: { client: HttpClient; key: string; body: { formula: string; name: string; notes: string } }[];
 }
 
 const FORMULAS = ['[Co(NH3)6]3+', '[Cr(H2O)6]3+', '[Fe(CN)6]4-', '[Ni(en)3]2+', '[Cu(NH3)4]2+', '[Rh(NH3)5Cl]2+', 'K3[Cr(ox)3]', '[Ru(bpy)3]2+', '[Mn(H2O)6]2+', '[V(H2O)6]3+'];
@@ -65,7 +67,9 @@ export async function runLoad(options: {
   tolerated?: number[];
   seed?: number;
 }): Promise<LoadReport> {
-  const report: LoadReport = { samples: [], acknowledgedCreates: [], acknowledgedEdits: new Map(), acknowledgedEditVersions: [], failures: [], conflictsAfterUnansweredChange: 0 };
+  const report: LoadReport = { samples: [], acknowledgedCreates: [], acknowledgedEdits: new Map(), acknowledgedEditVersions: [], failures: [], conflictsAfterUnansweredChange: 0, unansweredCreates: [] };
+  // Idempotency keys unique to this run (the same database may see several runs).
+  const runTag = Math.random().toString(36).slice(2, 10);
   const started = Date.now();
   const deadline = started + options.durationMs;
   const tolerated = new Set(options.tolerated ?? []);
@@ -110,7 +114,13 @@ export async function runLoad(options: {
         else if (op === 'classify') result = await client.post('/api/classify', { formula: choose(FORMULAS) });
         else if (op === 'create') {
           created += 1;
-          result = await client.post('/api/complexes', { formula: choose(FORMULAS), name: `load entry w${index}-${created}`, notes: `worker ${index}` });
+          const body = { formula: choose(FORMULAS), name: `load entry w${index}-${created}`, notes: `worker ${index}` };
+          const key = `load-${runTag}-w${index}-${created}`;
+          result = await client.request('POST', '/api/complexes', body, { headers: { 'Idempotency-Key': key } }).catch((error: unknown) => {
+            report.unansweredCreates.push({ client, key, body });
+            throw error;
+          });
+          if (result.status === 503) report.unansweredCreates.push({ client, key, body });
           const id = (result.body as { id?: unknown }).id;
           if (result.status === 201 && typeof id === 'string') {
             report.acknowledgedCreates.push(id);
