@@ -12,7 +12,7 @@
  */
 import formationRateData from '@/data/formation-rates.json';
 import { classifyFormula } from './classify';
-import { findLigand, suggestLigandSpelling } from './ligands';
+import { readEnteringLigand } from './entering-ligand';
 import { scientificText } from './scientific-text';
 import { FormulaError, formulaProblemText, type Checked, type Confidence, type LigandDefinition } from './types';
 
@@ -142,12 +142,9 @@ function freeIonId(id: string): string {
 }
 
 function readLigand(text: string): LigandDefinition {
-  const token = text.trim();
-  if (token === '') throw new FormationInputError('ligand', 'The entering ligand is empty: give one from the ligand table, e.g. NH3, Cl, bpy');
-  const ligand = findLigand(token);
-  if (ligand) return ligand;
-  const suggestion = suggestLigandSpelling(token);
-  throw new FormationInputError('ligand', `Unknown entering ligand "${token}"${suggestion ? ` (did you mean ${suggestion}?)` : ''}: give one from the ligand table, e.g. NH3, Cl, bpy`);
+  const reading = readEnteringLigand(text);
+  if ('problem' in reading) throw new FormationInputError('ligand', `The entering ligand ${reading.problem}`);
+  return reading.ligand;
 }
 
 function signed(charge: number): string {

@@ -10,7 +10,8 @@
 import transEffectData from '@/data/trans-effect.json';
 import { classifyFormula } from './classify';
 import { formatCharge } from './formula-parser';
-import { findLigand, ligandWithId, suggestLigandSpelling } from './ligands';
+import { readEnteringLigand } from './entering-ligand';
+import { ligandWithId } from './ligands';
 import { FormulaError, formulaProblemText, type LigandDefinition } from './types';
 
 export type Isomer = 'cis' | 'trans' | null;
@@ -142,14 +143,10 @@ function labelled(formula: string, isomer: Isomer): string {
 }
 
 function readEntering(text: string, index: number): LigandDefinition {
-  const token = text.trim();
+  const reading = readEnteringLigand(text);
   const field = `ligands[${index}]`;
-  if (token === '') throw new SequenceInputError(field, `Entering ligand ${index + 1} is empty: give one from the ligand table, e.g. NH3, Cl, py`);
-  const ligand = findLigand(token);
-  if (!ligand) {
-    const suggestion = suggestLigandSpelling(token);
-    throw new SequenceInputError(field, `Unknown entering ligand "${token}" (ligand ${index + 1})${suggestion ? `: did you mean ${suggestion}?` : ''}`);
-  }
+  if ('problem' in reading) throw new SequenceInputError(field, `Entering ligand ${index + 1} ${reading.problem}`);
+  const ligand = reading.ligand;
   if (ligand.denticity !== 1) throw new SequenceInputError(field, `Entering ligand ${index + 1} (${ligand.id}) binds through ${ligand.denticity} donor atoms: the planner adds one monodentate ligand per step`);
   return ligand;
 }

@@ -42,7 +42,7 @@ for (const size of Object.keys(viewports) as ViewportName[]) {
       assert.match(await page.getByTestId('incoming-ligand-published').innerText(), /k_f = 1600 M⁻¹ s⁻¹/);
       assert.match(await page.getByTestId('incoming-ligand-card').innerText(), /first bond/);
       await page.getByTestId('incoming-ligand-input').fill('XYZ');
-      await page.getByText(/Unknown entering ligand "XYZ"/).waitFor();
+      await page.getByText(/"XYZ" is not in the ligand table/).waitFor();
       await page.getByTestId('incoming-ligand-NH3').click();
       await page.getByTestId('incoming-ligand-result').scrollIntoViewIfNeeded();
       assert.ok((await horizontalOverflowPx(page)) <= 0, 'no horizontal scrolling');

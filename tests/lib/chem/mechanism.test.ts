@@ -34,6 +34,8 @@ const measured: [string, number, string[], string][] = [
   ['[Fe(H2O)5(OH)]2+', 7.0, ['Id'], 'Swaddle & Merbach, Inorg. Chem. 1981; LM1995'],
   ['[Ga(H2O)5(OH)]2+', 6.2, ['Id'], 'Hugi-Cleary, Helm & Merbach 1985; LM1995'],
   ['[Cr(H2O)5(OH)]2+', 2.7, ['Id'], 'Xu, Krouse & Swaddle, Inorg. Chem. 1985; LM1995'],
+  // An 18-electron organometallic aqua ion whose measured volume overrules the 18-electron trend (D):
+  ['[Mn(CO)3(H2O)3]+', -4.5, ['Ia'], 'Prinz, Koelle, Ulrich, Merbach, Maas & Hegetschweiler, Inorg. Chem. 2004, 43, 2387 (abstract: Ia)'],
   ['[Co(NH3)5(H2O)]3+', 1.2, ['Id'], 'Tong, Krouse & Swaddle, Inorg. Chem. 1976'],
   ['[Cr(NH3)5(H2O)]3+', -5.8, ['Ia'], 'Guastalla & Swaddle, Can. J. Chem. 1973'],
   ['[Rh(NH3)5(H2O)]3+', -4.1, ['Ia'], 'Swaddle & Stranks, J. Am. Chem. Soc. 1972'],
