@@ -15,6 +15,7 @@ import {
   type ComplexListResponse,
 } from '@/lib/schemas/library';
 import { z } from 'zod';
+import { complexFacetsQuerySchema, type ComplexFacets } from '@/lib/schemas/library-facets';
 import { FeedCache, type ChangeFeed } from '@/server/db/change-feed';
 import type { Orm } from '@/server/db/orm';
 import { getAuth, getMembership, isUuid, requireAuth, requireGroupRole } from '@/server/http/auth-middleware';
@@ -24,6 +25,7 @@ import { optionalJsonBody, parseWith } from '@/server/http/validate';
 import { findOrCreateCitation } from './citation.service';
 import * as complexes from './complex.service';
 import { reviewQueue, searchComplexes } from './complex-search';
+import { complexFacets } from './complex-facets';
 import { classifyOrExplain } from './derive';
 import { membershipIn, resolveGroup } from './library-access';
 import { citationVisibleTo, listVisibleCitations, ownFieldsView } from './library-visibility';
@@ -53,6 +55,7 @@ function searchCache(feed: ChangeFeed | undefined) {
 export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
   const router = Router();
   const searches = searchCache(changeFeed);
+  const facetCache = changeFeed ? new FeedCache<ComplexFacets>(changeFeed, ['library'], { maxEntries: 500, ttlMs: 30_000 }) : null;
   const em = () => orm.em.fork();
   const actor = (res: Parameters<typeof getAuth>[0]) => ({ userId: getAuth(res).user.id });
   // Writes accept an Idempotency-Key; a retry gets the first result (or the entry as it is now).
@@ -66,6 +69,16 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
     // What a person may see depends on who they are and their roles: both are in the key.
     const key = JSON.stringify([user.id, user.memberships, query]);
     const cached = searches ? await searches.through(key, run) : undefined;
+    res.json(cached ?? (await run()));
+  });
+
+  // Before /complexes/:id, which would take "facets" for an id.
+  router.get('/complexes/facets', requireAuth, async (req, res) => {
+    const query = parseWith(complexFacetsQuerySchema, req.query, 'query');
+    const { user } = getAuth(res);
+    const run = () => complexFacets(em(), user.id, query, { memberships: user.memberships });
+    const key = JSON.stringify(['facets', user.id, user.memberships, query]);
+    const cached = facetCache ? await facetCache.through(key, run) : undefined;
     res.json(cached ?? (await run()));
   });
 
