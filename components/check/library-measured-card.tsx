@@ -6,9 +6,11 @@ import { useLibraryMeasuredQuery } from '@/lib/api/library';
 import { candidatesFromRows, pickDecidingMeasurement } from '@/lib/chem/library-decision';
 import type { LibraryMeasurementRef } from '@/lib/chem/types';
 import { Card } from '@/components/ui/card';
+import { Chip } from '@/components/ui/chip';
 import { AppText } from '@/components/ui/text';
 import { colors, spacing } from '@/components/ui/theme';
 import { citationText, conditionsText, kindLabel, measurementValueText } from '@/components/library/library-format';
+import { useChosenGroup } from './chosen-group';
 
 export interface LibraryDecision {
   /** The formula the decision belongs to (a decision never outlives its formula). */
@@ -20,6 +22,7 @@ export interface LibraryDecision {
  * Measured decides: when the signed-in person's group library holds accepted measurements of this
  * complex (same metal, oxidation state and ligand set), they are listed here, and the one that
  * decides (lib/chem/library-decision.ts) is handed up so the verdict card shows it as the headline.
+ * A person in several groups chooses which group's library decides (the last choice is kept).
  */
 export function LibraryMeasuredCard({
   formula,
@@ -31,8 +34,10 @@ export function LibraryMeasuredCard({
   onDecision?: (decision: LibraryDecision) => void;
 }) {
   const me = useMeQuery();
-  const groupId = me.data?.memberships[0]?.groupId ?? null;
-  const groupName = me.data?.memberships[0]?.groupName ?? '';
+  const memberships = me.data?.memberships ?? [];
+  const { group, choose } = useChosenGroup(me.data?.user.id ?? null, memberships);
+  const groupId = group?.groupId ?? null;
+  const groupName = group?.groupName ?? '';
   const measured = useLibraryMeasuredQuery(groupId, formula);
   const items = measured.data?.libraryMeasurements ?? [];
   const deciding = items.length > 0 ? pickDecidingMeasurement(candidatesFromRows(items), temperatureC + 273.15) : null;
@@ -42,9 +47,31 @@ export function LibraryMeasuredCard({
     // The key stands for the decision's content; a new object with the same content changes nothing.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [formula, decidingKey, onDecision]);
-  if (!groupId || items.length === 0) return null;
+  if (!groupId) return null;
+  const picker =
+    memberships.length > 1 ? (
+      <View style={styles.picker} accessibilityRole="radiogroup" accessibilityLabel="Group whose measurements decide" testID="library-group-picker">
+        <AppText variant="caption" tone="soft">Measurements from</AppText>
+        {memberships.map((m) => (
+          <Chip key={m.groupId} label={m.groupName} selected={m.groupId === groupId} onPress={() => choose(m.groupId)} testID={`library-group-${m.groupId}`} />
+        ))}
+      </View>
+    ) : null;
+  if (items.length === 0) {
+    // One group and nothing measured: nothing to show. Several groups: the choice stays within reach.
+    if (!picker) return null;
+    return (
+      <Card title="Measured in your groups" testID="library-measured">
+        {picker}
+        <AppText variant="caption" tone="muted" testID="library-measured-none">
+          {measured.isPending ? `Looking in ${groupName}…` : `No accepted measurement of this complex in ${groupName}.`}
+        </AppText>
+      </Card>
+    );
+  }
   return (
     <Card title={`Measured in ${groupName}`} testID="library-measured">
+      {picker}
       {items.map((item) => (
         <View key={item.id} style={styles.row}>
           <AppText>
@@ -67,6 +94,7 @@ export function LibraryMeasuredCard({
 }
 
 const styles = StyleSheet.create({
+  picker: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm },
   row: { gap: 2, paddingVertical: spacing.xs, borderBottomWidth: 1, borderBottomColor: colors.line },
   value: { fontWeight: '600' },
 });

@@ -57,6 +57,9 @@ const GEOMETRY_WORDS: Record<Geometry, string> = {
   'pentagonal-bipyramidal': 'Pentagonal-bipyramidal',
   'square-antiprismatic': 'Square-antiprismatic',
   'tricapped-trigonal-prismatic': 'Tricapped-trigonal-prismatic',
+  sandwich: 'Sandwich',
+  'bent-sandwich': 'Bent sandwich',
+  'half-sandwich': 'Half-sandwich',
   other: 'Other geometry,',
 };
 

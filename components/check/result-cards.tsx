@@ -208,15 +208,15 @@ export function LigandFieldCard({ result }: { result: Classification }) {
     result.lfseKJPerMol !== null ? `${formatDecimal(result.lfseKJPerMol, 0)} ${UNITS.kilojoulePerMole}` : null,
   ].filter((part): part is string => part !== null);
   if (lfse.length > 0) items.push({ label: 'LFSE', value: lfse.join(' ≈ ') });
-  if (result.activationEnergyDq) {
-    const kj = result.activationEnergyKJPerMol;
+  if (result.lfseLossToTransitionStateDq) {
+    const kj = result.lfseLossToTransitionStateKJPerMol;
     items.push({
-      label: 'CFAE dissociative',
-      value: `${formatDecimal(result.activationEnergyDq.dissociative, 2)} Dq${kj ? ` ≈ ${formatDecimal(kj.dissociative, 0)} ${UNITS.kilojoulePerMole}` : ''}`,
+      label: 'LFSE lost, dissociative',
+      value: `${formatDecimal(result.lfseLossToTransitionStateDq.dissociative, 2)} Dq${kj ? ` ≈ ${formatDecimal(kj.dissociative, 0)} ${UNITS.kilojoulePerMole}` : ''}`,
     });
     items.push({
-      label: 'CFAE associative',
-      value: `${formatDecimal(result.activationEnergyDq.associative, 2)} Dq${kj ? ` ≈ ${formatDecimal(kj.associative, 0)} ${UNITS.kilojoulePerMole}` : ''}`,
+      label: 'LFSE lost, associative',
+      value: `${formatDecimal(result.lfseLossToTransitionStateDq.associative, 2)} Dq${kj ? ` ≈ ${formatDecimal(kj.associative, 0)} ${UNITS.kilojoulePerMole}` : ''}`,
     });
   }
   if (result.jahnTeller) items.push({ label: 'Jahn–Teller', value: result.jahnTeller });
@@ -243,8 +243,10 @@ export function LigandFieldCard({ result }: { result: Classification }) {
           : result.deltaOBasis === 'rough'
             ? 'Δo a rough value: no published g for this ion or no f for a ligand. '
             : 'Δo estimated from Jørgensen’s f·g, with π-acceptor ligands weighted up for back-bonding. '}
-        The same Δo is used in every line of this answer. Crystal-field activation energies (CFAE) for square-pyramidal
-        (dissociative) and pentagonal-bipyramidal (associative) transition states, after Basolo & Pearson.
+        The same Δo is used in every line of this answer. “LFSE lost” is the ligand-field stabilisation given up on the way
+        to a square-pyramidal (dissociative) or pentagonal-bipyramidal (associative) transition state, the crystal-field
+        activation energy of Basolo & Pearson: one term of the barrier, not the activation energy; a negative value
+        lowers the barrier.
       </AppText>
     </Card>
   );

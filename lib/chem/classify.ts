@@ -198,8 +198,8 @@ function copyClassification(source: Classification): Classification {
     cautions: source.cautions.slice(),
     hints: source.hints.slice(),
     ligands: source.ligands.map((ligand) => ({ ...ligand, donorAtoms: ligand.donorAtoms.slice() })),
-    activationEnergyDq: source.activationEnergyDq && { ...source.activationEnergyDq },
-    activationEnergyKJPerMol: source.activationEnergyKJPerMol && { ...source.activationEnergyKJPerMol },
+    lfseLossToTransitionStateDq: source.lfseLossToTransitionStateDq && { ...source.lfseLossToTransitionStateDq },
+    lfseLossToTransitionStateKJPerMol: source.lfseLossToTransitionStateKJPerMol && { ...source.lfseLossToTransitionStateKJPerMol },
     measured: source.measured && { ...source.measured },
     mechanism: { ...source.mechanism, reasons: source.mechanism.reasons.slice(), ...(source.mechanism.assistedPaths ? { assistedPaths: source.mechanism.assistedPaths.map((path) => ({ ...path })) } : {}) },
     ...(source.readings ? { readings: source.readings.map((reading) => ({ ...reading })) } : {}),
@@ -250,7 +250,9 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
 
   const ion = metalIon(metal, oxidationState);
   const isDBlock = electronShell === 'd';
-  const hasLigandField = isDBlock && dElectrons > 0 && dElectrons < 10;
+  // η5/η6 rings split the d set their own way: no octahedral Δo, LFSE or orbital picture applies to them.
+  const ringComplex = geometry === 'sandwich' || geometry === 'bent-sandwich' || geometry === 'half-sandwich';
+  const hasLigandField = isDBlock && dElectrons > 0 && dElectrons < 10 && !ringComplex;
   const deltaO = hasLigandField ? estimateDeltaO(ligands, ion) : null;
 
   // One Δo for the whole answer: a published measurement of this species, else the f·g estimate
@@ -294,13 +296,13 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   // One pass over the ligands for the flags the reasons and the model need.
   let organometallic = false;
   let hasNitrosyl = false;
-  let hasHapticLigand = false;
+  let hapticReason: string | null = null;
   let ligandWithoutF = false;
   for (const instance of ligands) {
     const ligand = instance.ligand;
     if (ligand.organometallic === true) organometallic = true;
     if (ligand.id === 'NO') hasNitrosyl = true;
-    if (ligand.hapticity !== undefined) hasHapticLigand = true;
+    if (ligand.hapticity !== undefined && hapticReason === null) hapticReason = hapticityReason(ligands);
     if (ligand.jorgensenF === null && (ligand.fEstimate ?? null) === null) ligandWithoutF = true;
   }
   const { radiusPm, estimated: radiusEstimated } = ionicRadiusPm(element, oxidationState, spin.spinState, ion);
@@ -311,7 +313,8 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   // --- electron counting reasons
   reasons.push(summaryReason(element, oxidationState, configuration, parsed.complexCharge, parsed.counterIons.length > 0, cn, geometry, geometrySource === 'given'));
   if (hasNitrosyl) reasons.push('nitrosyl counted as NO⁺ (linear, 2-electron donor) by convention');
-  if (hasHapticLigand) reasons.push('η5-cyclopentadienyl counted as three coordination sites (6-electron donor) by convention');
+  if (hapticReason !== null) reasons.push(hapticReason);
+  if (ringComplex) reasons.push(RING_GEOMETRY_REASONS[geometry] ?? '');
   if (measuredDeltaO) {
     reasons.push(`Δo = ${formatInteger(measuredDeltaO.deltaOcm)} cm⁻¹, measured for ${measuredDeltaO.species} (${measuredDeltaO.source})`);
   } else if (deltaO !== null) {
@@ -403,8 +406,8 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     ...(measuredDeltaO ? { deltaOSource: { source: measuredDeltaO.source, checked: measuredDeltaO.checked } } : {}),
     lfseDq,
     lfseKJPerMol: lfseKJPerMol === null ? null : Math.round(lfseKJPerMol * 10) / 10,
-    activationEnergyDq: cfae,
-    activationEnergyKJPerMol: cfaeKJ === null ? null : { dissociative: Math.round(cfaeKJ.dissociative * 10) / 10, associative: Math.round(cfaeKJ.associative * 10) / 10 },
+    lfseLossToTransitionStateDq: cfae,
+    lfseLossToTransitionStateKJPerMol: cfaeKJ === null ? null : { dissociative: Math.round(cfaeKJ.dissociative * 10) / 10, associative: Math.round(cfaeKJ.associative * 10) / 10 },
     jahnTeller,
     logKPerSecond: Math.round(logK * 100) / 100,
     halfLifeSeconds,
@@ -522,7 +525,7 @@ function buildSummaryReason(element: MetalElement, oxidationState: number, confi
 const SUMMARY_MEMO_LIMIT = 4096;
 const summaryReasons = new Map<number, string>();
 // Geometry → index for the key (a scan: identical strings compare by pointer, cheaper than a hash).
-const GEOMETRY_KEYS: readonly string[] = ['octahedral', 'tetrahedral', 'square-planar', 'linear', 'trigonal-planar', 'trigonal-bipyramidal', 'square-pyramidal', 'pentagonal-bipyramidal', 'square-antiprismatic', 'tricapped-trigonal-prismatic', 'other'];
+const GEOMETRY_KEYS: readonly string[] = ['octahedral', 'tetrahedral', 'square-planar', 'linear', 'trigonal-planar', 'trigonal-bipyramidal', 'square-pyramidal', 'pentagonal-bipyramidal', 'square-antiprismatic', 'tricapped-trigonal-prismatic', 'sandwich', 'bent-sandwich', 'half-sandwich', 'other'];
 
 /** A charge in running text: 0, +3, −1 (a lone "-" for 1− reads as a glitch in prose). */
 function chargeInWords(charge: number): string {
@@ -605,6 +608,23 @@ function rateAt(logK: number): RateText {
   }
   return rate;
 }
+
+/** How the ring ligands were counted, naming each (η5-Cp, η6-benzene, η2-ethylene …). */
+function hapticityReason(ligands: readonly LigandInstance[]): string {
+  const parts: string[] = [];
+  for (const instance of ligands) {
+    const ligand = instance.ligand;
+    if (ligand.hapticity === undefined) continue;
+    parts.push(`${ligand.name} as ${ligand.denticity} coordination site${ligand.denticity > 1 ? 's' : ''} (${2 * ligand.denticity}-electron donor)`);
+  }
+  return `Ring and π ligands counted by convention (ionic count): ${parts.join('; ')}`;
+}
+
+const RING_GEOMETRY_REASONS: Partial<Record<string, string>> = {
+  sandwich: 'Sandwich: the metal lies between two parallel rings, not at the centre of an octahedron; "coordination number" counts the sites the rings fill by convention',
+  'bent-sandwich': 'Bent sandwich: two tilted rings with the other ligands in the wedge between them, not an octahedron',
+  'half-sandwich': 'Half-sandwich (piano stool): one ring and the other ligands as the legs, not an octahedron',
+};
 
 const VERDICT_WORDS: Record<Classification['verdict'], string> = { labile: 'Labile', intermediate: 'Intermediate', inert: 'Inert' };
 

@@ -96,6 +96,8 @@ export interface GeometryContext {
  */
 export function predictGeometry(context: GeometryContext): Geometry {
   const { coordinationNumber: cn, dElectrons, electronShell, series, ligands } = context;
+  const sandwich = sandwichGeometry(ligands);
+  if (sandwich !== null) return sandwich;
   switch (cn) {
     case 2:
       return 'linear';
@@ -133,6 +135,24 @@ export function predictGeometry(context: GeometryContext): Geometry {
     default:
       return 'other';
   }
+}
+
+/**
+ * Rings bound through five or six carbons (η5-Cp, η6-arene) are not a set of point donors: two of
+ * them alone make a sandwich, two with other ligands a bent sandwich, one a half-sandwich (piano
+ * stool). Read from the ligands' hapticity (common practice).
+ */
+export function sandwichGeometry(ligands: readonly LigandInstance[]): Geometry | null {
+  let rings = 0;
+  let others = 0;
+  for (const instance of ligands) {
+    if ((instance.ligand.hapticity ?? 0) >= 5) rings += instance.count;
+    else others += instance.count;
+  }
+  if (rings === 0) return null;
+  if (rings === 1) return 'half-sandwich';
+  if (rings === 2) return others === 0 ? 'sandwich' : 'bent-sandwich';
+  return null;
 }
 
 /** Ionic-model valence electron count: d electrons + 2 per coordination site. */

@@ -234,6 +234,14 @@ export function decideSpin(params: {
     if (d === 8) return { spinState: 'low', nearSpinCrossover: false, hasChoice: true, basis: 'square-planar d8: the empty x²−y² orbital lies far above, diamagnetic (low spin)', pairingEnergyCm: null };
     return noSpinChoice('square planar, no spin choice for this d count');
   }
+  if (geometry === 'sandwich' || geometry === 'bent-sandwich' || geometry === 'half-sandwich') {
+    // The rings split the d set as a1g, e2g and e1g, not as t2g/eg: no octahedral Δo applies. The
+    // 18-electron d6 sandwiches (ferrocene, cobaltocenium, bis(benzene)chromium) are diamagnetic
+    // (common practice); other counts are left open (manganocene, for one, is high spin).
+    return d === 6
+      ? { spinState: 'low', nearSpinCrossover: false, hasChoice: false, basis: 'ring complex: the η5/η6 rings split the d orbitals their own way (no octahedral Δo); an 18-electron d6 ring complex is diamagnetic', pairingEnergyCm: null }
+      : noSpinChoice('ring complex: the η5/η6 rings split the d orbitals their own way (no octahedral Δo), spin not predicted');
+  }
   if (d < 4 || d > 7) return noSpinChoice(`d${d}: only one spin state in an octahedral field`);
   if (element.series === '4d' || element.series === '5d') {
     return { spinState: 'low', nearSpinCrossover: false, hasChoice: true, basis: `${element.series} metal: large Δo and small pairing energy, always low spin`, pairingEnergyCm: null };

@@ -42,6 +42,12 @@ export type Geometry =
   | 'pentagonal-bipyramidal'
   | 'square-antiprismatic'
   | 'tricapped-trigonal-prismatic'
+  /** Two parallel η5/η6 rings and nothing else (ferrocene, bis(benzene)chromium). */
+  | 'sandwich'
+  /** Two tilted rings with other ligands between them (Cp2TiCl2). */
+  | 'bent-sandwich'
+  /** One η5/η6 ring and other ligands: a piano stool (CpMn(CO)3, (C6H6)Cr(CO)3). */
+  | 'half-sandwich'
   | 'other';
 
 export type Verdict = 'labile' | 'intermediate' | 'inert';
@@ -232,8 +238,17 @@ export interface Classification {
   deltaOSource?: { source: string; checked: Checked };
   lfseDq: number | null;
   lfseKJPerMol: number | null;
-  activationEnergyDq: { dissociative: number; associative: number } | null;
-  activationEnergyKJPerMol: { dissociative: number; associative: number } | null;
+  /**
+   * Ligand-field stabilisation lost on the way to the transition state (the crystal-field activation
+   * energy of Basolo & Pearson), in Dq, for a square-pyramidal (dissociative) and a
+   * pentagonal-bipyramidal (associative) transition state. It is one term of the barrier, not the
+   * activation energy: positive raises the barrier (d3, low-spin d6), negative means the transition
+   * state holds more ligand-field stabilisation and lowers it (d1, high-spin d4). Measured
+   * activation parameters are library measurements (ΔH‡, kind "activation-enthalpy").
+   */
+  lfseLossToTransitionStateDq: { dissociative: number; associative: number } | null;
+  /** The same in kJ mol⁻¹ with the answer's Δo (Dq = Δo/10). */
+  lfseLossToTransitionStateKJPerMol: { dissociative: number; associative: number } | null;
   jahnTeller: 'strong' | 'weak' | null;
   /** Estimated log10 of the first-order exchange rate constant at temperatureC (s⁻¹). */
   logKPerSecond: number;

@@ -19,6 +19,9 @@ export const geometrySchema = z.enum([
   'pentagonal-bipyramidal',
   'square-antiprismatic',
   'tricapped-trigonal-prismatic',
+  'sandwich',
+  'bent-sandwich',
+  'half-sandwich',
   'other',
 ]);
 

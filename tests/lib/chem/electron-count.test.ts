@@ -17,7 +17,7 @@ const cases: [string, string, number, number, number, string][] = [
   ['[Fe(H2O)6]2+', 'Fe', 2, 6, 6, 'octahedral'],
   ['[Ni(CN)4]2-', 'Ni', 2, 8, 4, 'square-planar'],
   ['[NiCl4]2-', 'Ni', 2, 8, 4, 'tetrahedral'],
-  ['[Fe(C5H5)2]', 'Fe', 2, 6, 6, 'octahedral'],
+  ['[Fe(C5H5)2]', 'Fe', 2, 6, 6, 'sandwich'], // two parallel Cp rings, counted as 6 sites (Wilkinson et al., J. Am. Chem. Soc. 1952, 74, 2125; recalled)
   ['[Ru(bpy)3]Cl2·6H2O', 'Ru', 2, 6, 6, 'octahedral'],
   ['[Cr(H2O)6](ClO4)3', 'Cr', 3, 3, 6, 'octahedral'],
   ['[PtCl4]2-', 'Pt', 2, 8, 4, 'square-planar'],

@@ -70,7 +70,7 @@ describe('trap 1: the d-count rule is not enough (SCIENCE.md)', () => {
   });
   it('[Ni(H2O)6]2+ shares the d3 CFAE in Dq yet is labile', () => {
     // Basolo & Pearson 1967 (cfse_cfae.json): d3 and d8 both 2.00 / 4.26 Dq, ±0.02.
-    const nickel = classifyFormula('[Ni(H2O)6]2+').activationEnergyDq;
+    const nickel = classifyFormula('[Ni(H2O)6]2+').lfseLossToTransitionStateDq;
     expect(nickel?.dissociative).toBeCloseTo(2.0, 1);
     expect(Math.abs((nickel?.associative ?? 0) - 4.26)).toBeLessThanOrEqual(0.02);
     expect(classifyFormula('[Ni(H2O)6]2+').verdict).toBe('labile');
