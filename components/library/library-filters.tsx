@@ -4,13 +4,18 @@ import { Chip } from '@/components/ui/chip';
 import { AppText } from '@/components/ui/text';
 import { spacing } from '@/components/ui/theme';
 import type { ComplexFilters } from '@/lib/api/library';
-import { complexStatuses, measurementKindRules, measurementKinds } from '@/lib/schemas/library';
+import { complexStatuses, measurementKindRules, measurementKinds, type ComplexStatus, type MeasurementKind } from '@/lib/schemas/library';
+import type { ComplexFacets } from '@/lib/schemas/library-facets';
 import { roman } from '@/components/ui/format';
 
-/** Metals most groups hold; metals of loaded entries are added to these. */
-const COMMON_METALS = ['Cr', 'Mn', 'Fe', 'Co', 'Ni', 'Cu', 'Zn', 'Ru', 'Rh', 'Pd', 'Ir', 'Pt'];
-const OXIDATION_STATES = [0, 1, 2, 3, 4];
-const D_COUNTS = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
+/**
+ * Options when the server's list (GET /api/complexes/facets) cannot be had: the metals most groups
+ * hold and the usual ranges. With the server's list, only values present in what the person may
+ * see are offered, whatever page happens to be loaded.
+ */
+const FALLBACK_METALS = ['Co', 'Cr', 'Cu', 'Fe', 'Ir', 'Mn', 'Ni', 'Pd', 'Pt', 'Rh', 'Ru', 'Zn'];
+const FALLBACK_OXIDATION_STATES = [0, 1, 2, 3, 4];
+const FALLBACK_D_COUNTS = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
 const VERDICTS = ['labile', 'intermediate', 'inert'] as const;
 const STATUS_WORDS: Record<(typeof complexStatuses)[number], string> = {
   draft: 'Draft',
@@ -21,7 +26,24 @@ const STATUS_WORDS: Record<(typeof complexStatuses)[number], string> = {
   retired: 'Retired',
 };
 
-type FilterKey = Exclude<keyof ComplexFilters, 'q' | 'groupId' | 'ligand'>;
+type FilterKey = Exclude<keyof ComplexFilters, 'q' | 'groupId'>;
+
+/** The options to offer: the server's, else the fallback lists; a chosen value always stays visible. */
+export function filterOptions(facets: ComplexFacets | undefined, filters: ComplexFilters) {
+  const withChosen = <T extends string | number>(values: readonly T[], chosen: T | undefined, order: (a: T, b: T) => number) =>
+    chosen === undefined || values.includes(chosen) ? [...values] : [...values, chosen].sort(order);
+  const byText = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+  const byNumber = (a: number, b: number) => a - b;
+  const inList = <T extends string>(list: readonly T[]) => (a: T, b: T) => list.indexOf(a) - list.indexOf(b);
+  return {
+    metals: withChosen(facets ? facets.metals.map((f) => f.value) : FALLBACK_METALS, filters.metal, byText),
+    oxidationStates: withChosen(facets ? facets.oxidationStates.map((f) => f.value) : FALLBACK_OXIDATION_STATES, filters.oxidationState, byNumber),
+    dCounts: withChosen(facets ? facets.dCounts.map((f) => f.value) : FALLBACK_D_COUNTS, filters.dCount, byNumber),
+    ligands: withChosen(facets ? facets.ligands.map((f) => f.value) : [], filters.ligand, byText),
+    measurementKinds: withChosen<MeasurementKind>(facets ? facets.measurementKinds.map((f) => f.value) : measurementKinds, filters.measurementKind, inList(measurementKinds)),
+    statuses: withChosen<ComplexStatus>(facets ? facets.statuses.map((f) => f.value) : complexStatuses, filters.status, inList(complexStatuses)),
+  };
+}
 
 /** The active filters as short words, each removable ("Co", "d6", "inert", "has citation"). */
 export function activeFilterLabels(filters: ComplexFilters): { key: FilterKey; label: string }[] {
@@ -30,16 +52,18 @@ export function activeFilterLabels(filters: ComplexFilters): { key: FilterKey; l
   if (filters.oxidationState !== undefined) out.push({ key: 'oxidationState', label: `oxidation state ${roman(filters.oxidationState)}` });
   if (filters.dCount !== undefined) out.push({ key: 'dCount', label: `d${filters.dCount}` });
   if (filters.verdict) out.push({ key: 'verdict', label: filters.verdict });
+  if (filters.ligand) out.push({ key: 'ligand', label: `ligand ${filters.ligand}` });
   if (filters.status) out.push({ key: 'status', label: STATUS_WORDS[filters.status] });
   if (filters.measurementKind) out.push({ key: 'measurementKind', label: measurementKindRules[filters.measurementKind].label });
   if (filters.hasCitation !== undefined) out.push({ key: 'hasCitation', label: filters.hasCitation ? 'cited' : 'no citation' });
   return out;
 }
 
-export function LibraryFilters({ filters, onChange, knownMetals, showStatus }: {
+export function LibraryFilters({ filters, onChange, facets, showStatus }: {
   filters: ComplexFilters;
   onChange: (next: ComplexFilters) => void;
-  knownMetals: readonly string[];
+  /** The server's options for what the person may see; undefined while loading or unavailable. */
+  facets: ComplexFacets | undefined;
   /** Viewers only ever see accepted entries: the status filter would be noise for them. */
   showStatus: boolean;
 }) {
@@ -51,7 +75,7 @@ export function LibraryFilters({ filters, onChange, knownMetals, showStatus }: {
     else next[key] = value;
     onChange(next);
   };
-  const metals = [...new Set([...COMMON_METALS, ...knownMetals])].sort();
+  const options = filterOptions(facets, filters);
   return (
     <View style={styles.wrap} testID="library-filters">
       <View style={styles.row}>
@@ -63,17 +87,17 @@ export function LibraryFilters({ filters, onChange, knownMetals, showStatus }: {
       {open ? (
         <View style={styles.panel}>
           <Group title="Metal">
-            {metals.map((metal) => (
+            {options.metals.map((metal) => (
               <Chip key={metal} label={metal} mono selected={filters.metal === metal} onPress={() => set('metal', metal)} testID={`library-filter-metal-${metal}`} />
             ))}
           </Group>
           <Group title="Oxidation state">
-            {OXIDATION_STATES.map((n) => (
+            {options.oxidationStates.map((n) => (
               <Chip key={n} label={roman(n)} selected={filters.oxidationState === n} onPress={() => set('oxidationState', n)} testID={`library-filter-ox-${n}`} />
             ))}
           </Group>
           <Group title="d electrons">
-            {D_COUNTS.map((n) => (
+            {options.dCounts.map((n) => (
               <Chip key={n} label={`d${n}`} selected={filters.dCount === n} onPress={() => set('dCount', n)} testID={`library-filter-d-${n}`} />
             ))}
           </Group>
@@ -84,13 +108,13 @@ export function LibraryFilters({ filters, onChange, knownMetals, showStatus }: {
           </Group>
           {showStatus ? (
             <Group title="Status">
-              {complexStatuses.map((status) => (
+              {options.statuses.map((status) => (
                 <Chip key={status} label={STATUS_WORDS[status]} selected={filters.status === status} onPress={() => set('status', status)} testID={`library-filter-status-${status}`} />
               ))}
             </Group>
           ) : null}
           <Group title="Measured">
-            {measurementKinds.map((kind) => (
+            {options.measurementKinds.map((kind) => (
               <Chip
                 key={kind}
                 label={measurementKindRules[kind].label}
@@ -100,6 +124,13 @@ export function LibraryFilters({ filters, onChange, knownMetals, showStatus }: {
               />
             ))}
           </Group>
+          {options.ligands.length > 0 ? (
+            <Group title="Ligand">
+              {options.ligands.map((ligand) => (
+                <Chip key={ligand} label={ligand} mono selected={filters.ligand === ligand} onPress={() => set('ligand', ligand)} testID={`library-filter-ligand-${ligand}`} />
+              ))}
+            </Group>
+          ) : null}
           <Group title="Citation">
             <Chip label="cited" selected={filters.hasCitation === true} onPress={() => set('hasCitation', true)} testID="library-filter-cited" />
             <Chip label="no citation" selected={filters.hasCitation === false} onPress={() => set('hasCitation', false)} testID="library-filter-uncited" />

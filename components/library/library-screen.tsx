@@ -12,7 +12,7 @@ import { AppText } from '@/components/ui/text';
 import { colors, fonts, radius, spacing } from '@/components/ui/theme';
 import { useDebouncedValue } from '@/components/ui/use-debounced-value';
 import { useWideLayout } from '@/components/ui/use-wide-layout';
-import { normaliseFilters, useComplexesQuery, type ComplexFilters } from '@/lib/api/library';
+import { normaliseFilters, useComplexFacetsQuery, useComplexesQuery, type ComplexFilters } from '@/lib/api/library';
 import type { ComplexListItem } from '@/lib/schemas/library';
 import { ExportMenu } from '@/components/exchange/export-menu';
 import { ComplexDetailView } from './complex-detail';
@@ -105,7 +105,7 @@ function LibraryBrowser({ access, selectedId, onSelect }: { access: Member; sele
     [fuse, loaded, localText],
   );
   const filtered = Object.keys(normaliseFilters({ ...filters, q: typed })).length > 0;
-  const knownMetals = useMemo(() => [...new Set(loaded.map((item) => item.metal))], [loaded]);
+  const facets = useComplexFacetsQuery(filters.groupId);
   const onlyViewer = !access.canContribute;
 
   const loadMore = () => {
@@ -143,7 +143,7 @@ function LibraryBrowser({ access, selectedId, onSelect }: { access: Member; sele
         testID="library-search"
         style={styles.search}
       />
-      <LibraryFilters filters={filters} onChange={setFilters} knownMetals={knownMetals} showStatus={!onlyViewer} />
+      <LibraryFilters filters={filters} onChange={setFilters} facets={facets.data} showStatus={!onlyViewer} />
       {query.data !== undefined ? (
         <View style={styles.countRow}>
           <AppText variant="caption" tone="muted" testID="library-count">

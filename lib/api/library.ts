@@ -27,6 +27,7 @@ import {
   type TransitionInput,
   type SaveComplexInput,
 } from '@/lib/schemas/library';
+import { complexFacetsSchema } from '@/lib/schemas/library-facets';
 import { ApiError, apiErrorFrom, apiRequest, requestHeaders, writeKeys } from './api-client';
 
 /**
@@ -328,5 +329,27 @@ export function useLibraryMeasuredQuery(groupId: string | null, formula: string 
     queryFn: ({ signal }) => fetchLibraryMeasured(groupId ?? '', formula ?? '', signal),
     enabled: !!groupId && !!formula,
     staleTime: 60_000,
+  });
+}
+
+/**
+ * Filter options from the server: what the person may see holds these metals, oxidation states …
+ * Kept under the list keys, so every change that refreshes the lists refreshes the options too.
+ */
+export const complexFacetKeys = {
+  of: (groupId: string | undefined) => [...complexKeys.lists(), 'facets', groupId ?? 'all'] as const,
+};
+
+export function fetchComplexFacets(groupId: string | undefined, signal?: AbortSignal) {
+  const query = groupId ? `?groupId=${encodeURIComponent(groupId)}` : '';
+  return apiRequest(`/complexes/facets${query}`, complexFacetsSchema, { signal });
+}
+
+export function useComplexFacetsQuery(groupId: string | undefined) {
+  return useQuery({
+    queryKey: complexFacetKeys.of(groupId),
+    queryFn: ({ signal }) => fetchComplexFacets(groupId, signal),
+    retry: retryUnlessClientError,
+    staleTime: 30_000,
   });
 }

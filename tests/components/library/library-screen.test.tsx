@@ -87,7 +87,7 @@ describe('LibraryScreen', () => {
     await screen.findByTestId('library-item-1');
     fireEvent.changeText(screen.getByTestId('library-search'), 'cobalt');
     // No new request yet (debounced), but the list already shows only the match.
-    expect(calls.filter((c) => c.url.startsWith('/api/complexes'))).toHaveLength(1);
+    expect(calls.filter((c) => c.url.startsWith('/api/complexes?'))).toHaveLength(1);
     expect(screen.getByTestId('library-item-0')).toHaveTextContent(/hexaamminecobalt/);
     expect(screen.queryByTestId('library-item-1')).toBeNull();
     await waitFor(() => expect(calls.some((c) => c.url.includes('q=cobalt'))).toBe(true));
@@ -104,6 +104,37 @@ describe('LibraryScreen', () => {
     fireEvent.press(screen.getByTestId('library-filter-verdict-inert'));
     fireEvent.press(screen.getByTestId('library-filter-d-3'));
     await waitFor(() => expect(calls.some((c) => c.url.includes('verdict=inert') && c.url.includes('dCount=3'))).toBe(true));
+  });
+
+  it('offers the filter options the server lists for what the person may see, not those of the loaded page', async () => {
+    // The page holds only the chromium entry; the server says the library also holds nickel.
+    const facets = {
+      metals: [{ value: 'Cr', count: 1 }, { value: 'Ni', count: 2 }],
+      oxidationStates: [{ value: 2, count: 2 }, { value: 3, count: 1 }],
+      dCounts: [{ value: 3, count: 1 }, { value: 8, count: 2 }],
+      ligands: [{ value: 'H2O', count: 1 }, { value: 'NH3', count: 2 }],
+      measurementKinds: [{ value: 'water-exchange', count: 1 }],
+      statuses: [{ value: 'accepted', count: 3 }],
+    };
+    const { calls } = mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes': { status: 200, body: listResponse([chromium]) },
+      'GET /api/complexes/facets': { status: 200, body: facets },
+    });
+    renderLibrary();
+    await screen.findByTestId('library-item-0');
+    fireEvent.press(screen.getByTestId('library-filters-toggle'));
+    expect(await screen.findByTestId('library-filter-metal-Ni')).toBeTruthy();
+    expect(screen.queryByTestId('library-filter-metal-Pt')).toBeNull();
+    expect(screen.getByTestId('library-filter-d-8')).toBeTruthy();
+    expect(screen.queryByTestId('library-filter-d-6')).toBeNull();
+    expect(screen.queryByTestId('library-filter-ox-4')).toBeNull();
+    expect(screen.queryByTestId('library-filter-kind-ligand-exchange')).toBeNull();
+    expect(screen.getByTestId('library-filter-status-accepted')).toBeTruthy();
+    expect(screen.queryByTestId('library-filter-status-draft')).toBeNull();
+    fireEvent.press(screen.getByTestId('library-filter-ligand-NH3'));
+    await waitFor(() => expect(calls.some((c) => c.url.startsWith('/api/complexes?') && c.url.includes('ligand=NH3'))).toBe(true));
+    expect(screen.getByTestId('library-filter-active-ligand')).toHaveTextContent(/ligand NH3/);
   });
 
   it('invites contributors to add the first complex when the library is empty', async () => {
