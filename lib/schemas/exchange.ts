@@ -86,8 +86,31 @@ export const IMPORT_MAX_ROWS = 50_000;
  * in the query string: groupId (optional with one group), dryRun (true: validate only),
  * mapping (JSON of CsvMapping), wait (true: answer when the job has finished), fileName.
  */
+/** What to do with a row whose species is already in the library or earlier in the file. */
+export const duplicateChoices = ['skip', 'merge', 'import'] as const;
+export const duplicateChoiceSchema = z.enum(duplicateChoices, { error: 'Choose skip, merge or import for duplicates.' });
+export type DuplicateChoice = z.infer<typeof duplicateChoiceSchema>;
+
+const jsonQuery = <T extends z.ZodType>(schema: T, example: string) =>
+  z
+    .string()
+    .max(20_000)
+    .transform((text, ctx) => {
+      try {
+        return JSON.parse(text) as unknown;
+      } catch {
+        ctx.addIssue({ code: 'custom', message: `must be JSON, e.g. ${example}.` });
+        return z.NEVER;
+      }
+    })
+    .pipe(schema);
+
 export const importQuerySchema = z
   .object({
+    /** For every duplicate row (default skip); `duplicateChoices` overrides it per row. */
+    duplicates: duplicateChoiceSchema.default('skip'),
+    /** Per row (the spreadsheet row number of the entry's first line): skip, merge or import. */
+    duplicateChoices: jsonQuery(z.record(z.string().regex(/^\d+$/, 'rows are numbers'), duplicateChoiceSchema), '{"4":"merge"}').optional(),
     groupId: z.uuid('groupId must be a group id.').optional(),
     dryRun: z.enum(['true', 'false', '1', '0']).default('false').transform((v) => v === 'true' || v === '1'),
     wait: z.enum(['true', 'false', '1', '0']).default('false').transform((v) => v === 'true' || v === '1'),
@@ -124,6 +147,18 @@ export const importStates = ['queued', 'validating', 'importing', 'succeeded', '
 export const importStateSchema = z.enum(importStates);
 export type ImportState = z.infer<typeof importStateSchema>;
 
+/** An entry of the file whose species is already in the library (`existing`) or earlier in the file (`sameAsRow`). */
+export const importDuplicateSchema = z.object({
+  row: z.number().int(),
+  formula: z.string(),
+  name: z.string(),
+  existing: z.object({ id: z.string(), name: z.string(), formula: z.string(), status: z.string() }).nullable(),
+  sameAsRow: z.number().int().nullable(),
+  /** What the import does (or, in a dry run, would do) with it. */
+  choice: duplicateChoiceSchema,
+});
+export type ImportDuplicate = z.infer<typeof importDuplicateSchema>;
+
 /** GET /api/imports/:id (and the answer to POST /api/imports). Poll until `state` is succeeded or failed. */
 export const importJobSchema = z.object({
   id: z.string(),
@@ -143,6 +178,8 @@ export const importJobSchema = z.object({
   entryCount: z.number().int(),
   measurementCount: z.number().int(),
   complexIds: z.array(z.string()),
+  /** Entries of the same species as one in the library or earlier in the file, with the choice applied. */
+  duplicates: z.array(importDuplicateSchema),
   message: z.string().nullable(),
   createdAt: z.iso.datetime(),
   updatedAt: z.iso.datetime(),

@@ -366,6 +366,26 @@ export const updateComplexInputSchema = z
   .strict();
 export type UpdateComplexInput = z.infer<typeof updateComplexInputSchema>;
 
+/** An entry of the same species (metal, oxidation state, ligand set) already in the group. */
+export const duplicateEntrySchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  formula: z.string(),
+  status: complexStatusSchema,
+});
+export type DuplicateEntry = z.infer<typeof duplicateEntrySchema>;
+
+/** GET /api/complexes/duplicates?formula=…&groupId=…[&exceptId=…] */
+export const duplicatesQuerySchema = z
+  .object({
+    formula: formulaTextSchema,
+    groupId: z.uuid('groupId must be a group id.').optional(),
+    exceptId: z.uuid('exceptId must be an entry id.').optional(),
+  })
+  .strict();
+export const duplicatesResponseSchema = z.object({ duplicates: z.array(duplicateEntrySchema) });
+export type DuplicatesResponse = z.infer<typeof duplicatesResponseSchema>;
+
 /** Body of submit / retire (optional): the version the action is based on, and a note. */
 export const transitionInputSchema = z
   .object({ version: z.number().int().min(1).optional(), message: shortText('Message', 500).optional() })

@@ -8,6 +8,7 @@ import { Migration20270125000000_citation_kind } from './Migration20270125000000
 import { Migration20270130000000_change_feed } from './Migration20270130000000_change_feed';
 import { Migration20270135000000_review_words } from './Migration20270135000000_review_words';
 import { Migration20270135500000_idempotency } from './Migration20270135500000_idempotency';
+import { Migration20270135600000_import_duplicates } from './Migration20270135600000_import_duplicates';
 import { Migration20270136000000_published_search } from './Migration20270136000000_published_search';
 
 /**
@@ -25,5 +26,6 @@ export const migrationsList = [
   { name: 'Migration20270130000000_change_feed', class: Migration20270130000000_change_feed },
   { name: 'Migration20270135000000_review_words', class: Migration20270135000000_review_words },
   { name: 'Migration20270135500000_idempotency', class: Migration20270135500000_idempotency },
+  { name: 'Migration20270135600000_import_duplicates', class: Migration20270135600000_import_duplicates },
   { name: 'Migration20270136000000_published_search', class: Migration20270136000000_published_search },
 ];

@@ -22,7 +22,15 @@ export function exchangeRoutes(orm: Orm): Router {
     const bytes = await readRawBody(req, res, IMPORT_MAX_BYTES, 'CSV file');
     const { job, done } = await startImport(
       orm,
-      { userId: userId(res), groupId: query.groupId, fileName: query.fileName, dryRun: query.dryRun, mapping: query.mapping },
+      {
+        userId: userId(res),
+        groupId: query.groupId,
+        fileName: query.fileName,
+        dryRun: query.dryRun,
+        mapping: query.mapping,
+        duplicates: query.duplicates,
+        duplicateChoices: query.duplicateChoices,
+      },
       bytes,
     );
     if (query.wait) {

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import type { InferEntity } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { roleAtLeast } from '@/lib/schemas/groups';
-import type { CsvMapping, ImportIssue, ImportJob as ImportJobDto } from '@/lib/schemas/exchange';
+import type { CsvMapping, DuplicateChoice, ImportDuplicate, ImportIssue, ImportJob as ImportJobDto } from '@/lib/schemas/exchange';
 import type { Citation as CitationDto, CitationInput, ComplexSnapshot, Measurement as MeasurementDto } from '@/lib/schemas/library';
 import type { Orm } from '@/server/db/orm';
 import { AppError, notFound } from '@/server/http/errors';
@@ -11,6 +11,8 @@ import { Citation } from '@/server/modules/library/citation.entity';
 import { Complex } from '@/server/modules/library/complex.entity';
 import { toCitationDto, toSnapshot } from '@/server/modules/library/complex.mapper';
 import { membershipIn, resolveGroup, type MembershipInfo } from '@/server/modules/library/library-access';
+import { existingSpecies, speciesKeyOf } from '@/server/modules/library/duplicates';
+import { asEntryInput, getComplex, measurementsOf, saveComplex } from '@/server/modules/library/complex.service';
 import { Measurement } from '@/server/modules/library/measurement.entity';
 import { mapColumns, readCsvTable } from './csv-file';
 import { ImportJob } from './import-job.entity';
@@ -37,6 +39,75 @@ export interface ImportRequest {
   fileName?: string;
   dryRun: boolean;
   mapping?: CsvMapping;
+  /** For every duplicate row; `duplicateChoices` (by row) overrides it. Default: skip. */
+  duplicates?: DuplicateChoice;
+  duplicateChoices?: Record<string, DuplicateChoice>;
+}
+
+/**
+ * The file's entries whose species is already in the library (that the person may see) or earlier
+ * in the file, each with the choice that applies to it.
+ */
+async function findDuplicates(
+  em: EntityManager,
+  groupId: string,
+  reader: { userId: string; role: MembershipInfo['role'] },
+  entries: readonly PlannedEntry[],
+  request: ImportRequest,
+): Promise<ImportDuplicate[]> {
+  const existing = await existingSpecies(em, groupId, reader, entries.map((e) => e.derived));
+  const firstInFile = new Map<string, number>();
+  const duplicates: ImportDuplicate[] = [];
+  for (const entry of entries) {
+    const key = speciesKeyOf(entry.derived);
+    const inLibrary = existing.get(key) ?? null;
+    const earlier = firstInFile.get(key) ?? null;
+    if (earlier === null) firstInFile.set(key, entry.firstRow);
+    if (!inLibrary && earlier === null) continue;
+    duplicates.push({
+      row: entry.firstRow,
+      formula: entry.formula,
+      name: entry.name,
+      existing: inLibrary,
+      sameAsRow: earlier,
+      choice: request.duplicateChoices?.[String(entry.firstRow)] ?? request.duplicates ?? 'skip',
+    });
+  }
+  return duplicates;
+}
+
+/**
+ * Applies the choices: skipped entries are dropped; merged ones give their measurements to the
+ * library entry (merges) or to the file's earlier entry of the same species; the rest are written.
+ */
+function applyDuplicateChoices(entries: readonly PlannedEntry[], duplicates: readonly ImportDuplicate[]) {
+  const byRow = new Map(duplicates.map((d) => [d.row, d]));
+  const byFirstRow = new Map(entries.map((e) => [e.firstRow, e]));
+  const write: PlannedEntry[] = [];
+  const merges = new Map<string, PlannedEntry[]>();
+  const extraMeasurements = new Map<number, PlannedEntry['measurements']>();
+  let skipped = 0;
+  for (const entry of entries) {
+    const duplicate = byRow.get(entry.firstRow);
+    if (!duplicate || duplicate.choice === 'import') {
+      write.push(entry);
+      continue;
+    }
+    if (duplicate.choice === 'skip') {
+      skipped += 1;
+      continue;
+    }
+    if (duplicate.existing) {
+      merges.set(duplicate.existing.id, [...(merges.get(duplicate.existing.id) ?? []), entry]);
+    } else if (duplicate.sameAsRow !== null && byFirstRow.has(duplicate.sameAsRow)) {
+      extraMeasurements.set(duplicate.sameAsRow, [...(extraMeasurements.get(duplicate.sameAsRow) ?? []), ...entry.measurements]);
+    }
+  }
+  const written = write.map((entry) => {
+    const extra = extraMeasurements.get(entry.firstRow);
+    return extra ? { ...entry, measurements: [...entry.measurements, ...extra] } : entry;
+  });
+  return { write: written, merges, skipped };
 }
 
 export function toImportJobDto(job: ImportJobEntity): ImportJobDto {
@@ -55,6 +126,7 @@ export function toImportJobDto(job: ImportJobEntity): ImportJobDto {
     entryCount: job.entryCount,
     measurementCount: job.measurementCount,
     complexIds: job.complexIds,
+    duplicates: job.duplicates ?? [],
     message: abandoned ? abandonedMessage : job.message ?? null,
     createdAt: job.createdAt.toISOString(),
     updatedAt: job.updatedAt.toISOString(),
@@ -163,20 +235,34 @@ async function runJob(
         message: `${result.issues.length} problem(s) in ${new Set(result.issues.map((i) => i.row)).size} row(s); nothing was ${request.dryRun ? 'checked further' : 'imported'}. Fix them and upload the file again.`,
       });
     }
+    const membership = await membershipIn(em, request.userId, job.groupId);
+    const duplicates = membership
+      ? await findDuplicates(em, job.groupId, { userId: request.userId, role: membership.role }, result.entries, request)
+      : [];
+    const duplicateNote = duplicates.length
+      ? ` ${duplicates.length} of them name a species already in the library or earlier in the file (${describeChoices(duplicates)}).`
+      : '';
     if (request.dryRun) {
       return await finish({
         ...counts,
+        duplicates: duplicates.slice(0, MAX_STORED_ISSUES),
         state: 'succeeded',
-        message: `Dry run: all ${job.total} rows are valid (${counts.entryCount} entries, ${counts.measurementCount} measurements; checked in ${Math.round(performance.now() - started)} ms). Nothing was written.`,
+        message: `Dry run: all ${job.total} rows are valid (${counts.entryCount} entries, ${counts.measurementCount} measurements; checked in ${Math.round(performance.now() - started)} ms).${duplicateNote} Nothing was written.`,
       });
     }
     await em.nativeUpdate(ImportJob, { id: job.id }, { state: 'importing', processed: 0, heartbeatAt: new Date(), updatedAt: new Date() });
-    const complexIds = await writeEntries(orm, job, request.userId, result.entries);
+    const plan = applyDuplicateChoices(result.entries, duplicates);
+    const complexIds = await writeEntries(orm, job, request.userId, plan.write, plan.merges);
+    const written = { entryCount: plan.write.length, measurementCount: plan.write.reduce((n, e) => n + e.measurements.length, 0) };
+    const mergedInto = plan.merges.size ? ` Measurements of ${[...plan.merges.values()].flat().length} row(s) were added to ${plan.merges.size} existing entr${plan.merges.size === 1 ? 'y' : 'ies'}.` : '';
+    const skippedNote = plan.skipped ? ` ${plan.skipped} duplicate entr${plan.skipped === 1 ? 'y was' : 'ies were'} skipped.` : '';
     return await finish({
       ...counts,
+      ...written,
+      duplicates: duplicates.slice(0, MAX_STORED_ISSUES),
       state: 'succeeded',
       complexIds: complexIds.slice(0, 10_000),
-      message: `Imported ${counts.entryCount} entries with ${counts.measurementCount} measurements in ${Math.round(performance.now() - started)} ms; they wait for review (status "in-review").`,
+      message: `Imported ${written.entryCount} entries with ${written.measurementCount} measurements in ${Math.round(performance.now() - started)} ms; they wait for review (status "in-review").${skippedNote}${mergedInto}`,
     });
   } catch (error) {
     const message =
@@ -186,6 +272,13 @@ async function runJob(
   } finally {
     clearInterval(beat);
   }
+}
+
+function describeChoices(duplicates: readonly ImportDuplicate[]): string {
+  const words: Record<DuplicateChoice, string> = { skip: 'skipped', merge: 'merged', import: 'imported anyway' };
+  const counts = new Map<DuplicateChoice, number>();
+  for (const d of duplicates) counts.set(d.choice, (counts.get(d.choice) ?? 0) + 1);
+  return [...counts.entries()].map(([choice, n]) => `${n} ${words[choice]}`).join(', ');
 }
 
 const citationKey = (c: CitationInput) =>
@@ -237,7 +330,43 @@ async function resolveCitations(tem: EntityManager, groupId: string, userId: str
 }
 
 /** The whole write: citations, entries, measurements, one revision and one audit event per entry. */
-async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entries: readonly PlannedEntry[]): Promise<string[]> {
+/**
+ * Merged duplicates: their measurements join the existing entry through the library's own save
+ * (one revision per entry, reopened for review if it was accepted), inside the import transaction.
+ */
+async function mergeIntoExisting(tem: EntityManager, userId: string, merges: ReadonlyMap<string, PlannedEntry[]>) {
+  for (const [complexId, planned] of merges) {
+    const rows = planned.map((p) => p.firstRow).join(', ');
+    try {
+      const current = await getComplex(tem, { userId }, complexId);
+      await saveComplex(tem, { userId }, complexId, {
+        version: current.version,
+        formula: current.formula,
+        name: current.name,
+        notes: current.notes,
+        measurements: [
+          ...(await measurementsOf(tem, complexId)).map((m) => ({ ...asEntryInput(m) })),
+          ...planned.flatMap((p) => p.measurements.map((m) => ({ ...m.input, citation: m.citation }))),
+        ],
+        message: `Merged from a CSV import (row ${rows})`,
+      });
+    } catch (error) {
+      if (!(error instanceof AppError)) throw error;
+      throw new AppError(
+        'FORBIDDEN',
+        `Row ${rows}: the measurements cannot be merged into the existing entry (${error.message}) Choose skip or import for ${planned.length > 1 ? 'these rows' : 'this row'}.`,
+      );
+    }
+  }
+}
+
+async function writeEntries(
+  orm: Orm,
+  job: ImportJobEntity,
+  userId: string,
+  entries: readonly PlannedEntry[],
+  merges: ReadonlyMap<string, PlannedEntry[]> = new Map(),
+): Promise<string[]> {
   const em = orm.em.fork();
   const ids: string[] = [];
   await em.transactional(async (tem) => {
@@ -364,6 +493,7 @@ async function writeEntries(orm: Orm, job: ImportJobEntity, userId: string, entr
         createdAt: now,
       },
     ]);
+    await mergeIntoExisting(tem, userId, merges);
     written = job.total;
     await report();
   });

@@ -384,7 +384,7 @@ export async function getComplex(em: EntityManager, actor: Actor, id: string): P
 }
 
 /** A stored measurement as a whole-entry save states it (used by the single-change routes below). */
-function asEntryInput(m: MeasurementDto): EntryMeasurementInput {
+export function asEntryInput(m: MeasurementDto): EntryMeasurementInput {
   return {
     id: m.id,
     kind: m.kind,

@@ -5,6 +5,7 @@ import {
   createComplexInputSchema,
   createLigandInputSchema,
   diffQuerySchema,
+  duplicatesQuerySchema,
   measuredQuerySchema,
   measurementInputSchema,
   reviewInputSchema,
@@ -26,7 +27,8 @@ import { findOrCreateCitation } from './citation.service';
 import * as complexes from './complex.service';
 import { reviewQueue, searchComplexes } from './complex-search';
 import { complexFacets } from './complex-facets';
-import { classifyOrExplain } from './derive';
+import { classifyOrExplain, deriveColumns } from './derive';
+import { existingSpecies } from './duplicates';
 import { membershipIn, resolveGroup } from './library-access';
 import { citationVisibleTo, listVisibleCitations, ownFieldsView } from './library-visibility';
 import { addLigand, listLigands } from './ligand.service';
@@ -85,6 +87,16 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
   router.post('/complexes', requireAuth, once(201), async (req, res) => {
     const input = parseWith(createComplexInputSchema, req.body);
     res.status(201).json(await complexes.createComplex(em(), actor(res), input));
+  });
+
+  // Entries of the same species already in the group (the form offers them before a second one is made).
+  router.get('/complexes/duplicates', requireAuth, async (req, res) => {
+    const { formula, groupId, exceptId } = parseWith(duplicatesQuerySchema, req.query, 'query');
+    const manager = em();
+    const membership = await resolveGroup(manager, actor(res).userId, groupId);
+    const derived = deriveColumns(formula, formula);
+    const found = await existingSpecies(manager, membership.groupId, { userId: actor(res).userId, role: membership.role }, [derived], exceptId);
+    res.json({ duplicates: [...found.values()] });
   });
 
   router.get('/complexes/:id', requireAuth, async (req, res) => {
