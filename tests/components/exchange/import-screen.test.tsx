@@ -69,6 +69,7 @@ function job(overrides: Partial<ImportJob>): ImportJob {
     entryCount: 0,
     measurementCount: 0,
     complexIds: [],
+    duplicates: [],
     message: null,
     createdAt: T0,
     updatedAt: T0,
@@ -89,7 +90,7 @@ describe('import helpers', () => {
 describe('ImportScreen', () => {
   it('dry-runs the file and lists each problem with row, column and character position', async () => {
     const calls = rawFetch({
-      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/auth/session': { status: 200, body: { me: contributorMe } },
       'POST /api/imports': { status: 202, body: job({}) },
       'GET /api/imports/job-1': {
         status: 200,
@@ -139,7 +140,7 @@ describe('ImportScreen', () => {
 
   it('says a refused file wrote nothing (415)', async () => {
     rawFetch({
-      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/auth/session': { status: 200, body: { me: contributorMe } },
       'POST /api/imports': { status: 415, body: { error: { code: 'UNSUPPORTED_MEDIA', message: 'The file is not UTF-8 text (byte 3).' } } },
     });
     renderWithQueries(<ImportScreen />);
@@ -151,7 +152,7 @@ describe('ImportScreen', () => {
 
   it('lists the issues of a 400 refusal (ragged rows)', async () => {
     rawFetch({
-      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/auth/session': { status: 200, body: { me: contributorMe } },
       'POST /api/imports': {
         status: 400,
         body: { error: { code: 'VALIDATION_FAILED', message: 'Rows have the wrong number of cells.', issues: [{ row: 5, column: null, message: 'The row has 2 cells; the header has 4.' }] } },
@@ -167,7 +168,7 @@ describe('ImportScreen', () => {
   it('imports after a clean dry run, shows progress, then the summary', async () => {
     let polls = 0;
     const calls = rawFetch({
-      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/auth/session': { status: 200, body: { me: contributorMe } },
       'POST /api/imports': () => {
         const real = calls.filter((c) => c.method === 'POST').length === 2;
         return { status: 202, body: job({ id: real ? 'job-2' : 'job-1', dryRun: !real }) };
@@ -198,7 +199,7 @@ describe('ImportScreen', () => {
 
   it('tells viewers that importing needs the contributor role', async () => {
     rawFetch({
-      'GET /api/auth/me': { status: 200, body: { ...contributorMe, memberships: [{ groupId: GROUP_ID, groupName: 'Larkspur Coordination Lab', role: 'viewer' }] } },
+      'GET /api/auth/session': { status: 200, body: { me: { ...contributorMe, memberships: [{ groupId: GROUP_ID, groupName: 'Larkspur Coordination Lab', role: 'viewer' }] } } },
     });
     renderWithQueries(<ImportScreen />);
     expect(await screen.findByTestId('import-not-allowed')).toHaveTextContent(/contributor role/);
