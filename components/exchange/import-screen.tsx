@@ -11,7 +11,7 @@ import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, radius, spacing } from '@/components/ui/theme';
 import { FileRefusedError, isImportFinished, useImportJobQuery, useStartImportMutation, type PickedFile } from '@/lib/api/exchange';
-import { csvColumns, IMPORT_MAX_BYTES, type CsvColumn, type CsvMapping, type ImportIssue, type ImportJob } from '@/lib/schemas/exchange';
+import { csvColumns, duplicateChoices, IMPORT_MAX_BYTES, type CsvColumn, type CsvMapping, type DuplicateChoice, type ImportIssue, type ImportJob } from '@/lib/schemas/exchange';
 import { roleAtLeast } from '@/lib/schemas/groups';
 import { fileSizeText, importRefusalText } from './exchange-format';
 import { FilePickButton } from './file-picker';
@@ -85,6 +85,8 @@ function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }
   const [checkedMapping, setCheckedMapping] = useState<string | null>(null);
   const [dryJobId, setDryJobId] = useState<string | null>(null);
   const [runJobId, setRunJobId] = useState<string | null>(null);
+  const [duplicatesChoice, setDuplicatesChoice] = useState<DuplicateChoice>('skip');
+  const [rowChoices, setRowChoices] = useState<Record<string, DuplicateChoice>>({});
   const start = useStartImportMutation();
   const dryJob = useImportJobQuery(dryJobId);
   const runJob = useImportJobQuery(runJobId);
@@ -120,7 +122,7 @@ function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }
   const send = (dryRun: boolean) => {
     if (!file) return;
     start.mutate(
-      { file, groupId: groupId ?? undefined, dryRun, mapping },
+      { file, groupId: groupId ?? undefined, dryRun, mapping, duplicates: duplicatesChoice, duplicateChoices: rowChoices },
       {
         onSuccess: (job) => {
           if (dryRun) {
@@ -196,6 +198,18 @@ function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }
         {dryRunning ? <JobProgress job={dry} label="Checking rows…" /> : null}
         {dryJob.isError && !dry ? <FormError message={importRefusalText(dryJob.error)} testID="import-poll-error" /> : null}
         {dry && isImportFinished(dry) ? <DryRunReport job={dry} stale={checkedMapping !== mappingKey} /> : null}
+        {dry && isImportFinished(dry) && dry.duplicates.length > 0 ? (
+          <DuplicateChoices
+            job={dry}
+            forAll={duplicatesChoice}
+            perRow={rowChoices}
+            onForAll={(choice) => {
+              setDuplicatesChoice(choice);
+              setRowChoices({});
+            }}
+            onRow={(row, choice) => setRowChoices((current) => ({ ...current, [String(row)]: choice }))}
+          />
+        ) : null}
       </Card>
 
       {headers.length > 0 ? (
@@ -278,6 +292,54 @@ function DryRunReport({ job, stale }: { job: ImportJob; stale: boolean }) {
           {job.errors.length > 0 ? <IssueTable issues={job.errors} total={job.errorCount} /> : null}
         </>
       )}
+    </View>
+  );
+}
+
+const CHOICE_LABELS: Record<DuplicateChoice, string> = { skip: 'Skip', merge: 'Add its measurements', import: 'Import anyway' };
+
+/**
+ * Entries of the file whose species (metal, oxidation state, ligand set) is already in the library
+ * or earlier in the file: one choice for all, and per row.
+ */
+function DuplicateChoices({ job, forAll, perRow, onForAll, onRow }: {
+  job: ImportJob;
+  forAll: DuplicateChoice;
+  perRow: Record<string, DuplicateChoice>;
+  onForAll: (choice: DuplicateChoice) => void;
+  onRow: (row: number, choice: DuplicateChoice) => void;
+}) {
+  return (
+    <View style={styles.report} testID="import-duplicates">
+      <AppText variant="lead">
+        {job.duplicates.length === 1 ? 'One entry repeats a species' : `${job.duplicates.length} entries repeat a species`}
+      </AppText>
+      <AppText tone="soft">
+        Same metal centre, oxidation state and ligand set as an entry already in the library or earlier in this file. Choose what the import does with
+        them; adding the measurements to an existing entry sends it for review again.
+      </AppText>
+      <View style={styles.choiceRow} accessibilityRole="radiogroup" accessibilityLabel="For every repeated entry">
+        <AppText variant="label">For all:</AppText>
+        {duplicateChoices.map((choice) => (
+          <Chip key={choice} label={CHOICE_LABELS[choice]} selected={forAll === choice && Object.keys(perRow).length === 0} onPress={() => onForAll(choice)} testID={`import-duplicates-all-${choice}`} />
+        ))}
+      </View>
+      {job.duplicates.map((d) => {
+        const chosen = perRow[String(d.row)] ?? forAll;
+        return (
+          <View key={d.row} style={styles.duplicate} testID={`import-duplicate-${d.row}`}>
+            <AppText>
+              Row {d.row}: <AppText style={styles.mono}>{d.formula}</AppText> “{d.name}”{' '}
+              {d.existing ? `is already in the library as “${d.existing.name}” (${d.existing.status}).` : `is the same species as row ${d.sameAsRow}.`}
+            </AppText>
+            <View style={styles.choiceRow} accessibilityRole="radiogroup" accessibilityLabel={`Row ${d.row}`}>
+              {duplicateChoices.map((choice) => (
+                <Chip key={choice} label={CHOICE_LABELS[choice]} selected={chosen === choice} onPress={() => onRow(d.row, choice)} testID={`import-duplicate-${d.row}-${choice}`} />
+              ))}
+            </View>
+          </View>
+        );
+      })}
     </View>
   );
 }
@@ -403,6 +465,9 @@ function RunStatus({ job, onAnother }: { job: ImportJob; onAnother: () => void }
 }
 
 const styles = StyleSheet.create({
+  choiceRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.xs },
+  duplicate: { gap: spacing.xs, paddingVertical: spacing.xs, borderTopWidth: 1, borderTopColor: colors.line },
+  mono: { fontFamily: fonts.mono },
   section: { gap: spacing.sm },
   row: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.md },
   fileName: { fontFamily: fonts.mono },

@@ -9,6 +9,7 @@ import {
   mailPreferencesSchema,
   type Attachment,
   type CsvMapping,
+  type DuplicateChoice,
   type DoiLookupResponse,
   type ImportIssue,
   type ImportJob,
@@ -86,14 +87,19 @@ export interface StartImportInput {
   groupId?: string;
   dryRun: boolean;
   mapping?: CsvMapping;
+  /** For every duplicate row, and per row (by the row number the dry run reported). */
+  duplicates?: DuplicateChoice;
+  duplicateChoices?: Record<string, DuplicateChoice>;
 }
 
-export function importPath({ file, groupId, dryRun, mapping }: Omit<StartImportInput, 'file'> & { file: Pick<PickedFile, 'name'> }): string {
+export function importPath({ file, groupId, dryRun, mapping, duplicates, duplicateChoices }: Omit<StartImportInput, 'file'> & { file: Pick<PickedFile, 'name'> }): string {
   const params = new URLSearchParams();
   if (groupId) params.set('groupId', groupId);
   params.set('dryRun', dryRun ? 'true' : 'false');
   params.set('fileName', file.name.slice(0, 200));
   if (mapping && Object.keys(mapping).length > 0) params.set('mapping', JSON.stringify(mapping));
+  if (duplicates) params.set('duplicates', duplicates);
+  if (duplicateChoices && Object.keys(duplicateChoices).length > 0) params.set('duplicateChoices', JSON.stringify(duplicateChoices));
   return `/imports?${params.toString()}`;
 }
 

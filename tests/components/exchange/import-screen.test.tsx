@@ -197,6 +197,31 @@ describe('ImportScreen', () => {
     expect(real.get('dryRun')).toBe('false');
   });
 
+  it('lists repeated species after the dry run and sends the choices, for all and per row', async () => {
+    const duplicates = [
+      { row: 2, formula: '[Cr(OH2)6]3+', name: 'chromium again', existing: { id: 'c-cr', name: 'hexaaquachromium(III)', formula: '[Cr(H2O)6]3+', status: 'accepted' }, sameAsRow: null, choice: 'skip' as const },
+      { row: 4, formula: '[Ni(NH3)6]2+', name: 'nickel twice', existing: null, sameAsRow: 3, choice: 'skip' as const },
+    ];
+    const calls = rawFetch({
+      'GET /api/auth/session': { status: 200, body: { me: contributorMe } },
+      'POST /api/imports': () => ({ status: 202, body: job({ id: calls.filter((c) => c.method === 'POST').length === 2 ? 'job-2' : 'job-1' }) }),
+      'GET /api/imports/job-1': { status: 200, body: job({ state: 'succeeded', processed: 2, entryCount: 3, measurementCount: 2, duplicates, finishedAt: T0 }) },
+      'GET /api/imports/job-2': { status: 200, body: job({ id: 'job-2', dryRun: false, state: 'succeeded', processed: 2, entryCount: 2, measurementCount: 2, finishedAt: T0 }) },
+    });
+    renderWithQueries(<ImportScreen />);
+    fireEvent.press(await screen.findByTestId('import-pick'));
+    fireEvent.press(screen.getByTestId('import-dry-run'));
+    expect(await screen.findByTestId('import-duplicate-2')).toHaveTextContent(/already in the library as “hexaaquachromium\(III\)”/);
+    expect(screen.getByTestId('import-duplicate-4')).toHaveTextContent(/same species as row 3/);
+    fireEvent.press(screen.getByTestId('import-duplicates-all-import'));
+    fireEvent.press(screen.getByTestId('import-duplicate-2-merge'));
+    fireEvent.press(screen.getByTestId('import-run'));
+    await waitFor(() => expect(calls.filter((c) => c.method === 'POST')).toHaveLength(2));
+    const real = new URLSearchParams(calls.filter((c) => c.method === 'POST')[1]?.url.split('?')[1]);
+    expect(real.get('duplicates')).toBe('import');
+    expect(JSON.parse(real.get('duplicateChoices') ?? '{}')).toEqual({ 2: 'merge' });
+  });
+
   it('tells viewers that importing needs the contributor role', async () => {
     rawFetch({
       'GET /api/auth/session': { status: 200, body: { me: { ...contributorMe, memberships: [{ groupId: GROUP_ID, groupName: 'Larkspur Coordination Lab', role: 'viewer' }] } } },
