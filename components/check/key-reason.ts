@@ -6,6 +6,8 @@ import type { Classification } from '@/lib/chem/types';
  * searched, so the sentence is the engine's, not a second wording; the full list stays under "Why".
  */
 const DECISIVE: RegExp[] = [
+  // Where the model is weak, that is the first thing to say.
+  /only an order of magnitude is given|the rate is only a guess/,
   /\d+-electron (organometallic|count)/,
   /square-planar d8/i,
   /Jahn–Teller/,

@@ -57,12 +57,24 @@ function VerdictHero({ result }: { result: Classification }) {
         <VerdictGlyph verdict={result.verdict} color={palette.fg} size={40} />
         <AppText style={[styles.heroWord, { color: palette.fg }]}>{result.verdict}</AppText>
       </View>
-      <AppText style={styles.heroNumbers} testID="verdict-rate">
-        <AppText style={styles.heroNumber}>t½ ≈ {duration(result.halfLifeSeconds)}</AppText>{' '}
-        <AppText tone="soft" style={styles.heroNumberAside}>
-          at {formatCelsius(result.temperatureC)} · k ≈ {powerOfTen(result.logKPerSecond)} s⁻¹
+      {result.halfLifeRangeSeconds ? (
+        // Where the model is weak only the order of magnitude is given, never a precise half-life.
+        <AppText style={styles.heroNumbers} testID="verdict-rate">
+          <AppText style={styles.heroNumber}>
+            t½ {duration(result.halfLifeRangeSeconds.shortest)} to {duration(result.halfLifeRangeSeconds.longest)}
+          </AppText>{' '}
+          <AppText tone="soft" style={styles.heroNumberAside} testID="verdict-rate-range-note">
+            at {formatCelsius(result.temperatureC)} · order of magnitude only: the model is weak for this kind of complex
+          </AppText>
         </AppText>
-      </AppText>
+      ) : (
+        <AppText style={styles.heroNumbers} testID="verdict-rate">
+          <AppText style={styles.heroNumber}>t½ ≈ {duration(result.halfLifeSeconds)}</AppText>{' '}
+          <AppText tone="soft" style={styles.heroNumberAside}>
+            at {formatCelsius(result.temperatureC)} · k ≈ {powerOfTen(result.logKPerSecond)} s⁻¹
+          </AppText>
+        </AppText>
+      )}
       {reason ? (
         <AppText variant="lead" testID="verdict-key-reason">{reason}</AppText>
       ) : null}

@@ -36,7 +36,7 @@ const {
   octahedralOccupancy,
   tetrahedralLfseDq,
 } = ligandField;
-const { confidenceFrom, measuredLogKAt, predictLogK, scaleLogKWithoutEyring, verdictFromLogK } = lability;
+const { confidenceFrom, measuredLogKAt, predictLogK, scaleLogKWithoutEyring, verdictFromLogK, WEAK_CLASS_HALF_WIDTH } = lability;
 const { ionLabel, ionicRadiusPm, metalIon } = metalIons;
 const { capitaliseSentence, formatCelsius, formatDuration, formatFixed, formatInteger, formatPowerOfTen, formatRecorded } = numberFormat;
 
@@ -202,6 +202,7 @@ function copyClassification(source: Classification): Classification {
     lfseLossToTransitionStateKJPerMol: source.lfseLossToTransitionStateKJPerMol && { ...source.lfseLossToTransitionStateKJPerMol },
     measured: source.measured && { ...source.measured },
     mechanism: { ...source.mechanism, reasons: source.mechanism.reasons.slice(), ...(source.mechanism.assistedPaths ? { assistedPaths: source.mechanism.assistedPaths.map((path) => ({ ...path })) } : {}) },
+    ...(source.halfLifeRangeSeconds ? { halfLifeRangeSeconds: { ...source.halfLifeRangeSeconds } } : {}),
     ...(source.readings ? { readings: source.readings.map((reading) => ({ ...reading })) } : {}),
     ...(source.warnings ? { warnings: source.warnings.slice() } : {}),
     ...(source.centres ? { centres: source.centres.map((centre) => ({ ...centre })) } : {}),
@@ -375,7 +376,10 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
   }
   const { verdict, halfLifeSeconds, reason: rateReason } = rateAt(logK);
   const confidence = confidenceFrom(logK, prediction.roughness, decidedBy === 'reference');
-  reasons.push(rateReason);
+  // A weak class with nothing measured: an order-of-magnitude range, never a precise half-life.
+  const weakClass = decidedBy === 'model' ? prediction.weakClass : undefined;
+  const halfLifeRangeSeconds = weakClass === undefined ? undefined : halfLifeRange(logK);
+  reasons.push(halfLifeRangeSeconds === undefined ? rateReason : rangeReason(verdict, logK));
   reasons.push(KINETIC_SCALE_NOTE);
 
   const hints = hintsFor(metal, oxidationState, verdict, ligands, dElectrons, geometry);
@@ -411,6 +415,7 @@ function computeClassification(formula: string, options: ClassifyOptions): Class
     jahnTeller,
     logKPerSecond: Math.round(logK * 100) / 100,
     halfLifeSeconds,
+    ...(halfLifeRangeSeconds ? { halfLifeRangeSeconds, weakClass } : {}),
     temperatureC,
     confidence,
     decidedBy,
@@ -625,6 +630,24 @@ const RING_GEOMETRY_REASONS: Partial<Record<string, string>> = {
   'bent-sandwich': 'Bent sandwich: two tilted rings with the other ligands in the wedge between them, not an octahedron',
   'half-sandwich': 'Half-sandwich (piano stool): one ring and the other ligands as the legs, not an octahedron',
 };
+
+/** t½ for log k ± WEAK_CLASS_HALF_WIDTH: the fastest rate gives the shortest half-life. */
+function halfLifeRange(logK: number): { shortest: number; longest: number } {
+  return { shortest: Math.LN2 / 10 ** (logK + WEAK_CLASS_HALF_WIDTH), longest: Math.LN2 / 10 ** (logK - WEAK_CLASS_HALF_WIDTH) };
+}
+
+/** The rate line for a weak class: a range of k and t½, and whether the range crosses a band edge. */
+function rangeReason(verdict: Classification['verdict'], logK: number): string {
+  const { shortest, longest } = halfLifeRange(logK);
+  const spansBands = verdictFromLogK(logK + WEAK_CLASS_HALF_WIDTH) !== verdictFromLogK(logK - WEAK_CLASS_HALF_WIDTH);
+  return (
+    `${VERDICT_WORDS[verdict]} by the model's central estimate, but only the order of magnitude is known: k between ` +
+    `${formatPowerOfTen(logK - WEAK_CLASS_HALF_WIDTH, 1)} and ${formatPowerOfTen(logK + WEAK_CLASS_HALF_WIDTH, 1)} s⁻¹, ` +
+    `t½ between ${formatDuration(shortest)} and ${formatDuration(longest)}` +
+    (spansBands ? '; the range crosses the band edges, so the verdict itself is uncertain' : '') +
+    ' (labile under 1 min, inert from 5 min)'
+  );
+}
 
 const VERDICT_WORDS: Record<Classification['verdict'], string> = { labile: 'Labile', intermediate: 'Intermediate', inert: 'Inert' };
 

@@ -72,12 +72,23 @@ export interface LabilityInput {
   organometallic: boolean;
 }
 
+/** Classes where the model is weak; each comes with a reason saying why. */
+export type WeakClass = 'organometallic' | 'low-valent-square-planar' | 'oxoanion' | 'macrocycle' | 'cyanide';
+
+/** Half-width (log10 units) of the range printed for a weak class: three orders of magnitude either way. */
+export const WEAK_CLASS_HALF_WIDTH = 3;
+
 export interface LabilityPrediction {
   logKPerSecond: number;
   reasons: string[];
   /** Rules that made the estimate rougher (lower the confidence). */
   roughness: number;
   model: 'aqua-type' | 'square-planar' | 'organometallic' | 'f-block';
+  /**
+   * A class the aqua-ion fit does not describe (README, "Rates outside the calibration set"): the
+   * answer then gives an order-of-magnitude range, never a precise half-life, with low confidence.
+   */
+  weakClass?: WeakClass;
 }
 
 const KJ_PER_MOL_PER_CM = 0.01196266;
@@ -147,18 +158,21 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
   // 1. Organometallic 18-electron rule.
   if (input.organometallic && input.electronShell === 'd' && input.valenceElectronCount !== null) {
     const count = input.valenceElectronCount;
-    roughness += 1;
+    // The electron count says which path (dissociative at 18, associative below) but not how fast:
+    // CO loss from 18-electron carbonyls spans many orders of magnitude (validation error ~4 log units).
+    roughness += 2;
+    const weak = 'the electron count gives the kind of path, not its rate (CO or ligand loss from 18-electron complexes at 25 °C ranges over many orders of magnitude and is often far slower): only an order of magnitude is given';
     if (count === 18) {
       const logK = input.dElectrons === 10 ? EIGHTEEN_ELECTRON_D10 : EIGHTEEN_ELECTRON_LOG_K[input.series] ?? -6;
-      reasons.push(`18-electron organometallic (d${input.dElectrons} + ${input.coordinationNumber} × 2 e): substitution needs a ligand to leave first, slow at 25 °C`);
-      return { logKPerSecond: logK, reasons, roughness, model: 'organometallic' };
+      reasons.push(`18-electron organometallic (d${input.dElectrons} + ${input.coordinationNumber} × 2 e): substitution needs a ligand to leave first, slow at 25 °C; ${weak}`);
+      return { logKPerSecond: logK, reasons, roughness, model: 'organometallic', weakClass: 'organometallic' };
     }
     if (count < 18) {
-      reasons.push(`${count}-electron organometallic: an open site allows fast associative substitution`);
-      return { logKPerSecond: 4, reasons, roughness, model: 'organometallic' };
+      reasons.push(`${count}-electron organometallic: an open site allows fast associative substitution; ${weak}`);
+      return { logKPerSecond: 4, reasons, roughness, model: 'organometallic', weakClass: 'organometallic' };
     }
-    reasons.push(`${count}-electron count above 18: a ligand is easily lost`);
-    return { logKPerSecond: 6, reasons, roughness, model: 'organometallic' };
+    reasons.push(`${count}-electron count above 18: a ligand is easily lost; ${weak}`);
+    return { logKPerSecond: 6, reasons, roughness, model: 'organometallic', weakClass: 'organometallic' };
   }
 
   // 2. Square-planar d8: associative path, set by the row.
@@ -170,15 +184,20 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
     if (input.series === '5d') reasons.push('5d metal: larger Δo and stronger bonds make the associative path slow (Pt(II)-type)');
     else if (input.series === '4d') reasons.push('4d metal: ~10⁵–10⁶ times faster than its 5d congener (Pd(II) vs Pt(II))');
     else reasons.push('3d metal: square-planar Ni(II)-type complexes substitute fast');
+    let weakClass: WeakClass | undefined;
     if (chargeStep > 0) {
-      roughness += 1;
-      reasons.push(`oxidation state ${input.oxidationState} rather than 2: rate adjusted roughly`);
+      // Rh(I), Ir(I), Au(III): set from Pt(II)/Pd(II) by a rough step per charge; phosphine loss from
+      // Rh(I) is off by about five log units in validation.
+      roughness += 2;
+      weakClass = 'low-valent-square-planar';
+      reasons.push(`oxidation state ${input.oxidationState} rather than 2: the rate is carried over from Pt(II)/Pd(II) by a rough step (phosphine and other ligand loss from Rh(I) and Ir(I) is not modelled): only an order of magnitude is given`);
     }
     if (hasMacrocycle(input.ligands)) {
       roughness += 2;
+      weakClass = 'macrocycle';
       reasons.push(MACROCYCLE_REASON);
     }
-    return { logKPerSecond: clamp(logK + chelateTerm(input.ligands)), reasons, roughness, model: 'square-planar' };
+    return { logKPerSecond: clamp(logK + chelateTerm(input.ligands)), reasons, roughness, model: 'square-planar', ...(weakClass ? { weakClass } : {}) };
   }
 
   // 3. Charge density (all other ions).
@@ -261,15 +280,25 @@ export function predictLogK(input: LabilityInput): LabilityPrediction {
   }
   // Classes the aqua-ion fit does not describe (out-of-sample errors of 7–12 log units, README):
   // say so and lower the confidence rather than print a half-life the model cannot back.
+  let weakClass: WeakClass | undefined;
   if (hasLigand(input.ligands, 'O') && input.dElectrons === 0 && input.oxidationState >= 5) {
     roughness += 2;
+    weakClass = 'oxoanion';
     reasons.push('d0 oxoanion: oxygen exchange with water is not described by this model (neutral MnO4⁻ and CrO4²⁻ exchange over hours to days); the rate is only a guess');
   }
   if (hasMacrocycle(input.ligands)) {
     roughness += 2;
+    weakClass = 'macrocycle';
     reasons.push(MACROCYCLE_REASON);
   }
-  return { logKPerSecond: clamp(logK), reasons, roughness, model: 'aqua-type' };
+  if (weakClass === undefined && input.coordinationNumber > 6 && cyanideShare(input.ligands) >= 0.5) {
+    // [Mo(CN)8]4− is inert where the aqua-ion terms call it labile (validation error ~7 log units);
+    // the hexacyano complexes of the 3d metals come out inert, as published, and keep their half-life.
+    roughness += 2;
+    weakClass = 'cyanide';
+    reasons.push('high-coordinate cyanide complex: cyanide exchange of the octacyano complexes is not described by this model (π back-bonding and coordination numbers above six lie outside the aqua-ion fit): only an order of magnitude is given');
+  }
+  return { logKPerSecond: clamp(logK), reasons, roughness, model: 'aqua-type', ...(weakClass ? { weakClass } : {}) };
 }
 
 /** Why an octahedral d3 or low-spin d4–d6 ion is slow, in words true for each count. */
@@ -280,6 +309,18 @@ function taubeInertReason(d: number, zText: string): string {
 }
 
 const MACROCYCLE_REASON = 'macrocyclic or cryptand ligand: the macrocyclic kinetic effect (dissociation far slower than for open-chain ligands) is not in this model; the rate is only a guess';
+
+/** Share of the coordination sites held by cyanide. */
+function cyanideShare(ligands: readonly LigandInstance[]): number {
+  let cyanide = 0;
+  let total = 0;
+  for (const instance of ligands) {
+    const sites = instance.ligand.denticity * instance.count;
+    total += sites;
+    if (instance.ligand.id === 'CN') cyanide += sites;
+  }
+  return total === 0 ? 0 : cyanide / total;
+}
 
 function hasMacrocycle(ligands: readonly LigandInstance[]): boolean {
   for (const instance of ligands) if (instance.ligand.macrocycle !== undefined) return true;

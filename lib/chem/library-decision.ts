@@ -173,8 +173,10 @@ export function decideByLibrary(
   }
   reasons.push(capitaliseSentence(`${verdict}: k ≈ ${formatPowerOfTen(logK)} s⁻¹, t½ ≈ ${formatDuration(halfLifeSeconds)} (${side} the one-minute line)`));
   reasons.push(`The model alone gives k ≈ ${formatPowerOfTen(modelLogK)} s⁻¹ (${modelVerdict}); it is kept below as the footnote`);
+  // The measurement decides: no model range is left beside it (the model stays as the footnote).
+  const { halfLifeRangeSeconds: _range, weakClass: _weak, ...model } = result;
   return {
-    ...result,
+    ...model,
     verdict,
     logKPerSecond: Math.round(logK * 100) / 100,
     halfLifeSeconds,

@@ -253,6 +253,14 @@ export interface Classification {
   /** Estimated log10 of the first-order exchange rate constant at temperatureC (s⁻¹). */
   logKPerSecond: number;
   halfLifeSeconds: number;
+  /**
+   * Where the model is weak (18-electron organometallics and CO loss, Rh(I)/Ir(I) square-planar,
+   * d0 oxoanions, macrocycles and cryptands, cyanide exchange) and nothing measured decides: the
+   * order-of-magnitude range the answer gives instead of a half-life (log k ± 3). Absent otherwise.
+   */
+  halfLifeRangeSeconds?: { shortest: number; longest: number };
+  /** The class that made the model weak here (see halfLifeRangeSeconds). */
+  weakClass?: 'organometallic' | 'low-valent-square-planar' | 'oxoanion' | 'macrocycle' | 'cyanide';
   temperatureC: number;
   confidence: Confidence;
   /**

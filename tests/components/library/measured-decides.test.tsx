@@ -85,3 +85,14 @@ describe('the entry page', () => {
     expect(screen.queryByTestId('complex-second-look')).toBeNull();
   });
 });
+
+describe('VerdictCard where the model is weak', () => {
+  it('[Cr(CO)6] (18-electron carbonyl): a half-life range and "order of magnitude only", never "t½ ≈"', () => {
+    render(<VerdictCard result={classifyFormula('[Cr(CO)6]')} />);
+    const rate = screen.getByTestId('verdict-rate');
+    expect(rate).toHaveTextContent(/t½ .+ to .+/);
+    expect(rate).not.toHaveTextContent(/t½ ≈/);
+    expect(screen.getByTestId('verdict-rate-range-note')).toHaveTextContent(/order of magnitude only/);
+    expect(screen.getByTestId('verdict-confidence')).toHaveTextContent(/low confidence/);
+  });
+});
