@@ -15,9 +15,10 @@ import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
 import { colors, radius, spacing } from '@/components/ui/theme';
 import { useDebouncedValue } from '@/components/ui/use-debounced-value';
-import { VerdictBadge } from '@/components/ui/verdict-badge';
+import { FormulaText } from '@/components/ui/formula-text';
+import { StatusPill, VerdictBadge } from '@/components/ui/verdict-badge';
 import { ApiError } from '@/lib/api/api-client';
-import { StaleVersionError, useComplexQuery, useCreateComplexMutation, useSaveComplexMutation } from '@/lib/api/library';
+import { StaleVersionError, useComplexQuery, useCreateComplexMutation, useDuplicatesQuery, useSaveComplexMutation } from '@/lib/api/library';
 import { roleAtLeast } from '@/lib/schemas/groups';
 import type { ComplexDetail } from '@/lib/schemas/library';
 import {
@@ -144,7 +145,11 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
   const measurements = useFieldArray({ control, name: 'measurements', keyName: 'key' });
   const formula = useWatch({ control, name: 'formula' });
   const groupId = useWatch({ control, name: 'groupId' });
-  const live = useClassification(useDebouncedValue(formula, LIVE_CHECK_DELAY_MS), 25, null);
+  const settledFormula = useDebouncedValue(formula, LIVE_CHECK_DELAY_MS);
+  const live = useClassification(settledFormula, 25, null);
+  // The same species already in the group: offered before a second entry is made.
+  const formulaToCheck = live.kind === 'result' && settledFormula.trim() && settledFormula.trim() !== base?.formula ? settledFormula.trim() : null;
+  const duplicates = useDuplicatesQuery(base?.groupId ?? (groupId || null), formulaToCheck, base?.id ?? null).data?.duplicates ?? [];
   const busy = create.isPending || save.isPending;
 
   const submit = handleSubmit(async (values) => {
@@ -263,6 +268,23 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
           </View>
         ) : null}
 
+        {formulaToCheck && duplicates.length > 0 ? (
+          <View style={styles.duplicates} testID="complex-form-duplicates" accessibilityRole="alert">
+            <AppText variant="label">This species is already in the library</AppText>
+            {duplicates.map((d) => (
+              <View key={d.id} style={styles.duplicateRow}>
+                <FormulaText formula={d.formula} />
+                <AppText>{d.name}</AppText>
+                <StatusPill status={d.status} />
+                <TextLink href={`/library/${d.id}`} testID={`complex-form-duplicate-${d.id}`}>Open it</TextLink>
+              </View>
+            ))}
+            <AppText variant="caption" tone="soft">
+              Same metal centre, oxidation state and ligand set. Add your measurements to that entry, or save this one if it is meant to stand apart.
+            </AppText>
+          </View>
+        ) : null}
+
         <FormTextField control={control} name="name" label="Name" autoCapitalize="none" placeholder="e.g. hexaaquachromium(III)" testID="complex-form-name" />
         <FormTextField control={control} name="notes" label="Notes" autoCapitalize="sentences" hint="Preparation, caveats, anything a colleague should know." testID="complex-form-notes" />
 
@@ -336,6 +358,8 @@ const styles = StyleSheet.create({
     borderColor: colors.line,
   },
   section: { gap: spacing.md },
+  duplicates: { gap: spacing.xs, padding: spacing.sm, borderRadius: radius.md, borderWidth: 1, borderColor: colors.lineStrong, backgroundColor: colors.card },
+  duplicateRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm },
   start: { alignSelf: 'flex-start' },
   actions: { flexDirection: 'row', gap: spacing.sm, flexWrap: 'wrap' },
 });

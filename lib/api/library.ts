@@ -26,6 +26,7 @@ import {
   type ReviewResponse,
   type TransitionInput,
   type SaveComplexInput,
+  duplicatesResponseSchema,
 } from '@/lib/schemas/library';
 import { complexFacetsSchema } from '@/lib/schemas/library-facets';
 import { ApiError, apiErrorFrom, apiRequest, requestHeaders, writeKeys } from './api-client';
@@ -321,6 +322,22 @@ export const measuredKeys = {
 export function fetchLibraryMeasured(groupId: string, formula: string, signal?: AbortSignal) {
   const query = new URLSearchParams({ formula }).toString();
   return apiRequest(`/groups/${encodeURIComponent(groupId)}/measured?${query}`, measuredResponseSchema, { signal });
+}
+
+/** Entries of the same species already in the group (none asked while the formula cannot be read). */
+export function useDuplicatesQuery(groupId: string | null, formula: string | null, exceptId: string | null) {
+  return useQuery({
+    queryKey: [...complexKeys.lists(), 'duplicates', groupId ?? '', formula ?? '', exceptId ?? ''] as const,
+    queryFn: ({ signal }) => {
+      const params = new URLSearchParams({ formula: formula ?? '' });
+      if (groupId) params.set('groupId', groupId);
+      if (exceptId) params.set('exceptId', exceptId);
+      return apiRequest(`/complexes/duplicates?${params.toString()}`, duplicatesResponseSchema, { signal });
+    },
+    enabled: !!formula,
+    staleTime: 30_000,
+    retry: retryUnlessClientError,
+  });
 }
 
 export function useLibraryMeasuredQuery(groupId: string | null, formula: string | null) {

@@ -39,7 +39,8 @@ describe('ComplexFormScreen (new entry)', () => {
     fireEvent.changeText(screen.getByTestId('complex-form-m-0-value'), '3e3');
     fireEvent.press(screen.getByTestId('complex-form-save'));
     expect(await screen.findByTestId('complex-form-m-0-partner-error')).toHaveTextContent('A cross reaction (k12) needs the formula of its partner.');
-    expect(fetchMock.mock.calls.filter(([url]) => String(url).startsWith('/api/complexes'))).toHaveLength(0);
+    // Nothing is written: only the read-only lookup of the same species may have gone out.
+    expect(fetchMock.mock.calls.filter(([url, init]) => String(url).startsWith('/api/complexes') && ((init as { method?: string } | undefined)?.method ?? 'GET') !== 'GET')).toHaveLength(0);
   });
 
   it('sends the entry with its measurement and cited source, and puts server field problems on their fields', async () => {
@@ -64,6 +65,27 @@ describe('ComplexFormScreen (new entry)', () => {
     expect(sent.groupId).toBe(contributorMe.memberships[0]?.groupId);
     expect(sent.measurements[0]).toMatchObject({ value: 2.4e-6, unit: 's-1', temperatureK: 298.15, citation: { year: 1985 } });
     expect(screen.queryByTestId('complex-form-error')).toBeNull();
+  });
+});
+
+describe('ComplexFormScreen (same species)', () => {
+  it('offers the entry of the same species already in the group, and still lets the person save', async () => {
+    const { calls } = mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes/duplicates': {
+        status: 200,
+        body: { duplicates: [{ id: 'c-cr-aqua', name: 'hexaaquachromium(III)', formula: '[Cr(H2O)6]3+', status: 'accepted' }] },
+      },
+    });
+    renderWithQueries(<ComplexFormScreen mode="create" />);
+    fireEvent.changeText(await screen.findByTestId('complex-form-formula'), '[Cr(OH2)6](ClO4)3');
+    const notice = await screen.findByTestId('complex-form-duplicates');
+    expect(notice).toHaveTextContent(/This species is already in the library/);
+    expect(notice).toHaveTextContent(/hexaaquachromium\(III\)/);
+    expect(screen.getByTestId('complex-form-duplicate-c-cr-aqua')).toBeTruthy();
+    const asked = calls.find((c) => c.url.startsWith('/api/complexes/duplicates'));
+    expect(new URLSearchParams(asked!.url.split('?')[1]).get('formula')).toBe('[Cr(OH2)6](ClO4)3');
+    expect(screen.getByTestId('complex-form-save')).toBeTruthy();
   });
 });
 
