@@ -13,6 +13,7 @@ import { formatCelsius, formatCelsiusFromKelvin, formatDecimal, formatInteger, U
 import { FormulaText } from '@/components/ui/formula-text';
 import { KeyValueGrid } from '@/components/ui/key-value';
 import { AppText } from '@/components/ui/text';
+import { TypesetText } from '@/components/ui/typeset-text';
 import { jumpTo } from '@/components/ui/jump-bar';
 import { colors, fonts, radius, spacing, verdictColors } from '@/components/ui/theme';
 import { VerdictGlyph } from '@/components/ui/verdict-badge';
@@ -76,7 +77,7 @@ function VerdictHero({ result }: { result: Classification }) {
         </AppText>
       )}
       {reason ? (
-        <AppText variant="lead" testID="verdict-key-reason">{reason}</AppText>
+        <TypesetText variant="lead" testID="verdict-key-reason">{reason}</TypesetText>
       ) : null}
       {library ? (
         <View style={styles.measured} testID="verdict-headline">

@@ -1,3 +1,5 @@
+import { toDisplayFormula } from './display-formula';
+
 /**
  * The one formatting module: numbers, units, durations, orbital labels, dates and sentence case as the
  * product writes them (below), and the fast fixed-point helpers the engine's reasons use.
@@ -319,11 +321,26 @@ export interface TypesetRun {
 // "t2g" and "eg" as whole words (so "e.g.", "leg", "egg" are left alone); occupancy superscripts may follow.
 const ORBITAL_TOKEN = /(^|[^\p{L}0-9_])(t)(2g)(?![\p{L}0-9_])|(^|[^\p{L}0-9_.])(e)(g)(?![\p{L}0-9_.])/gu;
 
+// A coordination formula inside running text: an optional cation prefix, a bracket that holds an
+// element and a count or a parenthesis ("[Co(NH3)6]", not "[H+]" or "[recalled]"), an optional
+// charge, and an optional hydrate ("·2H2O"); or a bracket-less hydrate salt ("CrCl3·6H2O").
+const FORMULA_TOKEN =
+  /(?<![\w\]])(?:(?:[A-Z][a-z]?\d*|\([A-Z][A-Za-z0-9]*\)\d*)*\[(?=[A-Z])(?=[^\]\s]*[\d(])[^\]\s]+\](?:\d*[+\-−](?![\w])|(?:[A-Z][a-z]?\d*|\([A-Z][A-Za-z0-9]*\)\d*)*)|(?:[A-Z][a-z]?\d*|\([A-Z][A-Za-z0-9]*\)\d*)+)(?:·\d*H2O)?/g;
+
+/** Plain text with the coordination formulas in it typeset ("[Co(NH3)6]3+" → "[Co(NH₃)₆]³⁺"); other text unchanged. */
+export function typesetFormulas(text: string): string {
+  if (text.indexOf('[') < 0 && text.indexOf('·') < 0) return text;
+  return text.replace(FORMULA_TOKEN, (token) => (token.includes('[') || token.includes('·') ? toDisplayFormula(token.replace(/−$/, '-')) : token));
+}
+
 /**
  * Text split into runs so a screen can lower the subscripts of the orbital labels the trade prints
  * as t₂g and e_g (Unicode has no subscript g): "t2g⁶, eg empty" → t, ₂g (sub), "⁶, ", e, g (sub), " empty".
+ * Coordination formulas in the text come out typeset (Unicode sub- and superscripts), as everywhere
+ * else on screen; the parser reads them back as typed.
  */
-export function typesetRuns(text: string): TypesetRun[] {
+export function typesetRuns(rawText: string): TypesetRun[] {
+  const text = typesetFormulas(rawText);
   const runs: TypesetRun[] = [];
   let last = 0;
   ORBITAL_TOKEN.lastIndex = 0;

@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import { parseFormula } from '@/lib/chem/formula-parser';
 import {
   formatFixed,
   formatPrecision2,
@@ -17,6 +18,7 @@ import {
   formatSigned,
   MINUS,
   superscriptInteger,
+  typesetFormulas,
   typesetRuns,
   unitText,
   UNITS,
@@ -274,5 +276,28 @@ describe('whole quantities grouped as the Green Book writes them (3rd ed. 2007, 
     expect(formatInteger(1740)).toBe('1740');
     expect(formatInteger(-12345)).toBe('−12\u202f345');
     expect(formatInteger(1234567)).toBe('1\u202f234\u202f567');
+  });
+});
+
+describe('formulas typeset in running text (common practice: subscript counts, superscript charges)', () => {
+  it('typesets the coordination formulas and hydrates in a sentence and leaves other brackets alone', () => {
+    expect(typesetFormulas('CrCl3·6H2O (in the crystal trans-[CrCl2(H2O)4]Cl·2H2O) dissolves to [Cr(H2O)6]3+, so')).toBe(
+      'CrCl₃·6H₂O (in the crystal trans-[CrCl₂(H₂O)₄]Cl·2H₂O) dissolves to [Cr(H₂O)₆]³⁺, so',
+    );
+    expect(typesetFormulas('K3[Fe(CN)6] and [PtCl4]2−.')).toBe('K₃[Fe(CN)₆] and [PtCl₄]²⁻.');
+    expect(typesetFormulas('rate ∝ 1/[H+], faster at low acid')).toBe('rate ∝ 1/[H+], faster at low acid');
+    expect(typesetFormulas('k11 [recalled].')).toBe('k11 [recalled].');
+  });
+
+  it('what it prints parses back to the same species (the parser reads Unicode sub- and superscripts)', () => {
+    for (const formula of ['[Co(NH3)5Cl]2+', 'K3[Fe(CN)6]', '[Cr(H2O)6]3+', 'CrCl3·6H2O', '[Fe(Cp)2]+']) {
+      const typed = parseFormula(formula);
+      const shown = parseFormula(typesetFormulas(formula));
+      expect({ metal: shown.metal, oxidationState: shown.oxidationState, charge: shown.complexCharge }).toEqual({
+        metal: typed.metal,
+        oxidationState: typed.oxidationState,
+        charge: typed.complexCharge,
+      });
+    }
   });
 });
