@@ -251,6 +251,10 @@ export const attachmentUploadQuerySchema = z
   })
   .strict();
 
+export const attachmentStates = ['pending', 'accepted', 'declined'] as const;
+export const attachmentStateSchema = z.enum(attachmentStates);
+export type AttachmentState = z.infer<typeof attachmentStateSchema>;
+
 export const attachmentSchema = z.object({
   id: z.string(),
   complexId: z.string(),
@@ -264,6 +268,8 @@ export const attachmentSchema = z.object({
   createdAt: z.iso.datetime(),
   /** GET this path (same session) to download the file. */
   downloadPath: z.string(),
+  /** Review state: pending until the entry's revision that added it is accepted (or declined). */
+  state: attachmentStateSchema,
 });
 export type Attachment = z.infer<typeof attachmentSchema>;
 

@@ -10,6 +10,7 @@ import { Migration20270135000000_review_words } from './Migration20270135000000_
 import { Migration20270135500000_idempotency } from './Migration20270135500000_idempotency';
 import { Migration20270135600000_import_duplicates } from './Migration20270135600000_import_duplicates';
 import { Migration20270136000000_published_search } from './Migration20270136000000_published_search';
+import { Migration20270137000000_attachment_review } from './Migration20270137000000_attachment_review';
 
 /**
  * Migrations are listed here (not discovered from the folder) so that tsx, jest and a bundled
@@ -28,4 +29,5 @@ export const migrationsList = [
   { name: 'Migration20270135500000_idempotency', class: Migration20270135500000_idempotency },
   { name: 'Migration20270135600000_import_duplicates', class: Migration20270135600000_import_duplicates },
   { name: 'Migration20270136000000_published_search', class: Migration20270136000000_published_search },
+  { name: 'Migration20270137000000_attachment_review', class: Migration20270137000000_attachment_review },
 ];

@@ -103,9 +103,14 @@ async function accepted(): Promise<Entry> {
 
 async function withAttachment(): Promise<Entry & { attachmentId: string }> {
   const entry = await accepted();
-  const response = await upload('curator', entry.id, 'notes.txt', Buffer.from('UV-vis: 475 nm band\n'));
+  // The author attaches (a revision re-opening the entry), submits, and a curator accepts: an accepted file.
+  const response = await upload('contributor', entry.id, 'notes.txt', Buffer.from('UV-vis: 475 nm band\n'));
   if (response.status !== 201) throw new Error(`attach: ${response.status} ${JSON.stringify(response.body)}`);
-  return { ...entry, attachmentId: response.body.id };
+  const submittedAgain = await b.contributor.post(`/api/complexes/${entry.id}/submit`);
+  if (submittedAgain.status !== 200) throw new Error(`submit: ${submittedAgain.status} ${JSON.stringify(submittedAgain.body)}`);
+  const acceptedAgain = await b.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'accept', version: submittedAgain.body.version });
+  if (acceptedAgain.status !== 201) throw new Error(`accept: ${acceptedAgain.status} ${JSON.stringify(acceptedAgain.body)}`);
+  return { ...entry, version: acceptedAgain.body.complex.version, attachmentId: response.body.id };
 }
 
 function upload(actor: Actor, complexId: string, fileName: string, bytes: Buffer, contentType = 'application/octet-stream') {

@@ -27,6 +27,18 @@ const path = (id = entryId) => `/api/complexes/${id}/attachments`;
 const up = (who: Browser | null, body: Buffer, fileName: string, id = entryId) =>
   upload(t.app, who, `${path(id)}?fileName=${encodeURIComponent(fileName)}`, body, 'application/octet-stream');
 
+/**
+ * The author submits the entry's pending revision and a reviewer who wrote none of it accepts it
+ * (with its files): the curator, or the admin when the curator attached a file themselves.
+ */
+async function acceptPending(id = entryId) {
+  const submitted = await w.author.post(`/api/complexes/${id}/submit`);
+  if (submitted.status !== 200) throw new Error(`submit: ${submitted.status} ${JSON.stringify(submitted.body)}`);
+  let accepted = await w.curator.post(`/api/complexes/${id}/reviews`, { decision: 'accept', comment: 'files checked' });
+  if (accepted.status === 409) accepted = await w.admin.post(`/api/complexes/${id}/reviews`, { decision: 'accept', comment: 'files checked' });
+  if (accepted.status !== 201) throw new Error(`accept: ${accepted.status} ${JSON.stringify(accepted.body)}`);
+}
+
 beforeAll(async () => {
   const base = await createTestApp();
   s3 = await startFakeS3();
@@ -41,10 +53,15 @@ afterAll(async () => {
 });
 
 describe('upload and download', () => {
-  it('stores a PDF, reports its SHA-256, and a viewer downloads the same bytes', async () => {
+  it('stores a PDF, reports its SHA-256, and a viewer downloads the same bytes once the entry is accepted with it', async () => {
     const response = await up(w.author, pdf, 'kinetics trace.pdf');
     expect(response.status).toBe(201);
     const attachment = attachmentSchema.parse(response.body);
+    expect(attachment.state).toBe('pending');
+    // Pending: the author has it, the viewer not yet.
+    expect(Buffer.compare((await download(t.app, w.author, attachment.downloadPath)).body as Buffer, pdf)).toBe(0);
+    expect((await download(t.app, w.viewer, attachment.downloadPath)).status).toBe(404);
+    await acceptPending();
     // SHA-256 (FIPS 180-4) computed here independently of the server.
     expect(attachment.sha256).toBe(createHash('sha256').update(pdf).digest('hex'));
     expect(attachment).toMatchObject({ kind: 'pdf', contentType: 'application/pdf', sizeBytes: pdf.length, fileName: 'kinetics trace.pdf' });
@@ -74,6 +91,7 @@ describe('upload and download', () => {
     expect((await up(w.author, jcamp, 'uv-vis.jdx')).body.kind).toBe('jcamp-dx');
     expect((await up(w.author, cif, 'structure.cif')).body.kind).toBe('cif');
     expect((await up(w.curator, png, 'photo.png')).body.kind).toBe('png');
+    await acceptPending();
     const list = attachmentListSchema.parse((await w.viewer.get(path())).body);
     expect(list.attachments.map((a) => a.fileName)).toEqual(expect.arrayContaining(['uv-vis.jdx', 'structure.cif', 'photo.png']));
   });
@@ -86,6 +104,7 @@ describe('upload and download', () => {
     expect(sneaky.status).toBe(201);
     const row = await t.orm.em.fork().findOneOrFail(Attachment, { id: sneaky.body.id });
     expect(row.objectKey).toMatch(/^attachments\/[0-9a-f-]{36}\/[0-9a-f-]{36}\/[0-9a-f-]{36}$/);
+    await acceptPending();
     const got = await download(t.app, w.viewer, sneaky.body.downloadPath);
     expect(got.status).toBe(200);
     expect(got.headers['x-injected']).toBeUndefined();
@@ -135,6 +154,7 @@ describe('who may do what (table)', () => {
   it.each(table)('%s: list %s, upload %s, download %s, delete %s', async (who, list, add, get, remove) => {
     const browser = who ? w[who] : null;
     const seeded = attachmentSchema.parse((await up(w.curator, cif, 'seed.cif')).body);
+    await acceptPending();
     const send = (method: 'get' | 'delete', p: string) => (browser ? browser[method](p) : download(t.app, null, p));
     expect((await (browser ? browser.get(path()) : download(t.app, null, path()))).status).toBe(list);
     expect((await up(browser, cif, 'mine.cif')).status).toBe(add);
@@ -151,5 +171,54 @@ describe('who may do what (table)', () => {
     expect((await up(w.author, cif, 'draft.cif', draft.id)).status).toBe(201);
     expect((await w.viewer.get(path(draft.id))).status).toBe(404);
     expect((await w.contributor2.get(path(draft.id))).status).toBe(404);
+  });
+});
+
+describe('files go through review with the entry (role matrix)', () => {
+  const listed = async (who: 'viewer' | 'contributor2' | 'author' | 'curator', id: string) =>
+    attachmentListSchema.parse((await w[who].get(path(id))).body).attachments.map((a) => [a.fileName, a.state]);
+
+  it('a file added to an accepted entry waits for review; a declined one stays hidden; an accepted one is shown to everyone', async () => {
+    const entry = (await entryInState(w, 'accepted')).id;
+    const first = attachmentSchema.parse((await up(w.author, cif, 'first.cif', entry)).body);
+    // Adding the file is a revision that re-opens the entry for review.
+    const detail = await w.author.get(`/api/complexes/${entry}`);
+    expect(detail.body).toMatchObject({ status: 'draft', hasPendingRevision: true });
+    const history = (await w.author.get(`/api/complexes/${entry}/revisions`)).body as { revisions: { message: string }[] };
+    expect(history.revisions[0]?.message).toBe('Attached first.cif');
+    for (const who of ['viewer', 'contributor2'] as const) {
+      expect(await listed(who, entry)).toEqual([]);
+      expect((await download(t.app, w[who], first.downloadPath)).status).toBe(404);
+    }
+    for (const who of ['author', 'curator'] as const) expect(await listed(who, entry)).toEqual([['first.cif', 'pending']]);
+
+    // While it waits for review no file can be added; a declined revision's file stays with author and curators.
+    expect((await w.author.post(`/api/complexes/${entry}/submit`)).status).toBe(200);
+    expect((await up(w.author, cif, 'late.cif', entry)).status).toBe(409);
+    expect((await w.curator.post(`/api/complexes/${entry}/reviews`, { decision: 'decline', comment: 'wrong structure file' })).status).toBe(201);
+    for (const who of ['viewer', 'contributor2'] as const) {
+      expect(await listed(who, entry)).toEqual([]);
+      expect((await download(t.app, w[who], first.downloadPath)).status).toBe(404);
+    }
+    expect(await listed('author', entry)).toEqual([['first.cif', 'declined']]);
+
+    // Returned: still pending. Accepted: shown and downloadable for everyone.
+    const second = attachmentSchema.parse((await up(w.author, jcamp, 'second.jdx', entry)).body);
+    expect((await w.author.post(`/api/complexes/${entry}/submit`)).status).toBe(200);
+    expect((await w.curator.post(`/api/complexes/${entry}/reviews`, { decision: 'return', comment: 'add the temperature' })).status).toBe(201);
+    expect(await listed('author', entry)).toEqual([['first.cif', 'declined'], ['second.jdx', 'pending']]);
+    expect(await listed('viewer', entry)).toEqual([]);
+    expect((await w.author.post(`/api/complexes/${entry}/submit`)).status).toBe(200);
+    expect((await w.curator.post(`/api/complexes/${entry}/reviews`, { decision: 'accept', comment: 'checked' })).status).toBe(201);
+    for (const who of ['viewer', 'contributor2'] as const) {
+      expect(await listed(who, entry)).toEqual([['second.jdx', 'accepted']]);
+      const got = await download(t.app, w[who], second.downloadPath);
+      expect(got.status).toBe(200);
+      expect(Buffer.compare(got.body as Buffer, jcamp)).toBe(0);
+      expect((await download(t.app, w[who], first.downloadPath)).status).toBe(404);
+    }
+    const row = await t.orm.em.fork().findOneOrFail(Attachment, { id: second.id });
+    expect(row.addedInVersion).not.toBeNull();
+    expect(row.acceptedInVersion).toBeGreaterThan(row.addedInVersion!);
   });
 });

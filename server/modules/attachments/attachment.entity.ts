@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { defineEntity, p } from '@mikro-orm/core';
-import type { AttachmentKind } from '@/lib/schemas/exchange';
+import type { AttachmentKind, AttachmentState } from '@/lib/schemas/exchange';
 
 /**
  * A file attached to a library entry. The bytes live in the object store under `objectKey`, a key
@@ -21,6 +21,10 @@ export const Attachment = defineEntity({
     sha256: p.string().length(64),
     description: p.string().length(500).nullable(),
     uploadedById: p.uuid().nullable(),
+    /** Review state (migration 20270137): pending until a decision on the revision that added it. */
+    state: p.string().length(10).$type<AttachmentState>().default('pending'),
+    addedInVersion: p.integer().nullable(),
+    acceptedInVersion: p.integer().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
   },
 });

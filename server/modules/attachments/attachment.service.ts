@@ -2,20 +2,26 @@ import { createHash, randomUUID } from 'node:crypto';
 import type { Readable } from 'node:stream';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { roleAtLeast } from '@/lib/schemas/groups';
-import { attachmentExtensions, type Attachment as AttachmentDto, type AttachmentKind } from '@/lib/schemas/exchange';
+import { attachmentExtensions, type Attachment as AttachmentDto, type AttachmentKind, type AttachmentState } from '@/lib/schemas/exchange';
 import { AppError, notFound } from '@/server/http/errors';
 import { recordAudit } from '@/server/modules/audit/audit.service';
 import { User } from '@/server/modules/auth/user.entity';
-import { getComplex } from '@/server/modules/library/complex.service';
+import { getComplex, recordEntryChange } from '@/server/modules/library/complex.service';
 import { Attachment } from './attachment.entity';
 import { binaryKindOf, binaryKindWords, decodeText } from './file-sniff';
 import type { ObjectStorage } from './object-storage';
 
 /**
- * Files on a library entry. Who: everyone who can see the entry lists and downloads its files;
- * its author (contributor) and curators attach; curators delete. What: the type is decided by the
- * content (magic bytes, or valid UTF-8 text) AND must agree with the file name's extension.
+ * Files on a library entry. Who: its author (contributor) and curators attach; curators delete.
+ * A file is added by a revision of the entry (an accepted entry is re-opened for review, as by any
+ * edit) and goes through review with it: the author and curators see every file with its state,
+ * restricted readers (viewers, contributors on entries of others) list and download only accepted
+ * files (see migration 20270137). What: the type is decided by the content (magic bytes, or valid
+ * UTF-8 text) AND must agree with the file name's extension.
  */
+
+/** The files this reader may see: accepted ones for readers of the published view, all for the others. */
+const visibleStates = (view: 'working' | 'published'): AttachmentState[] => (view === 'published' ? ['accepted'] : ['pending', 'accepted', 'declined']);
 
 export const contentTypes: Readonly<Record<AttachmentKind, string>> = {
   pdf: 'application/pdf',
@@ -85,7 +91,7 @@ export function attachmentKindOf(bytes: Buffer, fileName: string): AttachmentKin
   return kind;
 }
 
-type AttachmentRow = { id: string; complexId: string; fileName: string; kind: AttachmentKind; contentType: string; sizeBytes: number; sha256: string; description?: string | null; uploadedById?: string | null; createdAt: Date };
+type AttachmentRow = { id: string; complexId: string; fileName: string; kind: AttachmentKind; contentType: string; sizeBytes: number; sha256: string; description?: string | null; uploadedById?: string | null; createdAt: Date; state: AttachmentState };
 
 function toDto(row: AttachmentRow, people: Map<string, string>): AttachmentDto {
   return {
@@ -100,6 +106,7 @@ function toDto(row: AttachmentRow, people: Map<string, string>): AttachmentDto {
     uploadedBy: row.uploadedById ? { id: row.uploadedById, displayName: people.get(row.uploadedById) ?? 'former member' } : null,
     createdAt: row.createdAt.toISOString(),
     downloadPath: `/api/complexes/${row.complexId}/attachments/${row.id}`,
+    state: row.state,
   };
 }
 
@@ -111,8 +118,8 @@ async function names(em: EntityManager, ids: (string | null | undefined)[]) {
 }
 
 export async function listAttachments(em: EntityManager, userId: string, complexId: string): Promise<AttachmentDto[]> {
-  await getComplex(em, { userId }, complexId);
-  const rows = await em.find(Attachment, { complexId }, { orderBy: { createdAt: 'asc', id: 'asc' } });
+  const entry = await getComplex(em, { userId }, complexId);
+  const rows = await em.find(Attachment, { complexId, state: { $in: visibleStates(entry.view) } }, { orderBy: { createdAt: 'asc', id: 'asc' } });
   const people = await names(em, rows.map((r) => r.uploadedById));
   return rows.map((row) => toDto(row, people));
 }
@@ -131,6 +138,11 @@ export async function addAttachment(
     throw new AppError('FORBIDDEN', entry.myRole === 'viewer' ? 'Viewers cannot attach files.' : 'Contributors attach files to the entries they created; a curator can attach to any entry.');
   }
   if (entry.status === 'retired') throw new AppError('CONFLICT', 'This entry is retired; its files are kept as they are.');
+  if (entry.status === 'in-review' || entry.status === 'declined') {
+    throw new AppError('CONFLICT', entry.status === 'in-review'
+      ? 'This entry is waiting for review: attach the file after the decision (a returned entry takes files).'
+      : 'This entry was declined; declined entries stay as they are.');
+  }
   if (bytes.length === 0) throw new AppError('VALIDATION_FAILED', 'The file is empty.', { file: 'empty' });
   const fileName = sanitiseFileName(input.fileName);
   const kind = attachmentKindOf(bytes, fileName);
@@ -141,7 +153,8 @@ export async function addAttachment(
   await storage.put(objectKey, bytes, contentTypes[kind]);
   const now = new Date();
   try {
-    await em.transactional(async (tem) => {
+    // One revision of the entry adds the file (an accepted entry is re-opened for review).
+    await recordEntryChange(em, { userId }, complexId, `Attached ${fileName}`.slice(0, 500), async (tem, newVersion) => {
       await tem.insert(Attachment, {
         id,
         complexId,
@@ -155,6 +168,9 @@ export async function addAttachment(
         description: input.description ?? null,
         uploadedById: userId,
         createdAt: now,
+        state: 'pending',
+        addedInVersion: newVersion,
+        acceptedInVersion: null,
       });
       recordAudit(tem, {
         actorId: userId,
@@ -181,8 +197,8 @@ export async function openAttachment(
   complexId: string,
   attachmentId: string,
 ): Promise<{ attachment: AttachmentDto; body: Readable }> {
-  await getComplex(em, { userId }, complexId);
-  const row = await em.findOne(Attachment, { id: attachmentId, complexId });
+  const entry = await getComplex(em, { userId }, complexId);
+  const row = await em.findOne(Attachment, { id: attachmentId, complexId, state: { $in: visibleStates(entry.view) } });
   if (!row) throw notFound('That attachment');
   return { attachment: toDto(row, new Map()), body: await storage.get(row.objectKey) };
 }

@@ -490,6 +490,17 @@ export async function saveComplex(em: EntityManager, actor: Actor, id: string, i
   return respond(em, actor, id);
 }
 
+/**
+ * A change of the entry outside its fields (a file attached): one revision with `message`, the
+ * accepted entry re-opened for review like any edit; `apply` writes the rows in the same transaction.
+ */
+export async function recordEntryChange(em: EntityManager, actor: Actor, id: string, message: string, apply: (tem: EntityManager, newVersion: number) => Promise<void>) {
+  const entry = await loadEntry(em, actor, id);
+  ensureAllowed(entry, 'edit');
+  const reopen = reopenIfApproved(entry);
+  await commit(em, actor, entry.complex, entry.complex.version, { set: reopen.set, apply, revision: { kind: 'edit', message }, audit: reopen.audit });
+}
+
 /** The entry's stored content as a whole-entry save, for the single-change routes below. */
 async function storedAsSave(em: EntityManager, entry: LoadedEntry, version: number | undefined): Promise<SaveComplexInput> {
   const { complex } = entry;

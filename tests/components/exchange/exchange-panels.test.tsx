@@ -114,6 +114,7 @@ const attachment = {
   uploadedBy: { id: 'u-student', displayName: 'Ada Fenwick' },
   createdAt: '2026-01-05T10:00:00.000Z',
   downloadPath: `/api/complexes/${ENTRY_ID}/attachments/at-1`,
+  state: 'accepted',
 };
 const entryBy = (role: 'contributor' | 'curator') => ({
   id: ENTRY_ID,
