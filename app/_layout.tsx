@@ -7,10 +7,12 @@ import { queryClient } from '@/lib/api/query-client';
 import { holdUntilRoutesShown, loadFonts, markRoutesShown } from '@/components/ui/font-loading';
 import { fontFiles } from '@/components/ui/theme';
 import { ToastProvider } from '@/components/ui/toast';
+import { installFocusRing } from '@/components/ui/focus-ring';
 
 // Ask for the shipped fonts as soon as this module runs, before anything renders; useFonts below joins
 // the same requests (expo-font keeps one load per family) and reports the outcome, errors included.
 holdUntilRoutesShown();
+installFocusRing();
 void loadFonts();
 
 export default function RootLayout() {

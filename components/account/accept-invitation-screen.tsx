@@ -150,7 +150,6 @@ function InvitationBody({ token, invitation }: { token: string; invitation: Invi
           <View style={styles.actions}>
             <Button
               label={accept.isPending ? 'Joining…' : `Join ${invitation.groupName}`}
-              accessibilityLabel="Accept the invitation"
               disabled={accept.isPending}
               onPress={() => accept.mutate({ token }, { onSuccess: setJoined })}
               testID="invitation-accept"

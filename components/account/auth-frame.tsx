@@ -80,6 +80,8 @@ const styles = StyleSheet.create({
     color: colors.accent,
     textDecorationLine: 'underline',
     alignSelf: 'flex-start',
+    // 22 px of text in a 44 px tall target.
+    paddingVertical: 11,
   },
   linkText: { fontFamily: fonts.strong, color: colors.accent, textDecorationLine: 'underline' },
   linkRow: { flexDirection: 'row', flexWrap: 'wrap', columnGap: spacing.xl, rowGap: spacing.sm },

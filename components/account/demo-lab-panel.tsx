@@ -28,7 +28,7 @@ export function DemoLabPanel({ onPick }: { onPick: (email: string, password: str
         <Pressable
           key={account.role}
           accessibilityRole="button"
-          accessibilityLabel={`Fill in the demo ${account.role}, ${account.email}`}
+          accessibilityHint="Fills in the sign-in form with this demo account"
           onPress={() => onPick(account.email, DEMO_PASSWORD)}
           testID={`demo-sign-in-${account.role}`}
           style={({ pressed }) => StyleSheet.flatten([styles.row, pressed ? styles.pressed : null])}

@@ -46,7 +46,6 @@ function GroupRow({ group }: { group: GroupSummary }) {
     <Link href={`/account/groups/${group.id}`} asChild>
       <Pressable
         accessibilityRole="link"
-        accessibilityLabel={`${group.name}, you are ${group.role}, ${group.memberCount} members`}
         style={styles.row}
         testID={`group-row-${group.id}`}
       >

@@ -75,7 +75,7 @@ function InvitationRow({ invitation, revoking, onRevoke }: { invitation: Invitat
           <View style={styles.buttons}>
             <Button
               label={revoking ? 'Withdrawing…' : expired ? 'Yes, remove' : 'Yes, withdraw'}
-              accessibilityLabel={`Confirm: withdraw the invitation to ${invitation.email}`}
+              accessibilityLabel={`${expired ? 'Yes, remove' : 'Yes, withdraw'} the invitation to ${invitation.email}`}
               disabled={revoking}
               onPress={onRevoke}
               testID={`invitation-revoke-yes-${invitation.id}`}
@@ -86,7 +86,7 @@ function InvitationRow({ invitation, revoking, onRevoke }: { invitation: Invitat
       ) : (
         <Button
           label={expired ? 'Remove' : 'Withdraw'}
-          accessibilityLabel={`Withdraw the invitation to ${invitation.email}`}
+          accessibilityLabel={`${expired ? 'Remove' : 'Withdraw'} the invitation to ${invitation.email}`}
           kind="quiet"
           disabled={revoking}
           onPress={() => setConfirming(true)}

@@ -104,7 +104,7 @@ export function MembersCard({ detail, myUserId, onLeft }: { detail: GroupDetail;
                       <View style={styles.buttons}>
                         <Button
                           label={busy ? 'Changing…' : 'Change role'}
-                          accessibilityLabel={`Confirm: make ${member.displayName} ${withArticle(newRole)}`}
+                          accessibilityLabel={`Change role: make ${member.displayName} ${withArticle(newRole)}`}
                           onPress={() => confirmRole(member, newRole)}
                           disabled={busy}
                           testID={`member-role-yes-${member.userId}`}

@@ -71,7 +71,6 @@ export function ProfileCard({ user }: { user: UserDto }) {
         <View style={styles.action}>
           <Button
             label={update.isPending ? 'Saving…' : 'Save name'}
-            accessibilityLabel="Save display name"
             onPress={() => void submit()}
             disabled={update.isPending || !isDirty}
             testID="profile-save"

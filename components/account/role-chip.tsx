@@ -10,7 +10,7 @@ import { roles } from '@/lib/schemas/groups';
 export function RoleTag({ role, testID }: { role: Role; testID?: string }) {
   const strong = role === 'admin' || role === 'curator';
   return (
-    <View style={StyleSheet.flatten([styles.tag, strong ? styles.tagStrong : null])} testID={testID} accessibilityLabel={`Role: ${role}`}>
+    <View style={StyleSheet.flatten([styles.tag, strong ? styles.tagStrong : null])} testID={testID}>
       <AppText variant="caption" style={strong ? styles.tagStrongText : styles.tagText}>{roleLabels[role]}</AppText>
     </View>
   );

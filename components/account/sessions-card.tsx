@@ -75,7 +75,7 @@ function SessionRow({ session, revoking, onRevoke }: { session: SessionDto; revo
           <View style={styles.buttons}>
             <Button
               label={revoking ? 'Signing out…' : 'Yes, sign it out'}
-              accessibilityLabel={`Confirm: sign out ${describeDevice(session.userAgent)}`}
+              accessibilityLabel={`Yes, sign it out: ${describeDevice(session.userAgent)}`}
               disabled={revoking}
               onPress={onRevoke}
               testID={`session-revoke-yes-${session.id}`}

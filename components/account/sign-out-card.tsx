@@ -44,7 +44,6 @@ export function SignOutCard() {
           <View style={styles.buttons}>
             <Button
               label={everywhere.isPending ? 'Signing out everywhere…' : 'Yes, sign out everywhere'}
-              accessibilityLabel="Confirm: sign out everywhere"
               onPress={() => everywhere.mutate()}
               disabled={busy}
               testID="account-sign-out-everywhere-confirm"

@@ -82,7 +82,6 @@ export function CheckScreen({ initialFormula, onFormulaSettled }: CheckScreenPro
       <Pressable
         accessibilityRole="button"
         accessibilityState={{ expanded: showOptions }}
-        accessibilityLabel={`Conditions: ${geometry ?? `${state.result.geometry} (predicted)`}, ${temperatureC} °C. ${showOptions ? 'Hide' : 'Change'}`}
         onPress={() => setConditionsOpen((open) => !open || temperatureProblem !== null)}
         style={styles.conditions}
         testID="check-conditions"

@@ -79,7 +79,7 @@ export function LibraryMeasuredCard({
             {conditionsText(item) ? <AppText tone="muted"> · {conditionsText(item)}</AppText> : null}
           </AppText>
           {item.citation ? <AppText variant="caption" tone="muted">{citationText(item.citation)}</AppText> : null}
-          <Link href={`/library/${item.complexId}`}>
+          <Link href={`/library/${item.complexId}`} style={styles.entryLink}>
             <AppText variant="caption" tone="accent">Open the library entry ({item.complexName})</AppText>
           </Link>
         </View>
@@ -97,4 +97,6 @@ const styles = StyleSheet.create({
   picker: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm },
   row: { gap: 2, paddingVertical: spacing.xs, borderBottomWidth: 1, borderBottomColor: colors.line },
   value: { fontWeight: '600' },
+  // A 44 px tall tap target around a 16 px caption line.
+  entryLink: { paddingVertical: 14, alignSelf: 'flex-start' },
 });

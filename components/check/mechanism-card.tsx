@@ -105,7 +105,7 @@ function PathwayPicture({ mechanism, coordinationNumber }: { mechanism: Mechanis
         ? { bonds: others, entering: 'outside' as const, leaving: 'gone' as const, label: `${n - 1}-coordinate` }
         : { bonds: others, entering: 'partial' as const, leaving: 'partial' as const, label: mechanism.class === 'Ia' ? 'Y bonds first' : mechanism.class === 'Id' ? 'X loosens first' : 'both halfway' };
   return (
-    <View testID="mechanism-picture" accessibilityLabel={`Pathway: ${CLASS_NAMES[mechanism.class]}, ${middle.label}`}>
+    <View testID="mechanism-picture" accessibilityRole="image" accessibilityLabel={`Pathway: ${CLASS_NAMES[mechanism.class]}, ${middle.label}`}>
       <Svg width="100%" height={VIEW_H} viewBox={`0 0 ${VIEW_W} ${VIEW_H}`}>
         <Centre x={52} bonds={others} entering="outside" leaving="bound" label={`${n}-coordinate`} />
         <Arrow x={112} />

@@ -133,7 +133,6 @@ function WhyCard({ result, openInitially }: { result: Classification; openInitia
       <Pressable
         accessibilityRole="button"
         accessibilityState={{ expanded: open }}
-        accessibilityLabel={open ? 'Why: hide the reasons' : `Why: show ${reasons.length} reasons`}
         onPress={() => setOpen((value) => !value)}
         style={styles.whyHead}
         testID="verdict-why-toggle"

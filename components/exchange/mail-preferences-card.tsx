@@ -1,4 +1,4 @@
-import { StyleSheet, Switch, View } from 'react-native';
+import { Pressable, StyleSheet, View } from 'react-native';
 import { describeError } from '@/components/account/form-errors';
 import { QueryContent } from '@/components/account/query-states';
 import { Card } from '@/components/ui/card';
@@ -53,6 +53,11 @@ export function MailPreferencesCard({ me }: { me: Pick<MeResponse, 'memberships'
   );
 }
 
+/**
+ * A switch the whole row operates: the label and its explanation are part of the target (at least
+ * 44 px tall), and the track is drawn here rather than with the platform switch, whose 20 px control
+ * is too small to tap.
+ */
 function PreferenceSwitch({ label, detail, value, onChange, disabled, testID }: {
   label: string;
   detail: string;
@@ -62,26 +67,34 @@ function PreferenceSwitch({ label, detail, value, onChange, disabled, testID }: 
   testID: string;
 }) {
   return (
-    <View style={styles.row}>
+    <Pressable
+      accessibilityRole="switch"
+      accessibilityState={{ checked: value, disabled: !!disabled }}
+      aria-checked={value}
+      disabled={disabled}
+      onPress={() => onChange(!value)}
+      style={({ pressed }) => [styles.row, pressed ? styles.pressed : null]}
+      testID={testID}
+    >
       <View style={styles.text}>
         <AppText>{label}</AppText>
         <AppText variant="caption" tone="muted">{detail}</AppText>
       </View>
-      <Switch
-        value={value}
-        onValueChange={onChange}
-        disabled={disabled}
-        accessibilityLabel={label}
-        trackColor={{ false: colors.lineStrong, true: colors.accent }}
-        thumbColor={colors.card}
-        testID={testID}
-      />
-    </View>
+      <View style={[styles.track, value ? styles.trackOn : null, disabled ? styles.trackDisabled : null]} aria-hidden>
+        <View style={[styles.thumb, value ? styles.thumbOn : null]} />
+      </View>
+    </Pressable>
   );
 }
 
 const styles = StyleSheet.create({
   list: { gap: spacing.md },
-  row: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },
+  row: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, minHeight: 44, borderRadius: 8 },
+  pressed: { opacity: 0.8 },
+  track: { width: 44, height: 26, borderRadius: 13, backgroundColor: colors.lineStrong, padding: 3, justifyContent: 'center' },
+  trackOn: { backgroundColor: colors.accent },
+  trackDisabled: { opacity: 0.45 },
+  thumb: { width: 20, height: 20, borderRadius: 10, backgroundColor: colors.card },
+  thumbOn: { alignSelf: 'flex-end' },
   text: { flex: 1, gap: 2 },
 });

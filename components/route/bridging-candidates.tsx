@@ -47,7 +47,7 @@ function CandidateRow({ candidate, testID }: { candidate: BridgingCandidate; tes
           {candidate.present ? 'on the complex' : 'could be installed'}
         </AppText>
       </View>
-      <View style={styles.track} accessibilityLabel={`score ${candidate.score.toFixed(0)} of 100`}>
+      <View style={styles.track} accessibilityRole="image" accessibilityLabel={`score ${candidate.score.toFixed(0)} of 100`}>
         <View style={[styles.bar, { width: `${Math.max(2, Math.min(100, candidate.score))}%` }, candidate.present ? styles.barPresent : null]} />
       </View>
       <AppText variant="caption" tone="soft">{candidate.reasons.slice(1).join('; ') || candidate.reasons[0]}</AppText>

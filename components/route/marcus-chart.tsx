@@ -35,7 +35,7 @@ export function MarcusChart({ predictedLogK, observedLogK, windowLog = 1 }: {
     `Predicted k12 ≈ ${formatPowerOfTen(predictedLogK)} M⁻¹ s⁻¹` +
     (observedLogK === null ? '' : `, observed ${formatPowerOfTen(observedLogK)} M⁻¹ s⁻¹`);
   return (
-    <View style={styles.frame} accessible accessibilityLabel={description} testID="marcus-chart">
+    <View style={styles.frame} accessible accessibilityRole="image" accessibilityLabel={description} testID="marcus-chart">
       <Svg width="100%" height="100%" viewBox={`0 0 ${W} ${H}`}>
         <Rect
           x={x(predictedLogK - windowLog)}

@@ -137,6 +137,7 @@ const styles = StyleSheet.create({
     borderRadius: radius.sm,
     paddingHorizontal: spacing.sm,
     paddingVertical: 6,
+    minHeight: 44,
     color: colors.ink,
     backgroundColor: colors.card,
   },

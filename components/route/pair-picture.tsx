@@ -55,7 +55,7 @@ export function PairPicture({ route, oxidant, reductant, bridge }: PairPicturePr
     </G>
   );
   return (
-    <View style={styles.frame} accessible accessibilityLabel={`Picture of the pair: ${label}`} testID="pair-picture">
+    <View style={styles.frame} accessible accessibilityRole="image" accessibilityLabel={`Picture of the pair: ${label}`} testID="pair-picture">
       <Svg width="100%" height="100%" viewBox={`0 0 ${W} ${H}`}>
         {partner(leftX, oxidant, inner ? 0 : null, '#E6EEF7')}
         {partner(rightX, reductant, inner ? Math.PI : null, '#F7EBE3')}

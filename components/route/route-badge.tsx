@@ -14,7 +14,7 @@ const LOOK: Record<RouteKind, { fg: string; bg: string; word: string }> = {
 export function RouteBadge({ route }: { route: RouteKind }) {
   const look = LOOK[route];
   return (
-    <View style={[styles.badge, { backgroundColor: look.bg }]} testID={`route-${route}`} accessibilityLabel={`Route: ${look.word}`}>
+    <View style={[styles.badge, { backgroundColor: look.bg }]} testID={`route-${route}`} accessibilityRole="image" accessibilityLabel={`Route: ${look.word}`}>
       <Svg width={34} height={18} viewBox="0 0 34 18">
         <Circle cx={7} cy={10} r={6} stroke={look.fg} strokeWidth={1.8} fill="none" />
         <Circle cx={27} cy={10} r={6} stroke={look.fg} strokeWidth={1.8} fill="none" />

@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import { Platform, StyleSheet, View, type ViewStyle } from 'react-native';
+import { Platform, ScrollView, StyleSheet, View, type ViewStyle } from 'react-native';
 import { BulletList } from '@/components/ui/bullet-list';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -67,6 +67,19 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
     setReductant(text);
   };
 
+  const exampleChips = EXAMPLE_PAIRS.map(([ox, red]) => (
+    <Chip
+      key={ox + red}
+      label={`${ox} + ${red}`}
+      mono
+      onPress={() => {
+        setSwapNotice(null);
+        setOxidant(ox);
+        setReductant(red);
+      }}
+    />
+  ));
+
   const inputs = (
     <View style={styles.inputs}>
       <View style={styles.intro}>
@@ -102,20 +115,16 @@ export function RouteScreen({ initialOxidant, initialReductant, onPairSettled }:
       />
       <View style={styles.examples}>
         <AppText variant="label" tone="muted">Try</AppText>
-        <View style={styles.chips}>
-          {EXAMPLE_PAIRS.map(([ox, red]) => (
-            <Chip
-              key={ox + red}
-              label={`${ox} + ${red}`}
-              mono
-              onPress={() => {
-                setSwapNotice(null);
-                setOxidant(ox);
-                setReductant(red);
-              }}
-            />
-          ))}
-        </View>
+        {/* One swipeable row on a phone, so the answer stays near the fields; wrapped when wide. */}
+        {wide ? (
+          <View style={styles.chips}>
+            {exampleChips}
+          </View>
+        ) : (
+          <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={styles.chipRow}>
+            {exampleChips}
+          </ScrollView>
+        )}
       </View>
     </View>
   );
@@ -207,6 +216,7 @@ const styles = StyleSheet.create({
   intro: { gap: spacing.xs },
   examples: { gap: spacing.sm },
   chips: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
+  chipRow: { gap: spacing.sm, paddingRight: spacing.lg },
   cards: { gap: spacing.lg },
   partners: { gap: spacing.sm },
   partnerLine: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },

@@ -51,7 +51,9 @@ export function AppShell() {
       <TabList asChild>
         <View
           style={wide ? styles.rail : StyleSheet.flatten([styles.bar, { paddingBottom: Math.max(insets.bottom, spacing.xs) }])}
-          accessibilityRole="tablist"
+          // Sections of the app are places to go (links), not panels of one page (tabs).
+          role="navigation"
+          aria-label="Sections"
           testID={wide ? 'nav-rail' : 'nav-bar'}
         >
           {wide ? <Brand /> : null}
@@ -78,7 +80,7 @@ export function AppShell() {
 function Brand() {
   return (
     <Link href="/" asChild>
-      <Pressable style={styles.brand} accessibilityRole="link" accessibilityLabel="Sphereline home">
+      <Pressable style={styles.brand} accessibilityRole="link">
         <AppText variant="title" tone="inverse" style={styles.brandText}>Sphereline</AppText>
         <AppText variant="caption" tone="inverse" style={styles.brandTag}>
           labile or inert · bridged or not
@@ -99,9 +101,8 @@ const NavItem = forwardRef<View, TabTriggerSlotProps & { section: Section; wide:
       <Pressable
         ref={ref}
         {...pressable}
-        accessibilityRole="tab"
-        accessibilityState={{ selected: !!isFocused }}
-        accessibilityLabel={section.label}
+        accessibilityRole="link"
+        aria-current={isFocused ? 'page' : undefined}
         testID={`nav-${section.name}`}
         style={[
           wide ? styles.railItem : styles.barItem,
@@ -150,7 +151,7 @@ const styles = StyleSheet.create({
   },
   brand: { paddingHorizontal: spacing.sm, paddingBottom: spacing.xl },
   brandText: { color: colors.railInk },
-  brandTag: { opacity: 0.75 },
+  brandTag: { color: colors.railInkSoft },
   railItem: {
     flexDirection: 'row',
     alignItems: 'center',
@@ -161,6 +162,6 @@ const styles = StyleSheet.create({
   },
   railItemActive: { backgroundColor: colors.railActive },
   railLabels: { flexShrink: 1 },
-  railHint: { color: colors.railInk, opacity: 0.6 },
+  railHint: { color: colors.railInkSoft },
   focusedLabel: { fontFamily: fonts.strong },
 });

@@ -25,7 +25,7 @@ export function Button({ label, onPress, kind = 'primary', disabled, testID, acc
         disabled && styles.disabled,
       ]}
     >
-      <AppText variant="body" style={kind === 'primary' ? styles.primaryText : styles.quietText}>
+      <AppText variant="body" numberOfLines={1} style={kind === 'primary' ? styles.primaryText : styles.quietText}>
         {label}
       </AppText>
     </Pressable>
@@ -33,7 +33,8 @@ export function Button({ label, onPress, kind = 'primary', disabled, testID, acc
 }
 
 const styles = StyleSheet.create({
-  base: { paddingVertical: spacing.sm, paddingHorizontal: spacing.lg, borderRadius: radius.pill, alignItems: 'center' },
+  // At least 44 px tall, and the label on one line: a button that wraps reads as two.
+  base: { minHeight: 44, minWidth: 44, flexShrink: 0, justifyContent: 'center', paddingVertical: spacing.sm, paddingHorizontal: spacing.lg, borderRadius: radius.pill, alignItems: 'center' },
   primary: { backgroundColor: colors.accent },
   quiet: { backgroundColor: 'transparent', borderWidth: 1, borderColor: colors.lineStrong },
   pressed: { opacity: 0.8 },

@@ -30,7 +30,12 @@ const styles = StyleSheet.create({
     borderWidth: 1,
     borderColor: colors.lineStrong,
     borderRadius: radius.pill,
-    paddingVertical: 5,
+    // 44 px tall: a tap target a thumb can hit (WCAG 2.2 SC 2.5.5).
+    minHeight: 44,
+    minWidth: 44,
+    alignItems: 'center',
+    justifyContent: 'center',
+    paddingVertical: spacing.xs,
     paddingHorizontal: spacing.md,
     backgroundColor: colors.card,
   },

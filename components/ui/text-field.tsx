@@ -76,6 +76,7 @@ const styles = StyleSheet.create({
     borderRadius: radius.md,
     paddingHorizontal: spacing.md,
     paddingVertical: spacing.sm + 2,
+    minHeight: 48,
   },
   inputInvalid: { borderColor: colors.danger },
   inputLocked: { backgroundColor: colors.paper, color: colors.inkSoft },

@@ -37,6 +37,8 @@ export const colors = {
   rail: '#16302C',
   railInk: '#E9E4D6',
   railActive: '#2C5A53',
+  /** Secondary text on the rail (hints, the tag line), readable on the rail and its active item. */
+  railInkSoft: '#C5CCC4',
 } as const;
 
 /**

@@ -45,6 +45,7 @@ export function VerdictBadge({ verdict, size = 'md' }: { verdict: Verdict; size?
   return (
     <View
       accessible
+      accessibilityRole="image"
       accessibilityLabel={`Verdict: ${VERDICT_WORDS[verdict]}`}
       accessibilityHint={VERDICT_DEFINITIONS[verdict]}
       style={[styles.badge, small ? styles.badgeSmall : null, { backgroundColor: palette.bg, borderColor: palette.fg }]}
@@ -96,7 +97,7 @@ function StatusGlyph({ status, color }: { status: ReviewStatus; color: string })
 export function StatusPill({ status }: { status: ReviewStatus }) {
   const look = STATUS_LOOKS[status];
   return (
-    <View accessible accessibilityLabel={`Status: ${look.word}`} style={[styles.pill, look.frame]} testID={`status-pill-${status}`}>
+    <View accessible accessibilityRole="image" accessibilityLabel={`Status: ${look.word}`} style={[styles.pill, look.frame]} testID={`status-pill-${status}`}>
       <StatusGlyph status={status} color={look.textColor} />
       <AppText variant="caption" style={[styles.pillWord, { color: look.textColor }, look.strike ? styles.strike : null]}>
         {look.word}

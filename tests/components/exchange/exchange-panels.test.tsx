@@ -206,10 +206,10 @@ describe('MailPreferencesCard', () => {
     });
     renderWithQueries(<MailPreferencesCard me={curatorMe as never} />);
     const decisions = await screen.findByTestId('mail-pref-decisions');
-    expect(screen.getByTestId('mail-pref-submissions').props.value).toBe(true);
-    fireEvent(decisions, 'valueChange', false);
+    expect(screen.getByTestId('mail-pref-submissions').props.accessibilityState).toMatchObject({ checked: true });
+    fireEvent.press(decisions);
     await waitFor(() => expect(calls.find((c) => c.method === 'PATCH')?.body).toEqual({ reviewDecisions: false }));
-    await waitFor(() => expect(screen.getByTestId('mail-pref-decisions').props.value).toBe(false));
+    await waitFor(() => expect(screen.getByTestId('mail-pref-decisions').props.accessibilityState).toMatchObject({ checked: false }));
   });
 
   it('puts the switch back when saving fails', async () => {
@@ -218,10 +218,10 @@ describe('MailPreferencesCard', () => {
       'PATCH /api/auth/me/preferences': apiError(500, 'INTERNAL', 'Boom.'),
     });
     renderWithQueries(<MailPreferencesCard me={contributorMe as never} />);
-    fireEvent(await screen.findByTestId('mail-pref-decisions'), 'valueChange', false);
+    fireEvent.press(await screen.findByTestId('mail-pref-decisions'));
     expect(await screen.findByTestId('mail-pref-error')).toHaveTextContent(/Not saved/);
-    expect(screen.getByTestId('mail-pref-decisions').props.value).toBe(true);
+    expect(screen.getByTestId('mail-pref-decisions').props.accessibilityState).toMatchObject({ checked: true });
     // Not a curator anywhere: the submissions switch is there but cannot be turned on.
-    expect(screen.getByTestId('mail-pref-submissions').props.disabled).toBe(true);
+    expect(screen.getByTestId('mail-pref-submissions').props.accessibilityState).toMatchObject({ disabled: true });
   });
 });

@@ -60,6 +60,9 @@ const textPairs: Pair[] = [
   ['ink text on noticeSoft', colors.ink, colors.noticeSoft],
   ['rail text on the rail', colors.railInk, colors.rail],
   ['rail text on the active rail item', colors.railInk, colors.railActive],
+  ['rail hint on the rail', colors.railInkSoft, colors.rail],
+  ['rail hint on the active rail item', colors.railInkSoft, colors.railActive],
+  ['focus ring on the rail', colors.railInk, colors.rail],
   ...(Object.keys(verdictColors) as (keyof typeof verdictColors)[]).flatMap((verdict): Pair[] => [
     [`${verdict} word on its badge`, verdictColors[verdict].fg, verdictColors[verdict].bg],
     [`${verdict} word on card`, verdictColors[verdict].fg, colors.card],
