@@ -298,7 +298,12 @@ describe('revisions and diffs', () => {
     expect(diff.measurements.added.map((m) => [m.kind, m.value, m.unit])).toEqual([['activation-enthalpy', 108.6, 'kJ/mol']]);
     expect(diff.measurements.removed).toEqual([]);
     expect(diff.measurements.changed).toEqual([{ id: measurementId, kind: 'water-exchange', fields: [{ field: 'value', before: 2.4e-6, after: 2.5e-6 }] }]);
-    expect(diff.summary).toContain('name: "hexaaquachromium(III)" → "hexaaquachromium(III) perchlorate"');
+    // In the app's words and notation (units as printed, numbers as a × 10ⁿ: common practice).
+    expect(diff.summary).toEqual([
+      'Name: “hexaaquachromium(III)” → “hexaaquachromium(III) perchlorate”',
+      'Changed water exchange: value 2.4 × 10⁻⁶ s⁻¹ → 2.5 × 10⁻⁶ s⁻¹',
+      'Added Activation enthalpy 108.6 kJ mol⁻¹ at 25 °C (298.15 K)',
+    ]);
 
     await step(w.author.delete(`/api/complexes/${entry.id}/measurements/${measurementId}?version=${version}`));
     const removal = revisionDiffSchema.parse((await w.author.get(`/api/complexes/${entry.id}/revisions/diff?from=4&to=5`)).body);

@@ -1,4 +1,5 @@
-import type { ComplexSnapshot, FieldChange, Measurement, RevisionDiff } from '@/lib/schemas/library';
+import { formatCelsiusFromKelvin, formatRecorded, unitText, withUnit } from '@/lib/chem/number-format';
+import { measurementKindRules, type ComplexSnapshot, type ComplexStatus, type FieldChange, type Measurement, type RevisionDiff } from '@/lib/schemas/library';
 
 /** A readable, field-level diff between two snapshots of an entry (pure). */
 
@@ -22,12 +23,57 @@ function comparable(field: keyof Measurement, value: Measurement[keyof Measureme
 }
 
 const same = (a: Scalar, b: Scalar) => JSON.stringify(a) === JSON.stringify(b);
-const show = (value: Scalar) => (value === null ? '—' : Array.isArray(value) ? value.join(', ') : typeof value === 'string' ? `"${value}"` : String(value));
 
+/** The summary speaks the app's words: field labels, status words, numbers as a × 10ⁿ with units. */
+const FIELD_LABELS: Record<string, string> = {
+  formula: 'Formula',
+  name: 'Name',
+  notes: 'Notes',
+  status: 'Status',
+  metal: 'Metal',
+  oxidationState: 'Oxidation state',
+  dElectrons: 'd count',
+  spinState: 'Spin',
+  verdict: 'Verdict',
+  ligandIds: 'Ligands',
+  kind: 'kind',
+  value: 'value',
+  unit: 'unit',
+  temperatureK: 'temperature',
+  ionicStrengthM: 'ionic strength',
+  medium: 'medium',
+  method: 'method',
+  partnerFormula: 'partner',
+  citation: 'source',
+};
+const STATUS_WORDS: Record<ComplexStatus, string> = {
+  draft: 'draft',
+  'in-review': 'in review',
+  accepted: 'accepted',
+  returned: 'returned for revision',
+  declined: 'declined',
+  retired: 'retired',
+};
+
+function show(field: string, value: Scalar, unit?: string): string {
+  if (value === null) return '—';
+  if (Array.isArray(value)) return value.join(', ');
+  if (field === 'status') return STATUS_WORDS[value as ComplexStatus] ?? String(value);
+  if (field === 'kind') return measurementKindRules[value as Measurement['kind']]?.label.toLowerCase() ?? String(value);
+  if (field === 'unit') return unitText(String(value));
+  if (field === 'temperatureK' && typeof value === 'number') return `${formatCelsiusFromKelvin(value)} (${value} K)`;
+  if (field === 'ionicStrengthM' && typeof value === 'number') return withUnit(formatRecorded(value), 'M');
+  if (field === 'value' && typeof value === 'number') return unit ? withUnit(formatRecorded(value), unitText(unit)) : formatRecorded(value);
+  if (field === 'oxidationState' && typeof value === 'number') return value > 0 ? `+${value}` : String(value);
+  if (typeof value === 'string') return `“${value}”`;
+  return String(value);
+}
+
+/** "Water exchange 2.4 × 10⁻⁶ s⁻¹ at 25 °C (298.15 K)". */
 export function describeMeasurement(m: Measurement): string {
-  const at = m.temperatureK !== null ? ` at ${m.temperatureK} K` : '';
+  const at = m.temperatureK !== null ? ` at ${show('temperatureK', m.temperatureK)}` : '';
   const partner = m.partnerFormula ? ` with ${m.partnerFormula}` : '';
-  return `${m.kind} ${m.value} ${m.unit}${partner}${at}`;
+  return `${measurementKindRules[m.kind].label} ${show('value', m.value, m.unit)}${partner}${at}`;
 }
 
 export function diffSnapshots(from: number, to: number, before: ComplexSnapshot, after: ComplexSnapshot): RevisionDiff {
@@ -38,7 +84,7 @@ export function diffSnapshots(from: number, to: number, before: ComplexSnapshot,
     const b = after[field] as Scalar;
     if (!same(a, b)) {
       fields.push({ field, before: a, after: b });
-      summary.push(`${field}: ${show(a)} → ${show(b)}`);
+      summary.push(`${FIELD_LABELS[field] ?? field}: ${show(field, a)} → ${show(field, b)}`);
     }
   }
   const beforeById = new Map(before.measurements.map((m) => [m.id, m]));
@@ -57,10 +103,11 @@ export function diffSnapshots(from: number, to: number, before: ComplexSnapshot,
     }
     if (changes.length > 0) {
       changed.push({ id: m.id, kind: m.kind, fields: changes });
-      summary.push(`~ ${m.kind}: ${changes.map((c) => `${c.field} ${show(c.before)} → ${show(c.after)}`).join('; ')}`);
+      const label = measurementKindRules[m.kind].label;
+      summary.push(`Changed ${label.toLowerCase()}: ${changes.map((c) => `${FIELD_LABELS[c.field] ?? c.field} ${show(c.field, c.before, m.unit)} → ${show(c.field, c.after, m.unit)}`).join('; ')}`);
     }
   }
-  for (const m of added) summary.push(`+ ${describeMeasurement(m)}`);
-  for (const m of removed) summary.push(`− ${describeMeasurement(m)}`);
+  for (const m of added) summary.push(`Added ${describeMeasurement(m)}`);
+  for (const m of removed) summary.push(`Removed ${describeMeasurement(m)}`);
   return { from, to, fields, measurements: { added, removed, changed }, summary };
 }
