@@ -18,6 +18,16 @@ const KIND_WORDS: Record<Revision['kind'], string> = {
   restore: 'Restored',
 };
 
+/** One line per revision: its own words when they already say what kind of change it was ("Created with …", "Renamed; …"). */
+export function revisionLine(revision: Pick<Revision, 'kind' | 'message'>): string {
+  const kind = KIND_WORDS[revision.kind];
+  const message = revision.message.trim();
+  if (!message || message.toLowerCase() === kind.toLowerCase()) return kind;
+  // An edit's summary, a review's decision and a creation's line say it themselves.
+  if (revision.kind === 'edit' || revision.kind === 'review' || message.toLowerCase().startsWith(kind.toLowerCase())) return message;
+  return `${kind} · ${message}`;
+}
+
 /** Every change with author and time, and what changed between any two revisions. */
 export function RevisionHistory({ complexId }: { complexId: string }) {
   const revisions = useRevisionsQuery(complexId);
@@ -36,7 +46,7 @@ export function RevisionHistory({ complexId }: { complexId: string }) {
           <AppText tone="accent" style={styles.number}>v{revision.number}</AppText>
           <View style={styles.revisionText}>
             <AppText>
-              {KIND_WORDS[revision.kind]} · {revision.message}
+              {revisionLine(revision)}
             </AppText>
             <AppText variant="caption" tone="muted">
               {revision.author?.displayName ?? 'someone no longer in the group'} · {relativeAge(revision.createdAt)}
