@@ -186,7 +186,7 @@ export function formationRate(complex: string, ligandText: string, options: Form
   const leavingFactor = waters > 0 ? waters / coordinationNumber : 1 / coordinationNumber;
   const factor = STATISTICAL_FACTOR * leavingFactor;
   reasons.push(
-    `k_ex = ${scientific(kex)} s⁻¹ per bound ${waters > 0 ? 'water' : 'ligand'} (${measuredExchange ? `measured for ${classification.formula}` : 'from the lability model'}${temperatureC !== 25 ? `, at ${temperatureC} °C` : ''})`,
+    `k_ex = ${scientific(kex)} s⁻¹ per bound ${waters > 0 ? 'water' : 'ligand'} (${measuredExchange ? `measured for ${classification.readings?.[0]?.species ?? classification.formula}` : 'from the lability model'}${temperatureC !== 25 ? `, at ${temperatureC} °C` : ''})`,
   );
   reasons.push(
     `k_f ≈ K_os·s·k_ex with s = ${STATISTICAL_FACTOR} (statistical factor: the outer-sphere ligand replaces one of the waters beside it)` +

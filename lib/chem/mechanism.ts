@@ -148,7 +148,7 @@ interface Trend {
 
 /** The trend that applies when no activation volume has been published for the species. */
 function trendFor(input: MechanismInput): Trend {
-  const { metal, oxidationState, dElectrons, electronShell, geometry, coordinationNumber, ligands, series } = input;
+  const { metal, oxidationState, dElectrons, electronShell, geometry, coordinationNumber, ligands } = input;
   const ion = `${metal}(${roman(oxidationState)})`;
   if (geometry === 'square-planar' && electronShell === 'd' && dElectrons === 8) {
     return {
@@ -184,28 +184,13 @@ function trendFor(input: MechanismInput): Trend {
     return { mechanismClass: 'A', confidence: 'low', reason: `${geometry} ${ion} with ${coordinationNumber} donors: low coordination leaves room for the entering ligand (associative, A), as for [Be(H2O)4]²⁺` };
   }
   if (geometry === 'octahedral') {
+    const aquaTrend = aquaSeriesTrend(input, ion);
+    if (aquaTrend) {
+      const allWater = ligands.every((instance) => instance.ligand.id === 'H2O');
+      return allWater ? aquaTrend : { ...aquaTrend, confidence: 'low', reason: `${aquaTrend.reason}; taken over from the aqua ions for this ligand set, so held with less confidence` };
+    }
     if (electronShell === 'sp') {
       return { mechanismClass: 'Id', confidence: 'medium', reason: `main-group ${ion}, octahedral: no d electrons to steer the entering ligand; exchange on such ions (Mg²⁺, Al³⁺, Ga³⁺) is dissociatively activated (Id)` };
-    }
-    if (series === '3d') {
-      const atomicOrder = ['Sc', 'Ti', 'V', 'Cr', 'Mn', 'Fe', 'Co', 'Ni', 'Cu', 'Zn'];
-      const place = atomicOrder.indexOf(metal);
-      if (oxidationState === 2 && place >= 0) {
-        return place <= atomicOrder.indexOf('Mn')
-          ? { mechanismClass: 'Ia', confidence: 'medium', reason: `along the 3d M²⁺ aqua series exchange changes from associative interchange (Ia) for the early ions (V²⁺, Mn²⁺) to dissociative interchange (Id) from Fe²⁺ on: ${ion} is on the early side` }
-          : { mechanismClass: 'Id', confidence: 'medium', reason: `along the 3d M²⁺ aqua series exchange changes from associative interchange (Ia) for the early ions (V²⁺, Mn²⁺) to dissociative interchange (Id) from Fe²⁺ on: ${ion} is on the late side` };
-      }
-      if (oxidationState === 3 && place >= 0) {
-        return place <= atomicOrder.indexOf('Fe')
-          ? { mechanismClass: 'Ia', confidence: 'medium', reason: `3d M³⁺ ions from Ti³⁺ to Fe³⁺ exchange by associative interchange (Ia): small, highly charged and with room in t2g or a spherical d5 shell, ${ion} follows them` }
-          : { mechanismClass: 'Id', confidence: 'low', reason: `late 3d M³⁺ ${ion}: filled t2g shields the metal from attack, so substitution leans dissociative (Id)` };
-      }
-    }
-    if ((series === '4d' || series === '5d') && oxidationState >= 3) {
-      return { mechanismClass: 'Ia', confidence: 'medium', reason: `${series} ${ion}: the larger ion leaves room for the entering ligand, so exchange leans associative (Ia), as on [Ru(H2O)6]³⁺, [Rh(H2O)6]³⁺ and [Ir(H2O)6]³⁺` };
-    }
-    if ((series === '4d' || series === '5d') && oxidationState === 2) {
-      return { mechanismClass: 'I', confidence: 'low', reason: `${series} ${ion}: a lower charge on a larger ion; neither bond leads clearly (I), as on [Ru(H2O)6]²⁺` };
     }
     return { mechanismClass: 'Id', confidence: 'low', reason: `octahedral ${ion}: with no closer trend, six-coordinate substitution is taken as dissociatively activated (Id)` };
   }
@@ -213,6 +198,32 @@ function trendFor(input: MechanismInput): Trend {
     return { mechanismClass: 'Id', confidence: 'low', reason: `${coordinationNumber}-coordinate ${ion}: crowded, so a ligand leaving leads (Id)` };
   }
   return { mechanismClass: 'I', confidence: 'low', reason: `${geometry} ${ion}: no trend applies closely; interchange (I) is the neutral assumption` };
+}
+
+/** The trends along the octahedral aqua ions (Helm & Merbach, Chem. Rev. 2005, 105, 1923). */
+function aquaSeriesTrend(input: MechanismInput, ion: string): Trend | null {
+  const { metal, oxidationState, series } = input;
+  if (series === '3d') {
+    const atomicOrder = ['Sc', 'Ti', 'V', 'Cr', 'Mn', 'Fe', 'Co', 'Ni', 'Cu', 'Zn'];
+    const place = atomicOrder.indexOf(metal);
+    if (oxidationState === 2 && place >= 0) {
+      return place <= atomicOrder.indexOf('Mn')
+        ? { mechanismClass: 'Ia', confidence: 'medium', reason: `along the 3d M²⁺ aqua series exchange changes from associative interchange (Ia) for the early ions (V²⁺, Mn²⁺) to dissociative interchange (Id) from Fe²⁺ on: ${ion} is on the early side` }
+        : { mechanismClass: 'Id', confidence: 'medium', reason: `along the 3d M²⁺ aqua series exchange changes from associative interchange (Ia) for the early ions (V²⁺, Mn²⁺) to dissociative interchange (Id) from Fe²⁺ on: ${ion} is on the late side` };
+    }
+    if (oxidationState === 3 && place >= 0) {
+      return place <= atomicOrder.indexOf('Fe')
+        ? { mechanismClass: 'Ia', confidence: 'medium', reason: `3d M³⁺ ions from Ti³⁺ to Fe³⁺ exchange by associative interchange (Ia): small, highly charged and with room in t2g or a spherical d5 shell, ${ion} follows them` }
+        : { mechanismClass: 'Id', confidence: 'low', reason: `late 3d M³⁺ ${ion}: filled t2g shields the metal from attack, so substitution leans dissociative (Id)` };
+    }
+  }
+  if ((series === '4d' || series === '5d') && oxidationState >= 3) {
+    return { mechanismClass: 'Ia', confidence: 'medium', reason: `${series} ${ion}: the larger ion leaves room for the entering ligand, so exchange leans associative (Ia), as on [Ru(H2O)6]³⁺, [Rh(H2O)6]³⁺ and [Ir(H2O)6]³⁺` };
+  }
+  if ((series === '4d' || series === '5d') && oxidationState === 2) {
+    return { mechanismClass: 'I', confidence: 'low', reason: `${series} ${ion}: a lower charge on a larger ion; neither bond leads clearly (I), as on [Ru(H2O)6]²⁺` };
+  }
+  return null;
 }
 
 function roman(value: number): string {

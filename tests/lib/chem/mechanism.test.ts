@@ -101,6 +101,12 @@ describe('mechanism class from the trend that applies (no measurement on the spe
     expect(classifyFormula('[Cr(CO)6]').mechanism.intermediateCoordination).toBe(5);
   });
 
+  it('the aqua-ion trend carried over to another ligand set is said so and held with low confidence', () => {
+    const { mechanism } = classifyFormula('[Fe(CN)6]4-');
+    expect(mechanism.confidence).toBe('low');
+    expect(mechanism.reasons[0]).toMatch(/taken over from the aqua ions/);
+  });
+
   it('Co(III) trend is held with more confidence than an octahedral ion with no close trend', () => {
     expect(classifyFormula('[Co(NH3)5Cl]2+').mechanism.confidence).toBe('high');
     expect(classifyFormula('[Zn(H2O)6]2+').mechanism.confidence).not.toBe('high');
