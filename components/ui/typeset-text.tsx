@@ -9,7 +9,7 @@ import { AppText, type AppTextProps } from './text';
  */
 export function TypesetText({ children, ...rest }: Omit<AppTextProps, 'children'> & { children: string }) {
   const runs = typesetRuns(children);
-  if (runs.length === 1 && runs[0]?.kind === 'plain') return <AppText {...rest}>{children}</AppText>;
+  if (runs.length <= 1 && runs[0]?.kind !== 'sub') return <AppText {...rest}>{runs[0]?.text ?? ''}</AppText>;
   return (
     <AppText {...rest}>
       {runs.map((run, index) =>
