@@ -12,6 +12,7 @@ import { Complex } from '@/server/modules/library/complex.entity';
 import { toCitationDto, toSnapshot } from '@/server/modules/library/complex.mapper';
 import { membershipIn, resolveGroup, type MembershipInfo } from '@/server/modules/library/library-access';
 import { existingSpecies, speciesKeyOf } from '@/server/modules/library/duplicates';
+import { entryRow, measurementRow } from '@/server/modules/library/entry-rows';
 import { asEntryInput, getComplex, measurementsOf, saveComplex } from '@/server/modules/library/complex.service';
 import { Measurement } from '@/server/modules/library/measurement.entity';
 import { mapColumns, readCsvTable } from './csv-file';
@@ -386,22 +387,7 @@ async function writeEntries(
         // File order survives: the library lists measurements by created_at.
         const createdAt = new Date(now.getTime() + order);
         const citation = m.citation ? citations.get(citationKey(m.citation)) ?? null : null;
-        const row = {
-          id: randomUUID(),
-          complexId: id,
-          kind: m.input.kind,
-          value: m.input.value,
-          unit: m.input.unit as MeasurementDto['unit'],
-          temperatureK: m.input.temperatureK ?? null,
-          ionicStrengthM: m.input.ionicStrengthM ?? null,
-          medium: m.input.medium ?? null,
-          method: m.input.method ?? null,
-          partnerFormula: m.input.partnerFormula ?? null,
-          citationId: citation?.id ?? null,
-          notes: m.input.notes ?? null,
-          createdAt,
-          updatedAt: createdAt,
-        };
+        const row = measurementRow(id, m.input, citation?.id ?? null, createdAt);
         measurementRows.push(row);
         const { complexId: _complexId, citationId: _citationId, ...fields } = row;
         return { ...fields, citation, createdAt: createdAt.toISOString(), updatedAt: createdAt.toISOString() };
@@ -410,26 +396,21 @@ async function writeEntries(
         { formula: entry.formula, name: entry.name, notes: entry.notes, status: 'in-review', ...entry.derived },
         measurements,
       );
-      complexRows.push({
-        id,
-        groupId: job.groupId,
-        formula: entry.formula,
-        name: entry.name,
-        status: 'in-review',
-        notes: entry.notes,
-        ...entry.derived,
-        measurementKinds: [...new Set(entry.measurements.map((m) => m.input.kind))].sort(),
-        hasCitation: measurements.some((m) => m.citation !== null),
-        version: 1,
-        createdById: userId,
-        submittedById: userId,
-        submittedAt: now,
-        acceptedSnapshot: null,
-        acceptedVersion: null,
-        acceptedAt: null,
-        createdAt: now,
-        updatedAt: now,
-      });
+      complexRows.push(
+        entryRow({
+          id,
+          groupId: job.groupId,
+          formula: entry.formula,
+          name: entry.name,
+          notes: entry.notes,
+          derived: entry.derived,
+          authorId: userId,
+          submitted: true,
+          measurementKinds: entry.measurements.map((m) => m.input.kind),
+          hasCitation: measurements.some((m) => m.citation !== null),
+          at: now,
+        }),
+      );
       revisionRows.push({
         id: randomUUID(),
         complexId: id,

@@ -46,6 +46,7 @@ import { Measurement } from './measurement.entity';
 import { ComplexReview } from './review.entity';
 import { ComplexRevision, type RevisionKind } from './revision.entity';
 import { diffSnapshots } from './revision-diff';
+import { entryRow, measurementRow } from './entry-rows';
 import { noChanges, summariseChanges, summariseCreation, type EntryChanges } from './change-summary';
 import { emitLibraryEvent } from './library-events';
 import { acceptedRevisionNumbers } from './library-visibility';
@@ -295,24 +296,9 @@ async function citationIdFor(
 
 async function insertMeasurement(tem: EntityManager, complexId: string, groupId: string, actor: Actor, input: MeasurementInput, fieldPrefix = '') {
   const citationId = await citationIdFor(tem, groupId, actor, input, fieldPrefix);
-  const now = new Date();
-  const id = randomUUID();
-  await tem.insert(Measurement, {
-    id,
-    complexId,
-    kind: input.kind,
-    value: input.value,
-    unit: input.unit as MeasurementDto['unit'],
-    temperatureK: input.temperatureK ?? null,
-    ionicStrengthM: input.ionicStrengthM ?? null,
-    medium: input.medium ?? null,
-    method: input.method ?? null,
-    partnerFormula: input.partnerFormula ?? null,
-    citationId: citationId ?? null,
-    notes: input.notes ?? null,
-    createdAt: now,
-    updatedAt: now,
-  });
+  const row = measurementRow(complexId, input, citationId ?? null, new Date());
+  await tem.insert(Measurement, row);
+  const id = row.id;
   return id;
 }
 
@@ -329,26 +315,23 @@ export async function createComplex(em: EntityManager, actor: Actor, input: Crea
   await em.transactional(async (tem) => {
     const now = new Date();
     await claimIdempotencyKey(tem, id);
-    await tem.insert(Complex, {
-      id,
-      groupId: membership.groupId,
-      formula: input.formula,
-      name: input.name,
-      status: 'draft',
-      notes: input.notes ?? null,
-      ...derived,
-      measurementKinds: [],
-      hasCitation: false,
-      version: 1,
-      createdById: actor.userId,
-      submittedById: null,
-      submittedAt: null,
-      acceptedSnapshot: null,
-      acceptedVersion: null,
-      acceptedAt: null,
-      createdAt: now,
-      updatedAt: now,
-    });
+    // The measurement summary (kinds, has-citation) is refreshed below, once the rows are in.
+    await tem.insert(
+      Complex,
+      entryRow({
+        id,
+        groupId: membership.groupId,
+        formula: input.formula,
+        name: input.name,
+        notes: input.notes,
+        derived,
+        authorId: actor.userId,
+        submitted: false,
+        measurementKinds: [],
+        hasCitation: false,
+        at: now,
+      }),
+    );
     for (const [i, m] of (input.measurements ?? []).entries()) {
       await insertMeasurement(tem, id, membership.groupId, actor, m, `measurements.${i}.`);
     }
