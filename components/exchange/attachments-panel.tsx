@@ -76,6 +76,11 @@ function AttachmentRow({ attachment, index, complexId, canDelete }: { attachment
           {attachmentKindLabel[attachment.kind]} · {fileSizeText(attachment.sizeBytes)} · SHA-256 {shortSha(attachment.sha256)}…
         </AppText>
         {attachment.description ? <AppText variant="caption">{attachment.description}</AppText> : null}
+        {attachment.state !== 'accepted' ? (
+          <AppText variant="caption" tone="muted" testID={`attachment-state-${index}`}>
+            {attachment.state === 'pending' ? 'Waits for review with this entry’s revision' : 'Declined with its revision; kept for the author and curators'}
+          </AppText>
+        ) : null}
         <AppText variant="caption" tone="muted">
           Added by {attachment.uploadedBy?.displayName ?? 'someone no longer in the group'} · {dateTimeText(attachment.createdAt)} UTC
         </AppText>

@@ -140,6 +140,21 @@ describe('AttachmentsPanel', () => {
     expect(screen.queryByTestId('attachment-delete-0')).toBeNull();
   });
 
+  it('says which files wait for review and which were declined; accepted ones carry no note', async () => {
+    mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      [`GET /api/complexes/${ENTRY_ID}/attachments`]: {
+        status: 200,
+        body: { attachments: [attachment, { ...attachment, id: 'at-2', state: 'pending' }, { ...attachment, id: 'at-3', state: 'declined' }] },
+      },
+    });
+    renderWithQueries(<AttachmentsPanel entry={entryBy('contributor')} />);
+    await screen.findByTestId('attachment-row-2');
+    expect(screen.queryByTestId('attachment-state-0')).toBeNull();
+    expect(screen.getByTestId('attachment-state-1')).toHaveTextContent(/Waits for review/);
+    expect(screen.getByTestId('attachment-state-2')).toHaveTextContent(/Declined with its revision/);
+  });
+
   it('shows why an upload was refused (415: content and name disagree)', async () => {
     mockFetch({
       'GET /api/auth/me': { status: 200, body: contributorMe },
