@@ -285,8 +285,8 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
           </View>
         ) : null}
 
-        <FormTextField control={control} name="name" label="Name" autoCapitalize="none" placeholder="e.g. hexaaquachromium(III)" testID="complex-form-name" />
-        <FormTextField control={control} name="notes" label="Notes" autoCapitalize="sentences" hint="Preparation, caveats, anything a colleague should know." testID="complex-form-notes" />
+        <FormTextField control={control} name="name" label="Name" autoCapitalize="none" hint="Example: hexaaquachromium(III)" testID="complex-form-name" />
+        <FormTextField control={control} name="notes" label="Notes" autoCapitalize="sentences" multiline numberOfLines={4} hint="Preparation, caveats, anything a colleague should know." testID="complex-form-notes" />
 
         <View style={styles.section}>
           <AppText variant="label" tone="muted">Measurements</AppText>
@@ -307,7 +307,7 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
             name="message"
             label="What changed (for the history)"
             autoCapitalize="sentences"
-            placeholder="e.g. Corrected the temperature"
+            hint="Example: Corrected the temperature"
             testID="complex-form-message"
           />
         ) : null}

@@ -75,7 +75,6 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
             label="Value"
             hint={`${rule.symbol} in ${unitDisplay(unit)}. ${VALUE_HINTS[kind]}`}
             keyboardType="numbers-and-punctuation"
-            placeholder="e.g. 2.4e-6"
             testID={`${id}-value`}
           />
         </View>
@@ -96,7 +95,7 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
         />
       </View>
       {kind === 'cross-reaction' ? (
-        <FormTextField control={control} name={`${prefix}.partnerFormula`} label="Partner formula" placeholder="e.g. [Fe(H2O)6]2+" testID={`${id}-partner`} />
+        <FormTextField control={control} name={`${prefix}.partnerFormula`} label="Partner formula" hint="Example: [Fe(H2O)6]2+" testID={`${id}-partner`} />
       ) : null}
       <AppText variant="label" tone="muted">Conditions</AppText>
       <View style={styles.grid}>
@@ -104,13 +103,13 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
           <FormTextField control={control} name={`${prefix}.temperatureK`} label="Temperature (K)" hint="298.15 K = 25 °C" keyboardType="decimal-pad" testID={`${id}-temperature`} />
         </View>
         <View style={styles.cell}>
-          <FormTextField control={control} name={`${prefix}.ionicStrengthM`} label="Ionic strength (M)" keyboardType="decimal-pad" placeholder="e.g. 1.0" testID={`${id}-ionic-strength`} />
+          <FormTextField control={control} name={`${prefix}.ionicStrengthM`} label="Ionic strength (M)" keyboardType="decimal-pad" hint="Example: 1.0" testID={`${id}-ionic-strength`} />
         </View>
         <View style={styles.cell}>
-          <FormTextField control={control} name={`${prefix}.medium`} label="Medium" autoCapitalize="none" placeholder="e.g. 1 M HClO4" testID={`${id}-medium`} />
+          <FormTextField control={control} name={`${prefix}.medium`} label="Medium" autoCapitalize="none" hint="Example: 1 M HClO4" testID={`${id}-medium`} />
         </View>
         <View style={styles.cell}>
-          <FormTextField control={control} name={`${prefix}.method`} label="Method" autoCapitalize="none" placeholder="e.g. 17O NMR line broadening" testID={`${id}-method`} />
+          <FormTextField control={control} name={`${prefix}.method`} label="Method" autoCapitalize="none" hint="Example: 17O NMR line broadening" testID={`${id}-method`} />
         </View>
       </View>
       <AppText variant="label" tone="muted">Citation</AppText>
@@ -127,18 +126,18 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
       </View>
       <View style={styles.grid}>
         <View style={styles.cell}>
-          <FormTextField control={control} name={`${prefix}.citation.doi`} label="DOI" placeholder="10.1021/cr030726o" testID={`${id}-doi`} />
+          <FormTextField control={control} name={`${prefix}.citation.doi`} label="DOI" hint="Example: 10.1021/cr030726o" testID={`${id}-doi`} />
           <DoiFillButton index={index} control={control} setValue={setValue} />
         </View>
         <View style={styles.cellWide}>
-          <FormTextField control={control} name={`${prefix}.citation.authors`} label="Authors" autoCapitalize="words" placeholder="L. Helm, A. E. Merbach" testID={`${id}-authors`} />
+          <FormTextField control={control} name={`${prefix}.citation.authors`} label="Authors" autoCapitalize="words" hint="Example: L. Helm, A. E. Merbach" testID={`${id}-authors`} />
         </View>
         <View style={styles.cellWide}>
           <FormTextField control={control} name={`${prefix}.citation.title`} label="Title" autoCapitalize="sentences" testID={`${id}-title`} />
         </View>
         {citationKind === 'book' ? null : (
           <View style={styles.cell}>
-            <FormTextField control={control} name={`${prefix}.citation.journal`} label={JOURNAL_LABELS[citationKind || 'article'] ?? 'Journal'} autoCapitalize="words" placeholder="Chem. Rev." testID={`${id}-journal`} />
+            <FormTextField control={control} name={`${prefix}.citation.journal`} label={JOURNAL_LABELS[citationKind || 'article'] ?? 'Journal'} autoCapitalize="words" hint="Example: Chem. Rev." testID={`${id}-journal`} />
           </View>
         )}
         {citationKind === 'book' || citationKind === 'chapter' ? (
@@ -153,7 +152,7 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
         ) : null}
         {citationKind === 'web-page' ? (
           <View style={styles.cellWide}>
-            <FormTextField control={control} name={`${prefix}.citation.url`} label="Address" autoCapitalize="none" placeholder="https://…" testID={`${id}-url`} />
+            <FormTextField control={control} name={`${prefix}.citation.url`} label="Address" autoCapitalize="none" hint="The full address, starting with https://" testID={`${id}-url`} />
           </View>
         ) : null}
         <View style={styles.cellSmall}>
@@ -163,7 +162,7 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
           <FormTextField control={control} name={`${prefix}.citation.volume`} label="Volume" testID={`${id}-volume`} />
         </View>
         <View style={styles.cellSmall}>
-          <FormTextField control={control} name={`${prefix}.citation.pages`} label="Pages" placeholder="1923-1960" testID={`${id}-pages`} />
+          <FormTextField control={control} name={`${prefix}.citation.pages`} label="Pages" hint="Example: 1923-1960" testID={`${id}-pages`} />
         </View>
       </View>
       <AppText variant="caption" tone="muted">Leave every citation field empty to add the source later (the entry shows “No citation yet”).</AppText>

@@ -18,6 +18,8 @@ export interface TextFieldProps
     | 'textContentType'
     | 'returnKeyType'
     | 'editable'
+    | 'multiline'
+    | 'numberOfLines'
   > {
   label: string;
   /** A line under the field that explains what is expected (shown until there is an error). */
@@ -49,7 +51,7 @@ export const TextField = forwardRef<TextInput, TextFieldProps>(function TextFiel
         accessibilityLabel={label}
         aria-invalid={!!error}
         testID={testID}
-        style={StyleSheet.flatten([styles.input, error ? styles.inputInvalid : null, input.editable === false ? styles.inputLocked : null])}
+        style={StyleSheet.flatten([styles.input, input.multiline ? styles.inputMultiline : null, error ? styles.inputInvalid : null, input.editable === false ? styles.inputLocked : null])}
       />
       {error ? (
         <AppText tone="danger" variant="caption" style={styles.line} testID={testID ? `${testID}-error` : undefined} accessibilityLiveRegion="polite">
@@ -66,6 +68,8 @@ export const TextField = forwardRef<TextInput, TextFieldProps>(function TextFiel
 
 const styles = StyleSheet.create({
   wrap: { gap: spacing.xs },
+  // Several lines of notes, top-aligned like a page.
+  inputMultiline: { minHeight: 112, textAlignVertical: 'top', paddingTop: spacing.sm },
   input: {
     fontFamily: fonts.body,
     fontSize: 16,
