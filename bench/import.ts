@@ -45,13 +45,13 @@ export async function runImportBenchOn(options: { rows?: number; log?: (line: st
     log(`import: ${rows} CSV rows (${(csv.length / 1024).toFixed(0)} KB): dry run, then the import …`);
 
     let started = performance.now();
-    const dryResponse = await upload(app, browser, `/api/imports?groupId=${group.id}&dryRun=true&wait=true`, csv);
+    const dryResponse = await upload(app, browser, `/api/imports?groupId=${group.id}&dryRun=true&wait=true&duplicates=import`, csv);
     const dryRunSeconds = (performance.now() - started) / 1000;
     const dry = importJobSchema.parse(dryResponse.body);
     if (dry.state !== 'succeeded') throw new Error(`import bench: the dry run ended ${dry.state}`);
 
     started = performance.now();
-    const importResponse = await upload(app, browser, `/api/imports?groupId=${group.id}&wait=true`, csv);
+    const importResponse = await upload(app, browser, `/api/imports?groupId=${group.id}&wait=true&duplicates=import`, csv);
     const importSeconds = (performance.now() - started) / 1000;
     const job = importJobSchema.parse(importResponse.body);
     if (job.state !== 'succeeded') throw new Error(`import bench: the import ended ${job.state}`);

@@ -229,7 +229,7 @@ it('SIGKILL in the middle of a CSV import writes all rows or none', async () => 
   const countImported = async () => Number((await queryRows<{ n: string }>(cluster.url, "select count(*) as n from complex where name like 'kill-import %'"))[0]?.n);
   expect(await countImported()).toBe(0);
 
-  const started = await contributor.request('POST', '/api/imports?fileName=kill.csv', undefined, { raw: csv, headers: { 'Content-Type': 'text/csv' }, timeoutMs: 60_000 });
+  const started = await contributor.request('POST', '/api/imports?fileName=kill.csv&duplicates=import', undefined, { raw: csv, headers: { 'Content-Type': 'text/csv' }, timeoutMs: 60_000 });
   expect(started.status).toBe(202);
   const jobId = (started.body as { id: string }).id;
   // Kill as soon as the job is writing (or, if it is quicker than the poll, whenever it is seen running).

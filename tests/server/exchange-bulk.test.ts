@@ -19,12 +19,12 @@ it('imports 10 000 rows completely (dry run, then the import, polled)', async ()
   const before = await libraryCounts(t.orm);
 
   let started = performance.now();
-  const dry = importJobSchema.parse((await upload(t.app, w.author, `/api/imports?groupId=${w.groupId}&dryRun=true&wait=true`, csv)).body);
+  const dry = importJobSchema.parse((await upload(t.app, w.author, `/api/imports?groupId=${w.groupId}&dryRun=true&wait=true&duplicates=import`, csv)).body);
   const dryMs = performance.now() - started;
   expect(dry).toMatchObject({ state: 'succeeded', entryCount: 5000, measurementCount: 10_000 });
 
   started = performance.now();
-  const posted = await upload(t.app, w.author, `/api/imports?groupId=${w.groupId}`, csv);
+  const posted = await upload(t.app, w.author, `/api/imports?groupId=${w.groupId}&duplicates=import`, csv);
   expect(posted.status).toBe(202);
   const seen = new Set<string>();
   const job = await waitForJob(w.author, posted.body.id, 120_000);

@@ -133,3 +133,17 @@ describe('CSV import', () => {
     expect(zinc.measurements).toEqual([]);
   });
 });
+
+describe('kinds as people write them', () => {
+  it('the form’s labels, in any case and with spaces or underscores, are read as kinds', async () => {
+    const file = Buffer.from(
+      'entry,formula,name,kind,value,unit,temperature_K\n' +
+        '1,[Ga(H2O)6]3+,gallium label kind,Water exchange,4e2,s-1,298.15\n' +
+        '1,[Ga(H2O)6]3+,gallium label kind,ACTIVATION_VOLUME,5,cm3/mol,298.15\n' +
+        '2,[In(H2O)6]3+,indium bad kind,fast exchange,4e4,s-1,298.15\n',
+    );
+    const job = importJobSchema.parse((await upload(t.app, w.author, importPath({ dryRun: 'true' }), file)).body);
+    // Only the made-up kind is refused, on its own row.
+    expect(job.errors.map((e) => [e.row, e.column])).toEqual([[4, 'kind']]);
+  });
+});

@@ -4,8 +4,10 @@ import {
   citationInputSchema,
   createComplexInputSchema,
   measurementInputSchema,
+  measurementKindRules,
   type CitationInput,
   type MeasurementInput,
+  type MeasurementKind,
 } from '@/lib/schemas/library';
 import { AppError } from '@/server/http/errors';
 import { classifyOrExplain, derivedFromClassification, type DerivedColumns } from '@/server/modules/library/derive';
@@ -37,6 +39,21 @@ export interface ValidationResult {
   entries: PlannedEntry[];
   issues: ImportIssue[];
   measurementCount: number;
+}
+
+/**
+ * A kind as people write it: the code ("water-exchange") or the form's label in any case, with
+ * spaces, hyphens or underscores ("Water exchange", "water_exchange", "Self exchange").
+ */
+const squash = (text: string) => text.toLowerCase().replace(/[\s_-]+/g, '');
+const KIND_BY_WORDS: ReadonlyMap<string, MeasurementKind> = new Map(
+  (Object.keys(measurementKindRules) as MeasurementKind[]).flatMap((kind) => [
+    [squash(kind), kind],
+    [squash(measurementKindRules[kind].label), kind],
+  ]),
+);
+export function kindFromCell(cell: string): string {
+  return KIND_BY_WORDS.get(squash(cell)) ?? cell;
 }
 
 const measurementColumns: Record<string, CsvColumn> = {
@@ -136,7 +153,7 @@ export function validateRows(
     const hasCitation = Object.values(citationColumns).some((c) => cellOf(cells, c) !== '');
     if (hasMeasurement) {
       const raw = {
-        kind: cellOf(cells, 'kind'),
+        kind: kindFromCell(cellOf(cells, 'kind')),
         value: numberCell(cellOf(cells, 'value')),
         unit: cellOf(cells, 'unit'),
         temperatureK: numberCell(cellOf(cells, 'temperature_K')),
