@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { ActivityIndicator, StyleSheet, View } from 'react-native';
+import { ActivityIndicator, Linking, Platform, StyleSheet, View } from 'react-native';
 import { TextLink } from '@/components/account/auth-frame';
 import { ErrorBlock, LoadingBlock } from '@/components/account/query-states';
 import { useLibraryAccess } from '@/components/library/use-library-access';
@@ -154,6 +154,15 @@ function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }
         <AppText tone="soft">
           One row per measurement, with a header row. Sphereline reads columns such as formula, name, kind, value, unit, temperature_K,
           medium, method and the citation (doi, authors, journal, year…). Rows with the same formula and name become one entry. At most 5 MB.
+        </AppText>
+        <AppText
+          {...{ href: '/api/imports/template.csv', hrefAttrs: { download: true } }}
+          accessibilityRole="link"
+          onPress={Platform.OS === 'web' ? undefined : () => void Linking.openURL('/api/imports/template.csv')}
+          style={styles.templateLink}
+          testID="import-template"
+        >
+          Download a template (every column, one example entry) ↓
         </AppText>
         <View style={styles.row}>
           <FilePickButton label={file ? 'Choose another file' : 'Choose a CSV file'} accept=".csv,text/csv" onPick={pick} testID="import-pick" kind={file ? 'quiet' : 'primary'} />
@@ -465,6 +474,7 @@ function RunStatus({ job, onAnother }: { job: ImportJob; onAnother: () => void }
 }
 
 const styles = StyleSheet.create({
+  templateLink: { color: colors.accent, textDecorationLine: 'underline', minHeight: 44, paddingVertical: spacing.sm },
   choiceRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.xs },
   duplicate: { gap: spacing.xs, paddingVertical: spacing.xs, borderTopWidth: 1, borderTopColor: colors.line },
   mono: { fontFamily: fonts.mono },

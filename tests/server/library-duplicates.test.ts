@@ -1,4 +1,4 @@
-import { importJobSchema } from '@/lib/schemas/exchange';
+import { csvColumns, importJobSchema } from '@/lib/schemas/exchange';
 import { complexDetailSchema, duplicatesResponseSchema, revisionsResponseSchema } from '@/lib/schemas/library';
 import { Complex } from '@/server/modules/library/complex.entity';
 import { createTestApp, type TestApp } from '../setup/test-app';
@@ -145,5 +145,18 @@ describe('kinds as people write them', () => {
     const job = importJobSchema.parse((await upload(t.app, w.author, importPath({ dryRun: 'true' }), file)).body);
     // Only the made-up kind is refused, on its own row.
     expect(job.errors.map((e) => [e.row, e.column])).toEqual([[4, 'kind']]);
+  });
+});
+
+describe('the import template', () => {
+  it('is a CSV of every column with an example entry that passes its own dry run', async () => {
+    const response = await w.author.get('/api/imports/template.csv');
+    expect(response.status).toBe(200);
+    expect(response.headers['content-type']).toMatch(/text\/csv/);
+    expect(response.headers['content-disposition']).toMatch(/attachment; filename="?sphereline-import-template.csv"?/);
+    const text = response.text;
+    expect(text.split('\r\n')[0]).toBe(csvColumns.join(','));
+    const job = importJobSchema.parse((await upload(t.app, w.author, importPath({ dryRun: 'true', duplicates: 'import' }), Buffer.from(text))).body);
+    expect(job).toMatchObject({ state: 'succeeded', errorCount: 0, entryCount: 1, measurementCount: 1 });
   });
 });

@@ -8,6 +8,7 @@ import { readRawBody } from '@/server/modules/attachments/raw-body';
 import { citationsAsBibtex, citationsAsRis } from './citation-formats';
 import { citationsOf, snapshotsAsCsv, visibleSnapshots } from './export.service';
 import { getImportJob, startImport } from './import.service';
+import { importTemplateCsv } from './import-template';
 
 /**
  * CSV import (POST /api/imports, GET /api/imports/:id) and export (GET /api/exports/…).
@@ -39,6 +40,11 @@ export function exchangeRoutes(orm: Orm): Router {
       return;
     }
     res.status(202).location(`/api/imports/${job.id}`).json(job);
+  });
+
+  // A file to start from: the header line the importer reads and one example entry.
+  router.get('/imports/template.csv', (_req, res) => {
+    res.type('text/csv; charset=utf-8').attachment('sphereline-import-template.csv').send(importTemplateCsv());
   });
 
   router.get('/imports/:id', requireAuth, async (req, res) => {
