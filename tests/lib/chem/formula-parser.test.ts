@@ -127,7 +127,9 @@ describe('parseFormula: property tests', () => {
           expect(position).toBeGreaterThanOrEqual(0);
           expect(position).toBeLessThanOrEqual(formula.length);
         }
-        expect(Date.now() - started).toBeLessThan(200);
+        // A guard against runaway backtracking, not a speed target (those are in `npm run bench`):
+        // generous enough for a busy shared machine, far below what a hang takes.
+        expect(Date.now() - started).toBeLessThan(2000);
       }),
       { numRuns: 2000 },
     );
