@@ -354,17 +354,43 @@ function DuplicateChoices({ job, forAll, perRow, onForAll, onRow }: {
 }
 
 /** Row-by-row problems; rows are numbered as a spreadsheet shows them (the header is row 1). */
+/** Row numbers as people read them: [2, 3, 4, 7] → "2–4, 7". */
+export function rowRanges(rows: readonly number[]): string {
+  const sorted = [...new Set(rows)].sort((x, y) => x - y);
+  const parts: string[] = [];
+  for (let i = 0; i < sorted.length; ) {
+    let j = i;
+    while (j + 1 < sorted.length && sorted[j + 1] === sorted[j]! + 1) j += 1;
+    parts.push(j > i ? `${sorted[i]}–${sorted[j]}` : String(sorted[i]));
+    i = j + 1;
+  }
+  return parts.join(', ');
+}
+
+/** One line per kind of problem (same column, same message) with the rows it occurs in. */
+export function groupIssues(issues: readonly ImportIssue[]): { rows: number[]; column: string | null; message: string; position?: number }[] {
+  const groups = new Map<string, { rows: number[]; column: string | null; message: string; position?: number }>();
+  for (const issue of issues) {
+    // A problem at a character position belongs to its own cell.
+    const key = issue.position === undefined ? `${issue.column ?? ''}\u0000${issue.message}` : `${issue.row}\u0000${issue.column ?? ''}\u0000${issue.message}`;
+    const group = groups.get(key);
+    if (group) group.rows.push(issue.row);
+    else groups.set(key, { rows: [issue.row], column: issue.column, message: issue.message, position: issue.position });
+  }
+  return [...groups.values()];
+}
+
 function IssueTable({ issues, total }: { issues: ImportIssue[]; total: number }) {
   return (
     <View style={styles.table} accessibilityRole="list">
       <View style={StyleSheet.flatten([styles.tr, styles.th])}>
-        <AppText variant="label" tone="muted" style={styles.colRow}>Row</AppText>
+        <AppText variant="label" tone="muted" style={styles.colRow}>Rows</AppText>
         <AppText variant="label" tone="muted" style={styles.colColumn}>Column</AppText>
         <AppText variant="label" tone="muted" style={styles.colMessage}>Problem</AppText>
       </View>
-      {issues.map((issue, i) => (
-        <View key={`${issue.row}-${issue.column ?? ''}-${i}`} style={styles.tr} testID={`import-report-row-${i}`}>
-          <AppText style={styles.colRow}>{issue.row}</AppText>
+      {groupIssues(issues).map((issue, i) => (
+        <View key={`${issue.rows[0]}-${issue.column ?? ''}-${i}`} style={styles.tr} testID={`import-report-row-${i}`}>
+          <AppText style={styles.colRow}>{rowRanges(issue.rows)}</AppText>
           <AppText style={styles.colColumn}>{issue.column ?? 'whole row'}</AppText>
           <AppText style={styles.colMessage}>
             {issue.message}

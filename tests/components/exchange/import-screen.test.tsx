@@ -1,5 +1,5 @@
 import { fireEvent, screen, waitFor } from '@testing-library/react-native';
-import { ImportScreen, csvHeaderLine, mappingFromChoices } from '@/components/exchange/import-screen';
+import { ImportScreen, csvHeaderLine, groupIssues, mappingFromChoices, rowRanges } from '@/components/exchange/import-screen';
 import { importJobSchema, type ImportJob } from '@/lib/schemas/exchange';
 import { renderWithQueries } from '../account/test-kit';
 import { contributorMe, GROUP_ID } from '../library/library-fixtures';
@@ -228,5 +228,27 @@ describe('ImportScreen', () => {
     });
     renderWithQueries(<ImportScreen />);
     expect(await screen.findByTestId('import-not-allowed')).toHaveTextContent(/contributor role/);
+  });
+});
+
+describe('grouped import problems', () => {
+  it('writes rows as ranges (common practice)', () => {
+    expect(rowRanges([7, 2, 3, 4, 4, 9])).toBe('2–4, 7, 9');
+    expect(rowRanges([5])).toBe('5');
+  });
+
+  it('gives one line per kind of problem with its rows; a problem at a character stays with its cell', () => {
+    const groups = groupIssues([
+      { row: 2, column: 'unit', message: 'Water exchange is given in s⁻¹.' },
+      { row: 3, column: 'unit', message: 'Water exchange is given in s⁻¹.' },
+      { row: 4, column: 'formula', message: 'Unknown ligand "xx".', position: 5 },
+      { row: 5, column: 'formula', message: 'Unknown ligand "xx".', position: 5 },
+      { row: 6, column: 'unit', message: 'Water exchange is given in s⁻¹.' },
+    ]);
+    expect(groups.map((g) => [rowRanges(g.rows), g.column])).toEqual([
+      ['2–3, 6', 'unit'],
+      ['4', 'formula'],
+      ['5', 'formula'],
+    ]);
   });
 });
