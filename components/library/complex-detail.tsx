@@ -78,8 +78,8 @@ function EntryBody({ entry }: { entry: ComplexDetail }) {
           </AppText>
         </View>
         <AppText variant="caption" tone="muted">
-          Added by {entry.createdBy?.displayName ?? 'someone no longer in the group'} · last change {dateTimeText(entry.updatedAt)} UTC
-          {entry.acceptedAt ? ` · accepted ${dateTimeText(entry.acceptedAt)} UTC` : ''}
+          Added by {entry.createdBy?.displayName ?? 'someone no longer in the group'} · last change {dateTimeText(entry.updatedAt)}
+          {entry.acceptedAt ? ` · accepted ${dateTimeText(entry.acceptedAt)}` : ''}
         </AppText>
       </View>
 

@@ -1,3 +1,4 @@
+import { formatDate, formatDateTime } from '@/lib/chem/number-format';
 import { duration, roman, scientific } from '@/components/ui/format';
 import {
   measurementKindRules,
@@ -78,9 +79,10 @@ export function relativeAge(iso: string, now: Date = new Date()): string {
   if (seconds < 86400) return `${Math.floor(seconds / 3600)} h ago`;
   const days = Math.floor(seconds / 86400);
   if (days < 30) return days === 1 ? '1 day ago' : `${days} days ago`;
-  return new Date(iso).toISOString().slice(0, 10);
+  return formatDate(iso);
 }
 
+/** A moment in the reader's own time and locale, as every screen writes it (lib/chem/number-format.ts). */
 export function dateTimeText(iso: string): string {
-  return iso.slice(0, 16).replace('T', ' ');
+  return formatDateTime(iso);
 }

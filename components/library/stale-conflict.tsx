@@ -24,7 +24,7 @@ export function StaleConflict({ current, yourChanges, onReapply, onDiscard }: {
       <AppText variant="lead" style={styles.title}>Someone else saved this entry since you opened it</AppText>
       <AppText>
         Nothing of yours was saved, and nothing of theirs was overwritten. This is the entry now (version {current.version}, changed{' '}
-        {dateTimeText(current.updatedAt)} UTC):
+        {dateTimeText(current.updatedAt)}):
       </AppText>
       <View style={styles.current} testID="complex-conflict-current">
         <FormulaText formula={current.formula} variant="lead" testID="complex-conflict-formula" />
