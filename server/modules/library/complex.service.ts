@@ -436,18 +436,7 @@ export async function saveComplex(em: EntityManager, actor: Actor, id: string, i
           }
           kept.add(existing.id);
           const citationId = (await citationIdFor(tem, complex.groupId, actor, m, prefix)) ?? null;
-          const next = {
-            kind: m.kind,
-            value: m.value,
-            unit: m.unit as MeasurementDto['unit'],
-            temperatureK: m.temperatureK ?? null,
-            ionicStrengthM: m.ionicStrengthM ?? null,
-            medium: m.medium ?? null,
-            method: m.method ?? null,
-            partnerFormula: m.partnerFormula ?? null,
-            citationId,
-            notes: m.notes ?? null,
-          };
+          const { id: _id, complexId: _complexId, createdAt: _createdAt, updatedAt: _updatedAt, ...next } = measurementRow(id, m, citationId, new Date());
           const differs = (Object.keys(next) as (keyof typeof next)[]).some((key) =>
             key === 'value' ? Number(existing.value) !== next.value : !sameValue(existing[key], next[key]),
           );
@@ -568,26 +557,12 @@ export async function submitComplex(em: EntityManager, actor: Actor, id: string,
 }
 
 /** Puts the working copy back to the accepted snapshot (after a declined edit of an accepted entry). */
-async function restoreApproved(tem: EntityManager, complexId: string, accepted: ComplexSnapshot) {
+async function restoreAccepted(tem: EntityManager, complexId: string, accepted: ComplexSnapshot) {
   await tem.nativeDelete(Measurement, { complexId });
   for (const m of accepted.measurements) {
-    await tem.insert(Measurement, {
-      id: m.id,
-      complexId,
-      kind: m.kind,
-      value: m.value,
-      unit: m.unit,
-      temperatureK: m.temperatureK,
-      ionicStrengthM: m.ionicStrengthM,
-      medium: m.medium,
-      method: m.method,
-      partnerFormula: m.partnerFormula,
-      // The citation may have been deleted with its group only; keep the link when it still exists.
-      citationId: m.citation && (await tem.count(Citation, { id: m.citation.id })) > 0 ? m.citation.id : null,
-      notes: m.notes,
-      createdAt: new Date(m.createdAt),
-      updatedAt: new Date(m.updatedAt),
-    });
+    // The citation may have been deleted with its group only; keep the link when it still exists.
+    const citationId = m.citation && (await tem.count(Citation, { id: m.citation.id })) > 0 ? m.citation.id : null;
+    await tem.insert(Measurement, { ...measurementRow(complexId, m, citationId, new Date(m.createdAt)), id: m.id, updatedAt: new Date(m.updatedAt) });
   }
 }
 
@@ -626,7 +601,7 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
   await commit(em, actor, complex, basedOn, {
     set,
     apply: async (tem, newVersion) => {
-      if (restore && accepted) await restoreApproved(tem, complex.id, accepted);
+      if (restore && accepted) await restoreAccepted(tem, complex.id, accepted);
       await tem.insert(ComplexReview, {
         id: reviewId,
         complexId: complex.id,
