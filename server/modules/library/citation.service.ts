@@ -11,14 +11,9 @@ import { toCitationDto } from './complex.mapper';
  * partial unique index citation_group_doi_unique enforces it, race-free with ON CONFLICT).
  * Without a DOI, an identical authors/journal/year/volume/pages record is reused.
  */
-export async function findOrCreateCitation(
-  em: EntityManager,
-  groupId: string,
-  input: CitationInput,
-  actorId: string | null,
-): Promise<{ citation: CitationDto; created: boolean }> {
-  const doi = input.doi ?? null;
-  const values = {
+/** The bibliographic fields of a citation as stored, from what a person typed. */
+export function citationFields(input: CitationInput) {
+  return {
     authors: input.authors,
     title: input.title ?? null,
     journal: input.journal,
@@ -30,6 +25,16 @@ export async function findOrCreateCitation(
     place: input.place ?? null,
     url: input.url ?? null,
   };
+}
+
+export async function findOrCreateCitation(
+  em: EntityManager,
+  groupId: string,
+  input: CitationInput,
+  actorId: string | null,
+): Promise<{ citation: CitationDto; created: boolean }> {
+  const doi = input.doi ?? null;
+  const values = citationFields(input);
   if (doi) {
     const id = randomUUID();
     const inserted = await em.execute<{ id: string }[]>(

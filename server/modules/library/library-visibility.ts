@@ -2,6 +2,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { roleAtLeast } from '@/lib/schemas/groups';
 import type { Citation as CitationDto, CitationInput } from '@/lib/schemas/library';
 import { Citation } from './citation.entity';
+import { citationFields } from './citation.service';
 import { toCitationDto } from './complex.mapper';
 import type { MembershipInfo } from './library-access';
 import { ComplexReview } from './review.entity';
@@ -76,19 +77,5 @@ export async function citationVisibleTo(em: EntityManager, membership: Membershi
  * never the stored ones: nothing of another member's draft comes back.
  */
 export function ownFieldsView(stored: CitationDto, input: CitationInput): CitationDto {
-  return toCitationDto({
-    id: stored.id,
-    groupId: stored.groupId,
-    doi: stored.doi,
-    authors: input.authors,
-    title: input.title ?? null,
-    journal: input.journal,
-    year: input.year ?? null,
-    volume: input.volume ?? null,
-    pages: input.pages ?? null,
-    kind: input.kind ?? 'article',
-    publisher: input.publisher ?? null,
-    place: input.place ?? null,
-    url: input.url ?? null,
-  });
+  return toCitationDto({ id: stored.id, groupId: stored.groupId, doi: stored.doi, ...citationFields(input) });
 }
