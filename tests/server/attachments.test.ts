@@ -14,6 +14,7 @@ import { download, upload } from './exchange-helpers';
 let t: TestApp;
 let w: LibraryWorld;
 let s3: { settings: S3Settings; close: () => Promise<void> };
+let settleMail: () => Promise<void> = async () => {};
 let entryId: string;
 
 // Magic numbers: PDF "%PDF-" (ISO 32000-1 §7.5.2), PNG 89 50 4E 47 0D 0A 1A 0A (PNG spec §5.2), GIF "GIF89a".
@@ -42,12 +43,14 @@ async function acceptPending(id = entryId) {
 beforeAll(async () => {
   const base = await createTestApp();
   s3 = await startFakeS3();
-  const app = createApp({ orm: base.orm, storage: createS3Storage(s3.settings) });
+  // This app sends its own review e-mails: let them finish before the database goes.
+  const app = createApp({ orm: base.orm, storage: createS3Storage(s3.settings), onReviewMail: (mail) => (settleMail = () => mail.settle()) });
   t = { ...base, app };
   w = await buildLibraryWorld(t, 'att');
   entryId = (await entryInState(w, 'accepted')).id;
 }, 30_000);
 afterAll(async () => {
+  await settleMail();
   await s3.close();
   await t.close();
 });
