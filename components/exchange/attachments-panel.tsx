@@ -82,7 +82,7 @@ function AttachmentRow({ attachment, index, complexId, canDelete }: { attachment
           </AppText>
         ) : null}
         <AppText variant="caption" tone="muted">
-          Added by {attachment.uploadedBy?.displayName ?? 'someone no longer in the group'} · {dateTimeText(attachment.createdAt)} UTC
+          Added by {attachment.uploadedBy?.displayName ?? 'someone no longer in the group'} · {dateTimeText(attachment.createdAt)}
         </AppText>
         {remove.isError ? <AppText variant="caption" tone="danger" testID={`attachment-delete-${index}-error`}>{describeError(remove.error)}</AppText> : null}
       </View>
