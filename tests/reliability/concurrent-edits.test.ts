@@ -56,7 +56,7 @@ type Change = (client: HttpClient, i: number, entry: { id: string; version: numb
 const changes: [string, Change][] = [
   ['PATCH the entry', (c, i, e) => c.patch(`/api/complexes/${e.id}`, { version: e.version, notes: `written by client ${i}`, message: `client ${i}` })],
   ['add a measurement', (c, i, e) => c.post(`/api/complexes/${e.id}/measurements`, { version: e.version, kind: 'ligand-field-splitting', value: 17400 + i, unit: 'cm-1' })],
-  ['PATCH a measurement', (c, i, e) => c.patch(`/api/complexes/${e.id}/measurements/${e.measurements[0]!.id}`, { version: e.version, value: 2.4e-6 + i * 1e-8 })],
+  ['PATCH a measurement', (c, i, e) => c.patch(`/api/complexes/${e.id}/measurements/${e.measurements[0]!.id}`, { version: e.version, value: 2.4e-6 + (i + 1) * 1e-8 })], // never the stored value: a save that changes nothing is a no-op 200
   ['submit', (c, i, e) => c.post(`/api/complexes/${e.id}/submit`, { version: e.version, message: `client ${i}` })],
   ['retire', (c, i, e) => c.post(`/api/complexes/${e.id}/retire`, { version: e.version, message: `client ${i}` })],
 ];
@@ -81,7 +81,8 @@ describe.each(changes)('%s from the same version by %#', (label, change) => {
     expect(revisions.map((r) => r.number)).toEqual([1, 2]);
     if (label === 'PATCH the entry') {
       expect(stored.notes).toBe(`written by client ${winner.i}`);
-      expect(revisions[1]!.message).toBe(`client ${winner.i}`);
+      // The history line: what changed, in words, then the person's own message.
+      expect(revisions[1]!.message).toBe(`Edited the notes — client ${winner.i}`);
     }
     if (label === 'add a measurement') {
       const kinds = await queryRows<{ value: string }>(t.databaseUrl, "select value::text from measurement where complex_id = $1 and kind = 'ligand-field-splitting'", [entry.id]);
@@ -89,7 +90,7 @@ describe.each(changes)('%s from the same version by %#', (label, change) => {
     }
     if (label === 'PATCH a measurement') {
       const value = await queryRows<{ value: string }>(t.databaseUrl, 'select value::text from measurement where id = $1', [entry.measurements[0]!.id]);
-      expect(Number(value[0]!.value)).toBeCloseTo(2.4e-6 + winner.i * 1e-8, 12);
+      expect(Number(value[0]!.value)).toBeCloseTo(2.4e-6 + (winner.i + 1) * 1e-8, 12);
     }
     if (label === 'submit') expect(stored.status).toBe('in-review');
     if (label === 'retire') expect(stored.status).toBe('retired');

@@ -129,7 +129,7 @@ describe('state shared between the two processes', () => {
     await contributor.signIn('contributor@larkspur.example.org', DEMO_PASSWORD);
     const rows = Array.from({ length: 400 }, (_, i) => `two-servers-${i},[Co(NH3)5Cl]2+,pentaamminechloridocobalt(III) import ${i},,water-exchange,${(1 + (i % 9)) * 1e-6},s-1`);
     const csv = `entry,formula,name,notes,kind,value,unit\n${rows.join('\n')}\n`;
-    const started = await contributor.request('POST', '/api/imports?fileName=two-servers.csv', undefined, { raw: csv, headers: { 'Content-Type': 'text/csv' } });
+    const started = await contributor.request('POST', '/api/imports?fileName=two-servers.csv&duplicates=import', undefined, { raw: csv, headers: { 'Content-Type': 'text/csv' } });
     expect(started.status).toBe(202);
     const jobId = (started.body as { id: string }).id;
     const pollerOnB = new HttpClient(b.baseUrl);
@@ -166,7 +166,7 @@ describe('state shared between the two processes', () => {
     // Seen as accepted from A too.
     expect(((await contributor.get(`/api/complexes/${id}`)).body as { status: string }).status).toBe('accepted');
     const revisions = await queryRows<{ number: number; kind: string; status: string }>(cluster.url, 'select number, kind, status from complex_revision where complex_id = $1 order by number', [id]);
-    expect(revisions.map((r) => `${r.number}:${r.kind}:${r.status}`)).toEqual(['1:create:draft', '2:submit:submitted', '3:review:accepted']);
+    expect(revisions.map((r) => `${r.number}:${r.kind}:${r.status}`)).toEqual(['1:create:draft', '2:submit:in-review', '3:review:accepted']);
     const audit = await queryRows<{ action: string; version: number }>(cluster.url, "select action, (details->>'version')::int as version from audit_event where subject_id = $1 order by created_at", [id]);
     expect(audit.map((e) => `${e.version}:${e.action}`)).toEqual(['1:library.entry.created', '2:library.entry.submitted', '3:library.entry.accepted']);
   });
