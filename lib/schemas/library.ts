@@ -452,6 +452,19 @@ export const complexListItemSchema = derivedFieldsSchema.extend({
   hasPendingRevision: z.boolean(),
   /** Search similarity 0–1 when `q` was given, else null. */
   rank: z.number().nullable(),
+  /**
+   * The entry's headline rate: the measurement that would decide its verdict (water exchange
+   * before ligand exchange, substitution and a half-life; nearest 25 °C), as a first-order k.
+   * Null when no measurement gives one.
+   */
+  headlineRate: z
+    .object({
+      kind: z.enum(['water-exchange', 'ligand-exchange', 'substitution', 'half-life']),
+      kPerSecond: z.number(),
+      temperatureK: z.number(),
+    })
+    .nullable()
+    .default(null),
   createdBy: personRefSchema.nullable(),
   updatedAt: z.iso.datetime(),
 });
@@ -504,6 +517,31 @@ const queryNumber = (what: string, min: number, max: number) =>
 
 const queryBoolean = z.enum(['true', 'false', '1', '0'], { error: 'Use true or false.' }).transform((v) => v === 'true' || v === '1');
 
+/**
+ * Orders the list can be read in (`sort` + `dir`). Without `sort`: rank with search text, else
+ * name. `metal` orders by metal, then oxidation state; `verdict` from labile to inert; `status` in
+ * the order of the review workflow. Every order ends with the entry id, so ties never swap.
+ */
+export const librarySortKeys = ['formula', 'name', 'metal', 'dCount', 'verdict', 'measurements', 'status', 'updated'] as const;
+export const librarySortSchema = z.enum(librarySortKeys, { error: `sort is one of: ${librarySortKeys.join(', ')}.` });
+export type LibrarySort = z.infer<typeof librarySortSchema>;
+export const sortDirectionSchema = z.enum(['asc', 'desc'], { error: 'dir is asc or desc.' });
+export type SortDirection = z.infer<typeof sortDirectionSchema>;
+
+/** At most this many ids in one `ids` filter (an export of the rows someone ticked). */
+export const MAX_SELECTED_IDS = 200;
+
+/** `ids=<uuid>,<uuid>…`: only these entries (of those the person may see). */
+const idListSchema = z
+  .string({ error: 'ids is a comma-separated list of entry ids.' })
+  .transform((text) => text.split(',').map((id) => id.trim()).filter((id) => id.length > 0))
+  .pipe(
+    z
+      .array(z.uuid('ids holds entry ids separated by commas.'))
+      .min(1, 'ids needs at least one entry id.')
+      .max(MAX_SELECTED_IDS, `ids holds at most ${MAX_SELECTED_IDS} entry ids.`),
+  );
+
 /** GET /api/complexes query string. Filters combine with AND. */
 export const complexSearchQuerySchema = z
   .object({
@@ -517,6 +555,9 @@ export const complexSearchQuerySchema = z
     measurementKind: measurementKindSchema.optional(),
     status: complexStatusSchema.optional(),
     hasCitation: queryBoolean.optional(),
+    ids: idListSchema.optional(),
+    sort: librarySortSchema.optional(),
+    dir: sortDirectionSchema.optional(),
     page: queryNumber('page', 1, 100000).default(1),
     pageSize: queryNumber('pageSize', 1, 100).default(20),
   })

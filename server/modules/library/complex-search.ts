@@ -6,9 +6,13 @@ import type {
   ComplexSearchQuery,
   ComplexSnapshot,
   ComplexStatus,
+  LibrarySort,
   MeasurementKind,
   ReviewQueueResponse,
+  SortDirection,
 } from '@/lib/schemas/library';
+import { complexStatuses } from '@/lib/schemas/library';
+import { ASSUMED_MEASUREMENT_TEMPERATURE_K, pickDecidingMeasurement } from '@/lib/chem/library-decision';
 import atomicWeightData from '@/data/atomic-weights.json';
 import { isElementSymbol } from '@/lib/chem/elements';
 import { AppError } from '@/server/http/errors';
@@ -105,6 +109,32 @@ const PUBLISHED_COLUMNS = `c.id, c.group_id, c.published_name as name, 'accepted
   c.published_search_text as search_text, false as full_view`;
 
 /**
+ * Columns only a chosen order reads (`sort`), in the copy the reader sees: the formula, the number
+ * of measurements and the time of the last change. Kept out of the other searches.
+ */
+const WORKING_SORT_COLUMNS = `c.formula, (select count(*) from measurement m where m.complex_id = c.id) as measurement_count, c.updated_at`;
+const PUBLISHED_SORT_COLUMNS = `c.accepted_snapshot->>'formula' as formula,
+  coalesce(jsonb_array_length(c.accepted_snapshot->'measurements'), 0)::bigint as measurement_count, c.updated_at`;
+
+/** The ORDER BY keys of each chosen order (before the final id), over the source's columns. */
+const SORT_KEYS: Record<LibrarySort, readonly string[]> = {
+  formula: ['c.formula'],
+  name: ['lower(c.name)'],
+  metal: ['c.metal', 'c.oxidation_state'],
+  dCount: ['c.d_electrons'],
+  verdict: [`array_position(array['labile','intermediate','inert']::text[], c.verdict::text)`],
+  measurements: ['c.measurement_count'],
+  status: [`array_position(array[${complexStatuses.map((status) => `'${status}'`).join(',')}]::text[], c.status::text)`],
+  updated: ['c.updated_at'],
+};
+
+/** "order by k1 asc, k2 asc, c.id asc": every key, then the id, in one direction. */
+export function sortOrderSql(sort: LibrarySort, dir: SortDirection): string {
+  const direction = dir === 'desc' ? 'desc' : 'asc';
+  return [...SORT_KEYS[sort], 'c.id'].map((key) => `${key} ${direction}`).join(', ');
+}
+
+/**
  * What this reader searches: the rows they see, each with the copy they see. Curators and admins
  * see the working copy of every entry of their groups, contributors the working copy of their own
  * entries, and everyone (contributors for the entries of others, viewers for all) the accepted
@@ -116,7 +146,7 @@ const PUBLISHED_COLUMNS = `c.id, c.group_id, c.published_name as name, 'accepted
  * PostgreSQL plans as an append of the two index scans (merged in order when a page is read in
  * name order).
  */
-export function searchSource(memberships: readonly MembershipInfo[], userId: string): Fragment {
+export function searchSource(memberships: readonly MembershipInfo[], userId: string, options: { sortColumns?: boolean } = {}): Fragment {
   const curatorGroups = memberships.filter((m) => roleAtLeast(m.role, 'curator')).map((m) => m.groupId);
   const contributorGroups = memberships.filter((m) => m.role === 'contributor').map((m) => m.groupId);
   const viewerGroups = memberships
@@ -141,11 +171,13 @@ export function searchSource(memberships: readonly MembershipInfo[], userId: str
   const selects: Fragment[] = [];
   if (workingParts.length > 0) {
     const where = or(workingParts);
-    selects.push(frag(`select ${WORKING_COLUMNS} from complex c where ${where.sql}`, ...where.params));
+    const extra = options.sortColumns ? `, ${WORKING_SORT_COLUMNS}` : '';
+    selects.push(frag(`select ${WORKING_COLUMNS}${extra} from complex c where ${where.sql}`, ...where.params));
   }
   if (publishedParts.length > 0) {
     const where = or(publishedParts);
-    selects.push(frag(`select ${PUBLISHED_COLUMNS} from complex c where ${where.sql}`, ...where.params));
+    const extra = options.sortColumns ? `, ${PUBLISHED_SORT_COLUMNS}` : '';
+    selects.push(frag(`select ${PUBLISHED_COLUMNS}${extra} from complex c where ${where.sql}`, ...where.params));
   }
   if (selects.length === 0) return frag('(select null::uuid as id where false)');
   const union = joinFragments(selects, ' union all ');
@@ -338,7 +370,7 @@ async function runSearch(
 ): Promise<ComplexListResponse> {
   // Scope, visibility and which copy each row is searched by live in the source; here the filters,
   // and the text terms separately, because a rank level's condition (rankLevels) stands in for them.
-  const source = searchSource(memberships, userId);
+  const source = searchSource(memberships, userId, { sortColumns: query.sort !== undefined });
   const from = (alias = 'c') => `${source.sql} ${alias}`;
   const filters: Fragment[] = [frag('true')];
   if (query.metal) filters.push(frag('c.metal = ?', query.metal));
@@ -349,6 +381,7 @@ async function runSearch(
   if (query.measurementKind) filters.push(frag('c.measurement_kinds @> array[?]::text[]', query.measurementKind));
   if (query.hasCitation !== undefined) filters.push(frag('c.has_citation = ?', query.hasCitation));
   if (query.status) filters.push(frag('c.status = ?', query.status));
+  if (query.ids) filters.push(frag(`c.id = any(string_to_array(?, ',')::uuid[])`, csv(query.ids)));
   const filterCondition = joinFragments(filters, ' and ');
 
   let rank = frag('null::real');
@@ -373,6 +406,28 @@ async function runSearch(
       pageSize: query.pageSize,
     }));
 
+  const countUpTo = async (limit: number) => {
+    // `limit` stops the scan: at most `limit` matches are visited.
+    const [row] = await em.execute<{ n: string | number }[]>(
+      `select count(*) as n from (select 1 from ${from()} where ${condition.sql} limit ?) x`,
+      [...source.params, ...condition.params, limit],
+    );
+    return Number(row?.n ?? 0);
+  };
+
+  if (query.sort) {
+    // A chosen column order (both strategies): count up to the limit, then sort the matches by
+    // the column (a top-N sort) and read the page; the id settles ties.
+    const matches = await countUpTo(countLimit + 1);
+    if (matches <= offset) return answer(matches, []);
+    const rows = await em.execute<{ id: string }[]>(
+      `select c.id from ${from()} where ${condition.sql}
+        order by ${sortOrderSql(query.sort, query.dir ?? 'asc')} limit ? offset ?`,
+      [...source.params, ...condition.params, query.pageSize, offset],
+    );
+    return answer(matches, rows.map((r) => r.id));
+  }
+
   if (terms.length === 0) {
     // Name then id, the order complex_search_by_name holds: one walk that stops after countLimit + 1
     // matches gives both the count and the page (its first rows).
@@ -387,15 +442,6 @@ async function runSearch(
     );
     return answer(Number(walk?.n ?? 0), walk?.ids ?? []);
   }
-
-  const countUpTo = async (limit: number) => {
-    // `limit` stops the scan: at most `limit` matches are visited.
-    const [row] = await em.execute<{ n: string | number }[]>(
-      `select count(*) as n from (select 1 from ${from()} where ${condition.sql} limit ?) x`,
-      [...source.params, ...condition.params, limit],
-    );
-    return Number(row?.n ?? 0);
-  };
 
   const levels = !fuzzy && strategy === 'auto' ? rankLevels(terms) : null;
   // One text word (three levels at most): the level probes below count as they go. More words
@@ -473,7 +519,34 @@ async function pageOf(em: EntityManager, ids: readonly string[], source: Fragmen
       left join app_user u on u.id = c.created_by_id
      order by p.ord`;
   const rows = await em.execute<Row[]>(sql, [csv(ids), ...rank.params, ...source.params]);
-  return rows.map(toListItem);
+  const workingIds = rows.filter((row) => row.full_view || !row.accepted_snapshot).map((row) => row.id);
+  const working = new Map<string, RateMeasurement[]>();
+  if (workingIds.length > 0) {
+    const measured = await em.execute<(RateMeasurement & { complex_id: string })[]>(
+      `select m.complex_id, m.kind, m.value, m.unit, m.temperature_k as "temperatureK"
+         from measurement m
+        where m.complex_id = any(string_to_array(?, ',')::uuid[])
+          and m.kind in ('water-exchange', 'ligand-exchange', 'substitution', 'half-life')
+        order by m.complex_id, m.created_at, m.id`,
+      [csv(workingIds)],
+    );
+    for (const m of measured) working.set(m.complex_id, [...(working.get(m.complex_id) ?? []), m]);
+  }
+  return rows.map((row) => {
+    const measurements = row.full_view || !row.accepted_snapshot ? working.get(row.id) ?? [] : row.accepted_snapshot.measurements;
+    return { ...toListItem(row), headlineRate: headlineRate(row.id, measurements) };
+  });
+}
+
+type RateMeasurement = { kind: string; value: number; unit: string; temperatureK: number | null };
+
+/** The measurement that would decide the entry's verdict at 25 °C (lib/chem/library-decision.ts), as a first-order k. */
+function headlineRate(entryId: string, measurements: readonly RateMeasurement[]): ComplexListItem['headlineRate'] {
+  const picked = pickDecidingMeasurement(
+    [{ entryId, entryName: '', entryFormula: '', measurements: measurements.map((m) => ({ ...m, value: Number(m.value), citation: null })) }],
+    ASSUMED_MEASUREMENT_TEMPERATURE_K,
+  );
+  return picked ? { kind: picked.kind, kPerSecond: picked.kPerSecond, temperatureK: picked.temperatureK } : null;
 }
 
 function toListItem(row: Row): ComplexListItem {
@@ -488,6 +561,7 @@ function toListItem(row: Row): ComplexListItem {
     rank: row.rank === null ? null : Number(row.rank),
     createdBy: personRef(people, row.created_by_id),
     updatedAt: new Date(row.updated_at).toISOString(),
+    headlineRate: null,
   };
   if (published) {
     return {
