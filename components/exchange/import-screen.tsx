@@ -11,7 +11,18 @@ import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, radius, spacing } from '@/components/ui/theme';
 import { FileRefusedError, isImportFinished, useImportJobQuery, useStartImportMutation, type PickedFile } from '@/lib/api/exchange';
-import { csvColumns, duplicateChoices, IMPORT_MAX_BYTES, type CsvColumn, type CsvMapping, type DuplicateChoice, type ImportIssue, type ImportJob } from '@/lib/schemas/exchange';
+import {
+  csvColumns,
+  duplicateChoices,
+  IMPORT_MAX_BYTES,
+  planCsvColumns,
+  type CsvColumn,
+  type CsvColumnPlan,
+  type CsvMapping,
+  type DuplicateChoice,
+  type ImportIssue,
+  type ImportJob,
+} from '@/lib/schemas/exchange';
 import { roleAtLeast } from '@/lib/schemas/groups';
 import { fileSizeText, importRefusalText } from './exchange-format';
 import { FilePickButton } from './file-picker';
@@ -134,8 +145,8 @@ function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }
     );
   };
 
-  const headers = dry?.columns.map((c) => c.header) ?? fileHeaders;
-  const detected: ColumnChoice = Object.fromEntries((dry?.columns ?? []).map((c) => [c.header, c.column]));
+  // The file's own header line as soon as it is read; the server's list when the browser could not read it.
+  const headers = fileHeaders.length > 0 ? fileHeaders : (dry?.columns.map((c) => c.header) ?? []);
   const refusal = start.error;
 
   if (run) {
@@ -187,7 +198,13 @@ function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }
         ) : null}
       </Card>
 
-      <Card title="2 · Check (dry run)">
+      {headers.length > 0 ? (
+        <Card title="2 · Columns" testID="import-mapping">
+          <ColumnMapping headers={headers} choices={choices} onChange={setChoices} />
+        </Card>
+      ) : null}
+
+      <Card title={headers.length > 0 ? '3 · Check (dry run)' : '2 · Check (dry run)'}>
         <AppText tone="soft">A dry run reads every row and reports problems. Nothing is written to the library.</AppText>
         <View style={styles.row}>
           <Button
@@ -221,13 +238,7 @@ function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }
         ) : null}
       </Card>
 
-      {headers.length > 0 ? (
-        <Card title="Columns" testID="import-mapping">
-          <ColumnMapping headers={headers} detected={detected} choices={choices} onChange={setChoices} />
-        </Card>
-      ) : null}
-
-      <Card title="3 · Import">
+      <Card title={headers.length > 0 ? '4 · Import' : '3 · Import'}>
         {dryClean && dry ? (
           <>
             <AppText tone="soft">
@@ -405,37 +416,54 @@ function IssueTable({ issues, total }: { issues: ImportIssue[]; total: number })
   );
 }
 
-function ColumnMapping({ headers, detected, choices, onChange }: {
+/** Our column → the words a person reads for it in the mapping. */
+const REQUIRED_WORDS: Partial<Record<CsvColumn, string>> = { formula: 'formula', name: 'name' };
+
+function ColumnMapping({ headers, choices, onChange }: {
   headers: string[];
-  detected: ColumnChoice;
   choices: ColumnChoice;
   onChange: (next: ColumnChoice) => void;
 }) {
   const [open, setOpen] = useState<string | null>(null);
-  const current = (header: string) => (header in choices ? (choices[header] ?? null) : (detected[header] ?? null));
+  // The same plan the server makes: recognised by name, the person's choices winning.
+  const recognised = useMemo(() => planCsvColumns(headers), [headers]);
+  const plan: CsvColumnPlan = useMemo(() => planCsvColumns(headers, mappingFromChoices(choices)), [headers, choices]);
+  const recognisedAs = (header: string) => recognised.columns.find((c) => c.header === header)?.column ?? null;
   const choose = (header: string, column: CsvColumn | null) => {
     const next: ColumnChoice = {};
     // One header per column: choosing a column for this header frees it elsewhere.
     for (const [h, c] of Object.entries(choices)) if (h !== header && (column === null || c !== column)) next[h] = c;
-    if (column !== null || detected[header] !== undefined) next[header] = column;
+    if (column !== null || recognisedAs(header) !== null) next[header] = column;
     onChange(next);
     setOpen(null);
   };
+  const problems = Object.values(plan.problems).filter((p): p is string => !!p);
   return (
     <View style={styles.mapping}>
       <AppText tone="soft">
-        Each header of your file and the Sphereline column it fills. Change one by tapping it, then check the file again. To skip a
-        column Sphereline recognises by name, rename its header in the file.
+        Each header of your file and the Sphereline column it fills, read from the file before anything is sent. Tap a column to
+        change it. To leave out a column Sphereline recognises by name, rename its header in the file.
       </AppText>
+      {plan.missing.length > 0 ? (
+        <FormError
+          message={`Missing: ${plan.missing.map((c) => REQUIRED_WORDS[c] ?? c).join(' and ')}. Every entry needs ${plan.missing.length === 1 ? 'this column' : 'these columns'}: choose ${plan.missing.length === 1 ? 'the header that holds it' : 'the headers that hold them'} below, or add ${plan.missing.length === 1 ? 'it' : 'them'} to the file.`}
+          testID="import-mapping-missing"
+        />
+      ) : (
+        <AppText variant="caption" tone="muted" testID="import-mapping-complete">The required columns (formula and name) are there.</AppText>
+      )}
+      {problems.map((problem) => (
+        <FormError key={problem} message={problem} testID="import-mapping-problem" />
+      ))}
       {headers.map((header, i) => {
-        const column = current(header);
+        const column = plan.columns[i]?.column ?? null;
         return (
           <View key={header || `h-${i}`} style={styles.mapRow} testID={`import-mapping-${i}`}>
             <View style={styles.mapHead}>
               <AppText style={styles.header} numberOfLines={1}>{header || '(empty header)'}</AppText>
-              <AppText tone="muted">→</AppText>
+              <AppText tone="muted" accessibilityLabel="fills">→</AppText>
               <Chip
-                label={column ?? 'not read'}
+                label={column ?? 'not used'}
                 mono={column !== null}
                 selected={open === header}
                 onPress={() => setOpen(open === header ? null : header)}
@@ -446,8 +474,8 @@ function ColumnMapping({ headers, detected, choices, onChange }: {
             {open === header ? (
               <View style={styles.chips}>
                 {/* The server's mapping names columns, not skips: a recognised header is read unless renamed. */}
-                {detected[header] ? null : (
-                  <Chip label="not read" selected={column === null} onPress={() => choose(header, null)} testID={`import-mapping-${i}-none`} />
+                {recognisedAs(header) ? null : (
+                  <Chip label="not used" selected={column === null} onPress={() => choose(header, null)} testID={`import-mapping-${i}-none`} />
                 )}
                 {csvColumns.map((c) => (
                   <Chip key={c} label={c} mono selected={column === c} onPress={() => choose(header, c)} testID={`import-mapping-${i}-${c}`} />

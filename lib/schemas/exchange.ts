@@ -76,6 +76,67 @@ export const csvColumnSynonyms: Readonly<Record<CsvColumn, readonly string[]>> =
 export const csvMappingSchema = z.partialRecord(csvColumnSchema, z.string().min(1).max(200));
 export type CsvMapping = z.infer<typeof csvMappingSchema>;
 
+/** The columns an import cannot do without. */
+export const csvRequiredColumns = ['formula', 'name'] as const satisfies readonly CsvColumn[];
+
+/** "Temperature (K)" → "temperaturek": lower case, without spaces, _ - . ( ) [ ] / and °. */
+export const normaliseCsvHeader = (header: string) => header.toLowerCase().replace(/[\s_\-.()[\]/°]+/g, '');
+
+const synonymIndex = new Map<string, CsvColumn>();
+for (const column of csvColumns) {
+  for (const synonym of [column, ...csvColumnSynonyms[column]]) {
+    const key = normaliseCsvHeader(synonym);
+    if (!synonymIndex.has(key)) synonymIndex.set(key, column);
+  }
+}
+
+/** The column a header names by itself (its name or a synonym), or null for a header the importer does not use. */
+export const csvColumnForHeader = (header: string): CsvColumn | null => synonymIndex.get(normaliseCsvHeader(header)) ?? null;
+
+/** How a file's headers map onto our columns, before any row is read. */
+export interface CsvColumnPlan {
+  /** Every header of the file in order, with the column it fills (null: not used). */
+  columns: { header: string; column: CsvColumn | null }[];
+  /** Our column → its index in the file. */
+  index: Partial<Record<CsvColumn, number>>;
+  /** Required columns that no header fills. */
+  missing: CsvColumn[];
+  /** Problems that stop the import: a mapping naming a header the file lacks, two headers for one column. Keyed by `mapping.<column>` or the column. */
+  problems: Partial<Record<string, string>>;
+}
+
+/**
+ * The one column mapping, used by the server before it reads any row and by the import screen as
+ * soon as a file is chosen: headers recognised by name and synonyms; the person's mapping wins
+ * where given (a header mapped explicitly fills only that column).
+ */
+export function planCsvColumns(headers: readonly string[], mapping: CsvMapping = {}): CsvColumnPlan {
+  const index: Partial<Record<CsvColumn, number>> = {};
+  const problems: Record<string, string> = {};
+  const explicit = new Set<number>();
+  for (const [column, header] of Object.entries(mapping) as [CsvColumn, string][]) {
+    const at = headers.findIndex((h) => h === header.trim());
+    if (at === -1) problems[`mapping.${column}`] = `The file has no column "${header}" (its headers are: ${headers.join(', ')}).`;
+    else {
+      index[column] = at;
+      explicit.add(at);
+    }
+  }
+  headers.forEach((header, at) => {
+    if (explicit.has(at)) return;
+    const column = csvColumnForHeader(header);
+    if (!column || column in mapping) return;
+    if (index[column] !== undefined) {
+      problems[column] = `Two columns mean "${column}": "${headers[index[column] as number]}" and "${header}". Rename one, or say which to use with mapping.`;
+      return;
+    }
+    index[column] = at;
+  });
+  const missing = csvRequiredColumns.filter((required) => index[required] === undefined);
+  const byIndex = new Map(Object.entries(index).map(([column, at]) => [at as number, column as CsvColumn]));
+  return { columns: headers.map((header, at) => ({ header, column: byIndex.get(at) ?? null })), index, missing, problems };
+}
+
 // ───────────────────────────── import ─────────────────────────────
 
 export const IMPORT_MAX_BYTES = 5 * 1024 * 1024;

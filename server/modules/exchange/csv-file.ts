@@ -1,5 +1,5 @@
 import { parse } from 'csv-parse/sync';
-import { csvColumns, csvColumnSynonyms, IMPORT_MAX_ROWS, type CsvColumn, type CsvMapping, type ImportIssue } from '@/lib/schemas/exchange';
+import { IMPORT_MAX_ROWS, planCsvColumns, type CsvColumn, type CsvMapping, type ImportIssue } from '@/lib/schemas/exchange';
 import { AppError } from '@/server/http/errors';
 import { binaryKindOf, binaryKindWords, decodeText } from '@/server/modules/attachments/file-sniff';
 import { readSpreadsheetCell } from './spreadsheet-safety';
@@ -86,17 +86,6 @@ export function readCsvTable(bytes: Buffer): CsvTable {
   return { headers, rows, rowNumbers };
 }
 
-/** "Temperature (K)" → "temperaturek": lower case, without spaces, _ - . ( ) [ ] / and °. */
-export const normaliseHeader = (header: string) => header.toLowerCase().replace(/[\s_\-.()[\]/°]+/g, '');
-
-const synonymIndex = new Map<string, CsvColumn>();
-for (const column of csvColumns) {
-  for (const synonym of [column, ...csvColumnSynonyms[column]]) {
-    const key = normaliseHeader(synonym);
-    if (!synonymIndex.has(key)) synonymIndex.set(key, column);
-  }
-}
-
 export interface ColumnMap {
   /** Our column → its index in the file. */
   index: Partial<Record<CsvColumn, number>>;
@@ -105,42 +94,21 @@ export interface ColumnMap {
   columns: { header: string; column: CsvColumn | null }[];
 }
 
-/** Headers recognised by name and synonyms; the person's mapping wins where given. */
+/** The shared column plan (lib/schemas/exchange.ts), refused with every problem when it cannot be used. */
 export function mapColumns(headers: readonly string[], mapping: CsvMapping = {}): ColumnMap {
-  const index: Partial<Record<CsvColumn, number>> = {};
-  const problems: Record<string, string> = {};
-  const explicit = new Set<number>();
-  for (const [column, header] of Object.entries(mapping) as [CsvColumn, string][]) {
-    const at = headers.findIndex((h) => h === header.trim());
-    if (at === -1) problems[`mapping.${column}`] = `The file has no column "${header}" (its headers are: ${headers.join(', ')}).`;
-    else {
-      index[column] = at;
-      explicit.add(at);
-    }
-  }
-  headers.forEach((header, at) => {
-    if (explicit.has(at)) return;
-    const column = synonymIndex.get(normaliseHeader(header));
-    if (!column || column in mapping) return;
-    if (index[column] !== undefined) {
-      problems[column] = `Two columns mean "${column}": "${headers[index[column] as number]}" and "${header}". Rename one, or say which to use with mapping.`;
-      return;
-    }
-    index[column] = at;
-  });
-  for (const required of ['formula', 'name'] as const) {
-    if (index[required] === undefined) {
-      problems[required] ??= `No column for "${required}" was found (headers: ${headers.join(', ') || 'none'}). Name a column "${required}" or map one with mapping={"${required}":"Your header"}.`;
-    }
+  const plan = planCsvColumns(headers, mapping);
+  const problems: Record<string, string> = { ...(plan.problems as Record<string, string>) };
+  for (const required of plan.missing) {
+    problems[required] ??= `No column for "${required}" was found (headers: ${headers.join(', ') || 'none'}). Name a column "${required}" or map one with mapping={"${required}":"Your header"}.`;
   }
   if (Object.keys(problems).length > 0) {
     const first = Object.values(problems)[0] as string;
     throw new AppError('VALIDATION_FAILED', `The columns of the file cannot be used: ${first}`, problems);
   }
-  const byIndex = new Map(Object.entries(index).map(([column, at]) => [at as number, column as CsvColumn]));
+  const { index } = plan;
   return {
     index,
     headerOf: (column) => (index[column] !== undefined ? (headers[index[column] as number] as string) : column),
-    columns: headers.map((header, at) => ({ header, column: byIndex.get(at) ?? null })),
+    columns: plan.columns,
   };
 }

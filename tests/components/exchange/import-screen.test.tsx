@@ -11,6 +11,11 @@ jest.mock('expo-router', () => require('../account/expo-router-mock').expoRouter
  * The file is the invented Larkspur Coordination Lab's rate sheet.
  */
 const CSV_TEXT = 'Complex,name,k,unit\n[Cr(H2O)6]3+,hexaaquachromium(III),2.4e-6,s-1\n';
+/** The text the picked file holds (a test may swap it before picking). */
+let mockCsvText = CSV_TEXT;
+beforeEach(() => {
+  mockCsvText = CSV_TEXT;
+});
 jest.mock('@/components/exchange/file-picker', () => {
   const { Pressable, Text } = require('react-native');
   return {
@@ -22,7 +27,7 @@ jest.mock('@/components/exchange/file-picker', () => {
             name: 'larkspur-rates.csv',
             sizeBytes: 2048,
             contentType: 'text/csv',
-            body: { slice: () => ({ text: async () => 'Complex,name,k,unit\n[Cr(H2O)6]3+,hexaaquachromium(III),2.4e-6,s-1\n' }) },
+            body: { slice: () => ({ text: async () => mockCsvText }) },
           })
         }
       >
@@ -136,6 +141,29 @@ describe('ImportScreen', () => {
     await waitFor(() => expect(calls.filter((c) => c.method === 'POST')).toHaveLength(2));
     const again = new URLSearchParams(calls.filter((c) => c.method === 'POST')[1]?.url.split('?')[1]);
     expect(JSON.parse(again.get('mapping') ?? '{}')).toEqual({ notes: 'k' });
+  });
+
+  it('shows each file column and the field it fills as soon as the file is chosen, before any dry run', async () => {
+    mockCsvText = 'Species,k,Units,Notebook page\n[Cr(H2O)6]3+,2.4e-6,s-1,L-14\n';
+    const calls = rawFetch({ 'GET /api/auth/session': { status: 200, body: { me: contributorMe } } });
+    renderWithQueries(<ImportScreen />);
+    fireEvent.press(await screen.findByTestId('import-pick'));
+    const mapping = await screen.findByTestId('import-mapping');
+    expect(screen.getByTestId('import-mapping-0')).toHaveTextContent(/^Species→formula/);
+    expect(screen.getByTestId('import-mapping-1')).toHaveTextContent(/^k→value/);
+    expect(screen.getByTestId('import-mapping-2')).toHaveTextContent(/^Units→unit/);
+    expect(screen.getByTestId('import-mapping-3')).toHaveTextContent(/^Notebook page→not used/);
+    expect(mapping).not.toHaveTextContent(/not read/);
+    expect(screen.getByTestId('import-mapping-missing')).toHaveTextContent(/Missing: name\./);
+    expect(calls.some((c) => c.method === 'POST')).toBe(false);
+
+    // Choosing the unused column for the name settles what was missing, still without a request.
+    fireEvent.press(screen.getByTestId('import-mapping-3-current'));
+    fireEvent.press(screen.getByTestId('import-mapping-3-name'));
+    expect(screen.getByTestId('import-mapping-3')).toHaveTextContent(/^Notebook page→namechanged/);
+    expect(screen.queryByTestId('import-mapping-missing')).toBeNull();
+    expect(screen.getByTestId('import-mapping-complete')).toBeTruthy();
+    expect(calls.some((c) => c.method === 'POST')).toBe(false);
   });
 
   it('says a refused file wrote nothing (415)', async () => {
