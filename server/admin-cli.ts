@@ -35,6 +35,7 @@ async function main() {
   const orm = await openOrm(url);
   try {
     await migrate(orm);
+    // A command-line run has no request context.
     const { link } = await createFirstAdmin(orm.em.fork(), parsed.data, env.appUrl);
     console.log(`Administrator ${parsed.data.email} created, admin of "${parsed.data.group}".`);
     console.log(`Send them this link; it works once, within ${FIRST_ADMIN_LINK_HOURS} hours, to choose a password:`);

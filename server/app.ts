@@ -2,6 +2,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { ChangeFeed } from './db/change-feed';
 import type { Orm } from './db/orm';
+import { requestContext } from './db/request-context';
 import { developmentTools } from './development-tools';
 import { readEnv, type Env } from './env';
 import { attachAccounts, originCheck } from './http/auth-middleware';
@@ -110,22 +111,24 @@ export function createApp({ orm, webDir, logRequests = false, ...options }: AppO
 
   const api = express.Router();
   if (logRequests) api.use(requestLog());
+  // One entity manager per request (MikroORM's RequestContext), before anything that reads the database.
+  api.use(requestContext(orm));
   api.use(originCheck(accounts.appUrl));
   api.use(attachAccounts(accounts));
   api.use(express.json({ limit: '1mb', strict: true }));
   api.use(rejectUnstorableText);
   api.use(healthRoutes(orm));
-  api.use(chemRoutes(orm));
+  api.use(chemRoutes());
   api.use(authRoutes(accounts));
   api.use(groupRoutes(accounts));
-  api.use(preferencesRoutes(orm));
+  api.use(preferencesRoutes());
   api.use(metadataRoutes(metadata));
   api.use(exchangeRoutes(orm));
-  api.use(attachmentRoutes(orm, storage));
+  api.use(attachmentRoutes(storage));
   api.use(libraryRoutes(orm, options.changeFeed));
   // The outbox exists only where the development tools are loaded, never in production.
   const dev = developmentTools(env.NODE_ENV);
-  if (dev) api.use(dev.outboxRoutes(orm));
+  if (dev) api.use(dev.outboxRoutes());
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -22,7 +22,7 @@ export interface DevelopmentTools {
   /** A fake bibliographic metadata service on 127.0.0.1; the URL to give the metadata client. */
   startFakeMetadataService(): Promise<{ url: string }>;
   /** GET /dev/outbox: what the mail sink received (loopback Host only). */
-  outboxRoutes(orm: Orm): Router;
+  outboxRoutes(): Router;
 }
 
 let registered: DevelopmentTools | null = null;

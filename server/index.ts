@@ -52,6 +52,7 @@ async function main() {
   if (env.NODE_ENV === 'production') {
     // Production never seeds the demo, and will not run with a demo account that opens with the
     // published password (a database copied from a demo installation, say).
+    // Start-up, before any request: a fork of its own.
     const open = await demoAccountsWithDemoPassword(orm.em.fork());
     if (open.length > 0) {
       await orm.close(true);

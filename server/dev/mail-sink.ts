@@ -23,6 +23,7 @@ export async function startMailSink(orm: Orm, options: { keepProcessAlive?: bool
       const chunks: Buffer[] = [];
       stream.on('data', (chunk: Buffer) => chunks.push(chunk));
       stream.on('end', () => {
+        // An SMTP delivery, not an HTTP request: no request context here.
         const em = orm.em.fork();
         const mailFrom = session.envelope.mailFrom;
         em.create(DevOutboxMessage, {

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { Orm } from '@/server/db/orm';
+import { requestEm } from '@/server/db/request-context';
 import { isLoopbackHost } from '@/server/http/host-allow-list';
 import { extractLinks, parseMail } from '@/server/modules/mail/mime';
 import { DevOutboxMessage } from '@/server/modules/mail/outbox-message.entity';
@@ -27,12 +27,12 @@ function outboxPage(messages: { receivedAt: string; to: string[]; subject: strin
  * (or a test) can follow the links. Only mounted outside production, and it answers only requests
  * addressed to a loopback host (127.0.0.1, localhost): the links in it take over accounts.
  */
-export function devOutboxRoutes(orm: Orm): Router {
+export function devOutboxRoutes(): Router {
   const router = Router();
   router.get('/dev/outbox', async (req, res, next) => {
     if (!isLoopbackHost(req)) return next();
     const to = typeof req.query.to === 'string' ? req.query.to.trim().toLowerCase() : null;
-    const rows = await orm.em.fork().find(DevOutboxMessage, {}, { orderBy: { receivedAt: 'desc' }, limit: 200 });
+    const rows = await requestEm().find(DevOutboxMessage, {}, { orderBy: { receivedAt: 'desc' }, limit: 200 });
     const messages = rows
       .filter((row) => !to || row.recipients.includes(to))
       .map((row) => {

@@ -1,6 +1,6 @@
 import { Router, type Request, type Response } from 'express';
 import { ATTACHMENT_MAX_BYTES, attachmentUploadQuerySchema } from '@/lib/schemas/exchange';
-import type { Orm } from '@/server/db/orm';
+import { requestEm } from '@/server/db/request-context';
 import { getAuth, isUuid, requireAuth } from '@/server/http/auth-middleware';
 import { AppError } from '@/server/http/errors';
 import { parseWith } from '@/server/http/validate';
@@ -21,26 +21,26 @@ export function contentDisposition(fileName: string): string {
 }
 
 /** Files on a library entry: /api/complexes/:id/attachments[/:attachmentId]. */
-export function attachmentRoutes(orm: Orm, storage: ObjectStorage): Router {
+export function attachmentRoutes(storage: ObjectStorage): Router {
   const router = Router();
   const userId = (res: Response) => getAuth(res).user.id;
 
   router.get('/complexes/:id/attachments', requireAuth, async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
-    res.json({ attachments: await listAttachments(orm.em.fork(), userId(res), id) });
+    res.json({ attachments: await listAttachments(requestEm(), userId(res), id) });
   });
 
   router.post('/complexes/:id/attachments', requireAuth, async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     const query = parseWith(attachmentUploadQuerySchema, req.query, 'query');
     const bytes = await readRawBody(req, res, ATTACHMENT_MAX_BYTES, 'file');
-    res.status(201).json(await addAttachment(orm.em.fork(), storage, userId(res), id, query, bytes));
+    res.status(201).json(await addAttachment(requestEm(), storage, userId(res), id, query, bytes));
   });
 
   router.get('/complexes/:id/attachments/:attachmentId', requireAuth, async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     const attachmentId = pathId(req, 'attachmentId', 'That attachment');
-    const { attachment, body } = await openAttachment(orm.em.fork(), storage, userId(res), id, attachmentId);
+    const { attachment, body } = await openAttachment(requestEm(), storage, userId(res), id, attachmentId);
     res.status(200);
     res.setHeader('Content-Type', attachment.contentType);
     res.setHeader('Content-Length', String(attachment.sizeBytes));
@@ -60,7 +60,7 @@ export function attachmentRoutes(orm: Orm, storage: ObjectStorage): Router {
   router.delete('/complexes/:id/attachments/:attachmentId', requireAuth, async (req, res) => {
     const id = pathId(req, 'id', 'That library entry');
     const attachmentId = pathId(req, 'attachmentId', 'That attachment');
-    await deleteAttachment(orm.em.fork(), storage, userId(res), id, attachmentId);
+    await deleteAttachment(requestEm(), storage, userId(res), id, attachmentId);
     res.status(204).end();
   });
 

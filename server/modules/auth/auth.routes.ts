@@ -17,6 +17,7 @@ import {
   resolveAuth,
   startSession,
 } from '@/server/http/auth-middleware';
+import { requestEm } from '@/server/db/request-context';
 import { AppError } from '@/server/http/errors';
 import { parseWith } from '@/server/http/validate';
 import type { AccountsContext, RequestMeta } from './auth-context';
@@ -40,7 +41,7 @@ export const retryAfterHeader: ErrorRequestHandler = (error, _req, res, next) =>
 
 export function authRoutes(ctx: AccountsContext): Router {
   const router = Router();
-  const em = () => ctx.orm.em.fork();
+  const em = requestEm;
 
   router.post('/auth/sign-up', async (req, res) => {
     const input = parseWith(signUpInputSchema, req.body);

@@ -56,6 +56,8 @@ const SESSION_LOOKUP_SQL = `
  * lucia v3 adapter over MikroORM (PLATFORM trap 11). Session ids are stored as their SHA-256:
  * lucia hands the adapter the secret id, the adapter hashes it on the way in. Only the two
  * public user fields are returned to lucia, never the password hash.
+ * Each call forks its own manager: lucia also runs outside requests (sign-out everywhere, expiry
+ * clean-up), and a session row must not linger in a request's unit of work.
  */
 export class MikroOrmSessionAdapter implements Adapter {
   /** Session lookups by hashed id, dropped whenever a session, person, group or membership changes. */

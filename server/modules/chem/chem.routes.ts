@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { classifyRequestSchema, formationRequestSchema, marcusRequestSchema, routeRequestSchema, sequenceRequestSchema } from '@/lib/schemas/chem';
-import type { Orm } from '@/server/db/orm';
+import { requestEm } from '@/server/db/request-context';
 import { isUuid, resolveAuth } from '@/server/http/auth-middleware';
 import { AppError } from '@/server/http/errors';
 import { parseWith } from '@/server/http/validate';
@@ -10,7 +10,7 @@ import * as chem from './chem.service';
  * The public engine endpoints: no sign-in and no database, except POST /api/classify with a
  * `groupId`, where the signed-in member's group library decides for the species it has measured.
  */
-export function chemRoutes(orm: Orm): Router {
+export function chemRoutes(): Router {
   const router = Router();
   router.post('/classify', async (req, res) => {
     const request = parseWith(classifyRequestSchema, req.body);
@@ -23,7 +23,7 @@ export function chemRoutes(orm: Orm): Router {
     if (!auth) throw new AppError('UNAUTHENTICATED', 'Sign in to classify against your group’s library (groupId).');
     const wanted = isUuid(request.groupId) ? request.groupId.toLowerCase() : '';
     if (!auth.user.memberships.some((m) => m.groupId === wanted)) throw new AppError('NOT_FOUND', 'That group was not found.');
-    res.json(await chem.decideWithLibrary(orm.em.fork(), wanted, answer));
+    res.json(await chem.decideWithLibrary(requestEm(), wanted, answer));
   });
   router.post('/route', (req, res) => {
     res.json(chem.route(parseWith(routeRequestSchema, req.body)));

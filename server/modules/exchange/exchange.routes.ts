@@ -1,6 +1,7 @@
 import { Router, type Response } from 'express';
 import { exportQuerySchema, IMPORT_MAX_BYTES, importQuerySchema } from '@/lib/schemas/exchange';
 import type { Orm } from '@/server/db/orm';
+import { requestEm } from '@/server/db/request-context';
 import { getAuth, isUuid, requireAuth } from '@/server/http/auth-middleware';
 import { AppError } from '@/server/http/errors';
 import { parseWith } from '@/server/http/validate';
@@ -51,28 +52,28 @@ export function exchangeRoutes(orm: Orm): Router {
     const id = req.params.id;
     if (!isUuid(id)) throw new AppError('NOT_FOUND', 'That import was not found.');
     res.setHeader('Cache-Control', 'no-store');
-    res.json(await getImportJob(orm.em.fork(), userId(res), id));
+    res.json(await getImportJob(requestEm(), userId(res), id));
   });
 
   const stamp = () => new Date().toISOString().slice(0, 10);
 
   router.get('/exports/library.csv', requireAuth, async (req, res) => {
     const query = parseWith(exportQuerySchema, req.query, 'query');
-    const snapshots = await visibleSnapshots(orm.em.fork(), userId(res), query);
+    const snapshots = await visibleSnapshots(requestEm(), userId(res), query);
     res.setHeader('Content-Disposition', `attachment; filename="sphereline-library-${stamp()}.csv"`);
     res.type('text/csv; charset=utf-8').send(snapshotsAsCsv(snapshots));
   });
 
   router.get('/exports/citations.bib', requireAuth, async (req, res) => {
     const query = parseWith(exportQuerySchema, req.query, 'query');
-    const citations = citationsOf(await visibleSnapshots(orm.em.fork(), userId(res), query));
+    const citations = citationsOf(await visibleSnapshots(requestEm(), userId(res), query));
     res.setHeader('Content-Disposition', `attachment; filename="sphereline-citations-${stamp()}.bib"`);
     res.type('application/x-bibtex; charset=utf-8').send(citationsAsBibtex(citations));
   });
 
   router.get('/exports/citations.ris', requireAuth, async (req, res) => {
     const query = parseWith(exportQuerySchema, req.query, 'query');
-    const citations = citationsOf(await visibleSnapshots(orm.em.fork(), userId(res), query));
+    const citations = citationsOf(await visibleSnapshots(requestEm(), userId(res), query));
     res.setHeader('Content-Disposition', `attachment; filename="sphereline-citations-${stamp()}.ris"`);
     res.type('application/x-research-info-systems; charset=utf-8').send(citationsAsRis(citations));
   });

@@ -161,6 +161,7 @@ async function groupFor(em: EntityManager, userId: string, groupId: string | und
  * it only with ?wait=true). Throws 4xx for a file that cannot be read at all.
  */
 export async function startImport(orm: Orm, request: ImportRequest, bytes: Buffer): Promise<{ job: ImportJobDto; done: Promise<ImportJobDto> }> {
+  // The job outlives the request (it runs on after the 202): the runner forks its own managers.
   const em = orm.em.fork();
   const membership = await groupFor(em, request.userId, request.groupId);
   const table = readCsvTable(bytes);

@@ -6,6 +6,7 @@ import {
   updateMemberInputSchema,
 } from '@/lib/schemas/groups';
 import { getAuth, getMembership, isUuid, requireAuth, requireGroupRole } from '@/server/http/auth-middleware';
+import { requestEm } from '@/server/db/request-context';
 import { AppError } from '@/server/http/errors';
 import { parseWith } from '@/server/http/validate';
 import type { AccountsContext } from '@/server/modules/auth/auth-context';
@@ -19,7 +20,7 @@ function pathId(value: unknown, what: string): string {
 
 export function groupRoutes(ctx: AccountsContext): Router {
   const router = Router();
-  const em = () => ctx.orm.em.fork();
+  const em = requestEm;
 
   router.get('/groups', requireAuth, async (_req, res) => {
     res.json({ groups: await groups.listMyGroups(em(), getAuth(res).user.id) });

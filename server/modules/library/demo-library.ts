@@ -74,6 +74,7 @@ export interface DemoLibraryResult {
 }
 
 export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLibraryResult> {
+  // Seeding runs at start-up, outside any request.
   const em = (coreEm as EntityManager).fork();
   const group = await em.findOne(ResearchGroup, { name: DEMO_GROUPS.larkspur });
   if (!group) return { complexes: 0, measurements: 0 };

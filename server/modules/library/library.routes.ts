@@ -19,6 +19,7 @@ import { z } from 'zod';
 import { complexFacetsQuerySchema, type ComplexFacets } from '@/lib/schemas/library-facets';
 import { FeedCache, type ChangeFeed } from '@/server/db/change-feed';
 import type { Orm } from '@/server/db/orm';
+import { requestEm } from '@/server/db/request-context';
 import { getAuth, getMembership, isUuid, requireAuth, requireGroupRole } from '@/server/http/auth-middleware';
 import { AppError } from '@/server/http/errors';
 import { idempotent } from '@/server/http/idempotency';
@@ -58,7 +59,7 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
   const router = Router();
   const searches = searchCache(changeFeed);
   const facetCache = changeFeed ? new FeedCache<ComplexFacets>(changeFeed, ['library'], { maxEntries: 500, ttlMs: 30_000 }) : null;
-  const em = () => orm.em.fork();
+  const em = requestEm;
   const actor = (res: Parameters<typeof getAuth>[0]) => ({ userId: getAuth(res).user.id });
   // Writes accept an Idempotency-Key; a retry gets the first result (or the entry as it is now).
   const once = (status: number) => idempotent(orm, status, (_req, res, id) => complexes.getComplex(em(), actor(res), id));

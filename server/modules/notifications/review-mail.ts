@@ -40,6 +40,7 @@ export function createReviewMail(orm: Orm, mailer: Mailer, appUrl: string): Revi
   const pending = new Set<Promise<void>>();
 
   async function deliver(event: LibraryEvent) {
+    // Runs after the change committed, possibly after the response: its own manager, not the request's.
     const em = orm.em.fork();
     const group = await em.findOne(ResearchGroup, { id: event.groupId });
     const actor = await em.findOne(User, { id: event.actorId });
