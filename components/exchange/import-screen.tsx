@@ -7,8 +7,10 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Chip } from '@/components/ui/chip';
 import { FormError } from '@/components/ui/form-error';
+import { FormulaText } from '@/components/ui/formula-text';
 import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/text';
+import { StatusPill } from '@/components/ui/verdict-badge';
 import { colors, fonts, radius, spacing } from '@/components/ui/theme';
 import { FileRefusedError, isImportFinished, useImportJobQuery, useStartImportMutation, type PickedFile } from '@/lib/api/exchange';
 import {
@@ -23,7 +25,7 @@ import {
   type ImportIssue,
   type ImportJob,
 } from '@/lib/schemas/exchange';
-import { roleAtLeast } from '@/lib/schemas/groups';
+import { roleAtLeast, type Role } from '@/lib/schemas/groups';
 import { fileSizeText, importRefusalText } from './exchange-format';
 import { FilePickButton } from './file-picker';
 
@@ -85,10 +87,10 @@ export function ImportScreen() {
       </Screen>
     );
   }
-  return <ImportFlow groups={groups.map((g) => ({ groupId: g.groupId, groupName: g.groupName }))} />;
+  return <ImportFlow groups={groups.map((g) => ({ groupId: g.groupId, groupName: g.groupName, role: g.role }))} />;
 }
 
-function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }[] }) {
+function ImportFlow({ groups }: { groups: { groupId: string; groupName: string; role: Role }[] }) {
   const [file, setFile] = useState<PickedFile | null>(null);
   const [fileHeaders, setFileHeaders] = useState<string[]>([]);
   const [groupId, setGroupId] = useState<string | null>(groups.length === 1 ? (groups[0]?.groupId ?? null) : null);
@@ -110,14 +112,21 @@ function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }
   const run = runJob.data;
   const tooLarge = !!file && file.sizeBytes > IMPORT_MAX_BYTES;
 
-  const pick = (picked: PickedFile) => {
-    setFile(picked);
+  const clear = () => {
+    setFile(null);
     setChoices({});
     setDryJobId(null);
     setRunJobId(null);
     setCheckedMapping(null);
     setFileHeaders([]);
+    setDuplicatesChoice('skip');
+    setRowChoices({});
     start.reset();
+  };
+
+  const pick = (picked: PickedFile) => {
+    clear();
+    setFile(picked);
     // The header line lets people map columns even when the server refuses the file's headers.
     try {
       void picked.body
@@ -153,7 +162,12 @@ function ImportFlow({ groups }: { groups: { groupId: string; groupName: string }
     return (
       <Screen maxWidth={880}>
         <ImportHeading />
-        <RunStatus job={run} onAnother={() => pick(file as PickedFile)} />
+        <RunStatus
+          job={run}
+          canReview={roleAtLeast(groups.find((g) => g.groupId === run.groupId)?.role ?? 'viewer', 'curator')}
+          onAnother={() => pick(file as PickedFile)}
+          onFresh={clear}
+        />
       </Screen>
     );
   }
@@ -489,12 +503,17 @@ function ColumnMapping({ headers, choices, onChange }: {
   );
 }
 
-function RunStatus({ job, onAnother }: { job: ImportJob; onAnother: () => void }) {
+/** At most this many created entries are listed one by one; the rest are in the library. */
+const CREATED_SHOWN = 50;
+
+function RunStatus({ job, canReview, onAnother, onFresh }: { job: ImportJob; canReview: boolean; onAnother: () => void; onFresh: () => void }) {
   if (!isImportFinished(job)) {
     return (
       <Card title="Importing">
         <JobProgress job={job} label={job.state === 'importing' ? 'Writing entries…' : 'Reading rows…'} />
-        <AppText variant="caption" tone="muted">You can leave this page; the import carries on and its entries appear in the review queue.</AppText>
+        <AppText variant="caption" tone="muted">
+          You can leave this page; the import carries on and its entries appear in the library, submitted for review.
+        </AppText>
       </Card>
     );
   }
@@ -511,6 +530,9 @@ function RunStatus({ job, onAnother }: { job: ImportJob; onAnother: () => void }
       </Card>
     );
   }
+  const merged = job.duplicates.filter((d) => d.choice === 'merge');
+  const skipped = job.duplicates.filter((d) => d.choice === 'skip');
+  const createdByRow = new Map(job.created.map((c) => [c.row, c]));
   return (
     <Card title="Imported">
       <View testID="import-done" style={styles.section}>
@@ -518,10 +540,70 @@ function RunStatus({ job, onAnother }: { job: ImportJob; onAnother: () => void }
           tone="done"
           message={`${job.entryCount} ${job.entryCount === 1 ? 'entry' : 'entries'} with ${job.measurementCount} ${job.measurementCount === 1 ? 'measurement' : 'measurements'} were added and submitted for review.`}
         />
+        {job.created.length > 0 ? (
+          <View style={styles.section}>
+            <AppText variant="lead" accessibilityRole="header">Created</AppText>
+            <View accessibilityRole="list" testID="import-created">
+              {job.created.slice(0, CREATED_SHOWN).map((entry, i) => (
+                <View key={entry.id} style={styles.createdRow} testID={`import-created-${i}`}>
+                  <View style={styles.createdFormula}>
+                    <FormulaText formula={entry.formula} />
+                  </View>
+                  <View style={styles.createdName}>
+                    <TextLink href={`/library/${entry.id}`} testID={`import-created-${i}-link`}>{entry.name}</TextLink>
+                  </View>
+                  <StatusPill status={entry.status} />
+                </View>
+              ))}
+            </View>
+            {job.created.length > CREATED_SHOWN ? (
+              <AppText variant="caption" tone="muted" testID="import-created-more">
+                The first {CREATED_SHOWN} of {job.created.length} are listed; every one is in the library.
+              </AppText>
+            ) : null}
+          </View>
+        ) : null}
+        {merged.length > 0 ? (
+          <View style={styles.section} testID="import-merged">
+            <AppText variant="lead" accessibilityRole="header">Added to existing entries</AppText>
+            {merged.map((d) => {
+              const target = d.existing ? { id: d.existing.id, name: d.existing.name } : (() => {
+                const earlier = d.sameAsRow === null ? undefined : createdByRow.get(d.sameAsRow);
+                return earlier ? { id: earlier.id, name: earlier.name } : null;
+              })();
+              return (
+                <View key={d.row} style={styles.createdRow} testID={`import-merged-${d.row}`}>
+                  <AppText>Row {d.row}: the measurements of</AppText>
+                  <FormulaText formula={d.formula} />
+                  <AppText>went to</AppText>
+                  {target ? <TextLink href={`/library/${target.id}`}>{target.name}</TextLink> : <AppText>the entry of row {d.sameAsRow}</AppText>}
+                </View>
+              );
+            })}
+          </View>
+        ) : null}
+        {skipped.length > 0 ? (
+          <View style={styles.section} testID="import-skipped">
+            <AppText variant="lead" accessibilityRole="header">Skipped</AppText>
+            {skipped.map((d) => (
+              <View key={d.row} style={styles.createdRow} testID={`import-skipped-${d.row}`}>
+                <AppText>Row {d.row}:</AppText>
+                <FormulaText formula={d.formula} />
+                <AppText>{d.existing ? `already in the library as “${d.existing.name}”` : `the same species as row ${d.sameAsRow}`}</AppText>
+              </View>
+            ))}
+          </View>
+        ) : null}
         <View style={styles.row}>
-          <TextLink href="/review" testID="import-to-review">Open the review queue</TextLink>
-          <TextLink href="/library" testID="import-to-library">Back to the library</TextLink>
+          {canReview ? <TextLink href="/review" testID="import-to-review">Open the review queue</TextLink> : null}
+          <TextLink href="/library" testID="import-to-library">Open the library</TextLink>
+          <Button label="Import another file" kind="quiet" onPress={onFresh} testID="import-another" />
         </View>
+        {canReview ? null : (
+          <AppText variant="caption" tone="muted" testID="import-review-note">
+            Your group’s curators review the new entries; you can open and edit them meanwhile.
+          </AppText>
+        )}
       </View>
     </Card>
   );
@@ -552,4 +634,7 @@ const styles = StyleSheet.create({
   mapRow: { gap: spacing.xs, paddingVertical: spacing.xs, borderTopWidth: 1, borderTopColor: colors.line },
   mapHead: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
   header: { fontFamily: fonts.mono, maxWidth: 260 },
+  createdRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm, paddingVertical: spacing.xs, borderTopWidth: 1, borderTopColor: colors.line },
+  createdFormula: { minWidth: 140 },
+  createdName: { flexShrink: 1 },
 });

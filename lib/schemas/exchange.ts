@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { complexSearchQuerySchema, doiSchema } from './library';
+import { complexSearchQuerySchema, complexStatusSchema, doiSchema } from './library';
 
 /**
  * Library exchange: CSV import/export, citation export (BibTeX, RIS), DOI look-up,
@@ -220,6 +220,16 @@ export const importDuplicateSchema = z.object({
 });
 export type ImportDuplicate = z.infer<typeof importDuplicateSchema>;
 
+/** An entry a finished import wrote: its id, the file row it came from, and how it reads in the library. */
+export const importCreatedEntrySchema = z.object({
+  id: z.string(),
+  row: z.number().int(),
+  formula: z.string(),
+  name: z.string(),
+  status: complexStatusSchema,
+});
+export type ImportCreatedEntry = z.infer<typeof importCreatedEntrySchema>;
+
 /** GET /api/imports/:id (and the answer to POST /api/imports). Poll until `state` is succeeded or failed. */
 export const importJobSchema = z.object({
   id: z.string(),
@@ -239,6 +249,11 @@ export const importJobSchema = z.object({
   entryCount: z.number().int(),
   measurementCount: z.number().int(),
   complexIds: z.array(z.string()),
+  /**
+   * The entries a finished import created, in file order (empty for a dry run). Entries merged into
+   * one already in the library, and skipped ones, are the `duplicates` with choice merge or skip.
+   */
+  created: z.array(importCreatedEntrySchema),
   /** Entries of the same species as one in the library or earlier in the file, with the choice applied. */
   duplicates: z.array(importDuplicateSchema),
   message: z.string().nullable(),

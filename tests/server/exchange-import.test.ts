@@ -112,6 +112,44 @@ describe('import', () => {
     expect(queue.items.map((i) => i.id)).toEqual(expect.arrayContaining(job.complexIds));
   });
 
+  it('the finished job names each entry it created (id, file row, formula, name, status); each opens for the contributor who imported it', async () => {
+    const file = Buffer.from(
+      [
+        'entry,formula,name,kind,value,unit,temperature_K',
+        'a,[Ni(H2O)6]2+,created list nickel,water-exchange,3.2e4,s-1,298.15',
+        'b,[V(H2O)6]2+,created list vanadium,,,,',
+        'b,[V(H2O)6]2+,created list vanadium,water-exchange,87,s-1,298.15',
+        'c,[Mn(H2O)6]2+,created list manganese,,,,',
+      ].join('\n') + '\n',
+    );
+    // [Ni(H2O)6]2+ 3.2e4 s-1 and [V(H2O)6]2+ 87 s-1 at 298 K: water exchange (Helm & Merbach, Chem. Rev. 2005, 105, 1923; from memory).
+    const dry = importJobSchema.parse((await upload(t.app, w.author, importPath({ dryRun: 'true' }), file)).body);
+    expect(dry.created).toEqual([]);
+    const job = importJobSchema.parse((await upload(t.app, w.author, importPath(), file)).body);
+    expect(job.state).toBe('succeeded');
+    expect(job.created.map(({ row, formula, name, status }) => ({ row, formula, name, status }))).toEqual([
+      { row: 2, formula: '[Ni(H2O)6]2+', name: 'created list nickel', status: 'in-review' },
+      { row: 3, formula: '[V(H2O)6]2+', name: 'created list vanadium', status: 'in-review' },
+      { row: 5, formula: '[Mn(H2O)6]2+', name: 'created list manganese', status: 'in-review' },
+    ]);
+    expect(job.created.map((c) => c.id)).toEqual(job.complexIds);
+    for (const entry of job.created) {
+      const opened = await w.author.get(`/api/complexes/${entry.id}`);
+      expect(opened.status).toBe(200);
+      expect(complexDetailSchema.parse(opened.body)).toMatchObject({ formula: entry.formula, name: entry.name, status: 'in-review' });
+    }
+    // Polling later gives the same list.
+    expect(importJobSchema.parse((await w.author.get(`/api/imports/${job.id}`)).body).created).toEqual(job.created);
+  });
+
+  it('a curator’s import names its created entries too; skipped repeats are left out of the list and stay in duplicates', async () => {
+    const file = Buffer.from(['formula,name', '[Co(NH3)5Cl]2+,curator created cobalt', '[Co(NH3)5Cl]2+,curator created cobalt again'].join('\n') + '\n');
+    const job = importJobSchema.parse((await upload(t.app, w.curator, importPath(), file)).body);
+    expect(job.state).toBe('succeeded');
+    expect(job.created.map((c) => [c.row, c.name])).toEqual([[2, 'curator created cobalt']]);
+    expect(job.duplicates.map((d) => [d.row, d.choice, d.sameAsRow])).toEqual([[3, 'skip', 2]]);
+  });
+
   it('is all or nothing: a mistake on the last row writes nothing at all', async () => {
     const good = fixture('import-valid.csv').toString('utf8').trimEnd();
     const csv = `${good}\n4,[Fe(H2O)6]3+,hexaaquairon(III),,water-exchange,160,M-1 s-1,298,,,,,,,,,,,,\n`;
@@ -189,11 +227,11 @@ describe('interrupted imports', () => {
     const old = new Date(Date.now() - ABANDONED_AFTER_MS - 1000);
     const job = em.create(ImportJob, {
       groupId: w.groupId, createdById: w.ids.author, fileName: 'killed.csv', dryRun: false, state: 'importing', processed: 10, total: 100,
-      columns: [], errorCount: 0, errors: [], entryCount: 0, measurementCount: 0, complexIds: [], message: null, heartbeatAt: old, finishedAt: null,
+      columns: [], errorCount: 0, errors: [], entryCount: 0, measurementCount: 0, complexIds: [], created: [], message: null, heartbeatAt: old, finishedAt: null,
     });
     const fresh = em.create(ImportJob, {
       groupId: w.groupId, createdById: w.ids.author, fileName: 'running.csv', dryRun: false, state: 'importing', processed: 10, total: 100,
-      columns: [], errorCount: 0, errors: [], entryCount: 0, measurementCount: 0, complexIds: [], message: null, heartbeatAt: new Date(), finishedAt: null,
+      columns: [], errorCount: 0, errors: [], entryCount: 0, measurementCount: 0, complexIds: [], created: [], message: null, heartbeatAt: new Date(), finishedAt: null,
     });
     await em.flush();
     const polled = (await w.author.get(`/api/imports/${job.id}`)).body;

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { defineEntity, p } from '@mikro-orm/core';
-import type { CsvColumn, ImportDuplicate, ImportIssue, ImportState } from '@/lib/schemas/exchange';
+import type { CsvColumn, ImportCreatedEntry, ImportDuplicate, ImportIssue, ImportState } from '@/lib/schemas/exchange';
 
 /**
  * A CSV import (or dry run) and its progress. Kept in PostgreSQL so every server process can answer
@@ -25,6 +25,7 @@ export const ImportJob = defineEntity({
     entryCount: p.integer(),
     measurementCount: p.integer(),
     complexIds: p.json<string[]>(),
+    created: p.json<ImportCreatedEntry[]>().onCreate(() => []),
     duplicates: p.json<ImportDuplicate[]>().onCreate(() => []),
     message: p.text().nullable(),
     heartbeatAt: p.datetime(),

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import type { InferEntity } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { roleAtLeast } from '@/lib/schemas/groups';
-import type { CsvMapping, DuplicateChoice, ImportDuplicate, ImportIssue, ImportJob as ImportJobDto } from '@/lib/schemas/exchange';
+import type { CsvMapping, DuplicateChoice, ImportCreatedEntry, ImportDuplicate, ImportIssue, ImportJob as ImportJobDto } from '@/lib/schemas/exchange';
 import type { Citation as CitationDto, CitationInput, ComplexSnapshot, Measurement as MeasurementDto } from '@/lib/schemas/library';
 import type { Orm } from '@/server/db/orm';
 import { AppError, notFound } from '@/server/http/errors';
@@ -127,6 +127,7 @@ export function toImportJobDto(job: ImportJobEntity): ImportJobDto {
     entryCount: job.entryCount,
     measurementCount: job.measurementCount,
     complexIds: job.complexIds,
+    created: job.created ?? [],
     duplicates: job.duplicates ?? [],
     message: abandoned ? abandonedMessage : job.message ?? null,
     createdAt: job.createdAt.toISOString(),
@@ -183,6 +184,7 @@ export async function startImport(orm: Orm, request: ImportRequest, bytes: Buffe
     entryCount: 0,
     measurementCount: 0,
     complexIds: [],
+    created: [],
     message: null,
     heartbeatAt: now,
     createdAt: now,
@@ -254,7 +256,7 @@ async function runJob(
     }
     await em.nativeUpdate(ImportJob, { id: job.id }, { state: 'importing', processed: 0, heartbeatAt: new Date(), updatedAt: new Date() });
     const plan = applyDuplicateChoices(result.entries, duplicates);
-    const complexIds = await writeEntries(orm, job, request.userId, plan.write, plan.merges);
+    const created = await writeEntries(orm, job, request.userId, plan.write, plan.merges);
     const written = { entryCount: plan.write.length, measurementCount: plan.write.reduce((n, e) => n + e.measurements.length, 0) };
     const mergedInto = plan.merges.size ? ` Measurements of ${[...plan.merges.values()].flat().length} row(s) were added to ${plan.merges.size} existing entr${plan.merges.size === 1 ? 'y' : 'ies'}.` : '';
     const skippedNote = plan.skipped ? ` ${plan.skipped} duplicate entr${plan.skipped === 1 ? 'y was' : 'ies were'} skipped.` : '';
@@ -263,7 +265,8 @@ async function runJob(
       ...written,
       duplicates: duplicates.slice(0, MAX_STORED_ISSUES),
       state: 'succeeded',
-      complexIds: complexIds.slice(0, 10_000),
+      complexIds: created.slice(0, 10_000).map((entry) => entry.id),
+      created: created.slice(0, 10_000),
       message: `Imported ${written.entryCount} entries with ${written.measurementCount} measurements in ${Math.round(performance.now() - started)} ms; they wait for review (status "in-review").${skippedNote}${mergedInto}`,
     });
   } catch (error) {
@@ -368,9 +371,9 @@ async function writeEntries(
   userId: string,
   entries: readonly PlannedEntry[],
   merges: ReadonlyMap<string, PlannedEntry[]> = new Map(),
-): Promise<string[]> {
+): Promise<ImportCreatedEntry[]> {
   const em = orm.em.fork();
-  const ids: string[] = [];
+  const created: ImportCreatedEntry[] = [];
   await em.transactional(async (tem) => {
     // The job's group may have lost this person between the POST and now.
     const membership = await membershipIn(tem, userId, job.groupId);
@@ -383,7 +386,7 @@ async function writeEntries(
     const auditRows: { id: string; actorId: string; groupId: string; action: string; subjectType: string; subjectId: string; details: Record<string, unknown>; createdAt: Date }[] = [];
     for (const entry of entries) {
       const id = randomUUID();
-      ids.push(id);
+      created.push({ id, row: entry.firstRow, formula: entry.formula, name: entry.name, status: 'in-review' });
       const measurements: MeasurementDto[] = entry.measurements.map((m, order) => {
         // File order survives: the library lists measurements by created_at.
         const createdAt = new Date(now.getTime() + order);
@@ -479,7 +482,7 @@ async function writeEntries(
     written = job.total;
     await report();
   });
-  return ids;
+  return created;
 }
 
 /** The job, for its creator and the group's curators; 404 for everyone else. */

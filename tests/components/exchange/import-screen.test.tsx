@@ -2,9 +2,16 @@ import { fireEvent, screen, waitFor } from '@testing-library/react-native';
 import { ImportScreen, csvHeaderLine, groupIssues, mappingFromChoices, rowRanges } from '@/components/exchange/import-screen';
 import { importJobSchema, type ImportJob } from '@/lib/schemas/exchange';
 import { renderWithQueries } from '../account/test-kit';
-import { contributorMe, GROUP_ID } from '../library/library-fixtures';
+import { contributorMe, curatorMe, GROUP_ID } from '../library/library-fixtures';
 
-jest.mock('expo-router', () => require('../account/expo-router-mock').expoRouterMock);
+// The shared stand-in, with links that keep their target so the success list can be checked.
+jest.mock('expo-router', () => {
+  const { Text } = require('react-native');
+  return {
+    ...require('../account/expo-router-mock').expoRouterMock,
+    Link: ({ children, testID, href }: { children: unknown; testID?: string; href: string }) => <Text testID={testID} href={href}>{children}</Text>,
+  };
+});
 
 /**
  * The web file input cannot run in a native test renderer: a button hands the screen a file instead.
@@ -74,6 +81,7 @@ function job(overrides: Partial<ImportJob>): ImportJob {
     entryCount: 0,
     measurementCount: 0,
     complexIds: [],
+    created: [],
     duplicates: [],
     message: null,
     createdAt: T0,
@@ -209,7 +217,20 @@ describe('ImportScreen', () => {
         polls += 1;
         return polls === 1
           ? { status: 200, body: job({ id: 'job-2', dryRun: false, state: 'importing', processed: 1 }) }
-          : { status: 200, body: job({ id: 'job-2', dryRun: false, state: 'succeeded', processed: 2, entryCount: 1, measurementCount: 2, finishedAt: T0 }) };
+          : {
+              status: 200,
+              body: job({
+                id: 'job-2',
+                dryRun: false,
+                state: 'succeeded',
+                processed: 2,
+                entryCount: 1,
+                measurementCount: 2,
+                complexIds: ['c-cr-new'],
+                created: [{ id: 'c-cr-new', row: 2, formula: '[Cr(H2O)6]3+', name: 'hexaaquachromium(III)', status: 'in-review' }],
+                finishedAt: T0,
+              }),
+            };
       },
     });
     renderWithQueries(<ImportScreen />);
@@ -220,7 +241,15 @@ describe('ImportScreen', () => {
     expect(screen.getByTestId('import-run')).toHaveTextContent('Import 1 entry (submitted for review)');
     expect(await screen.findByTestId('import-progress')).toHaveTextContent(/1 of 2 rows/);
     expect(await screen.findByTestId('import-done', {}, { timeout: 4000 })).toHaveTextContent(/1 entry with 2 measurements were added and submitted for review/);
-    expect(screen.getByTestId('import-to-review')).toBeTruthy();
+    // The created entry: formula typeset, name linking to its page, status.
+    const created = screen.getByTestId('import-created-0');
+    expect(created).toHaveTextContent(/^\[Cr\(H₂O\)₆\]³⁺hexaaquachromium\(III\)/);
+    expect(screen.getByTestId('import-created-0-link')).toHaveProp('href', '/library/c-cr-new');
+    expect(screen.getByTestId('status-pill-in-review')).toBeTruthy();
+    // A contributor is not sent to the review queue, which is the curators' page.
+    expect(screen.queryByTestId('import-to-review')).toBeNull();
+    expect(screen.getByTestId('import-to-library')).toHaveProp('href', '/library');
+    expect(screen.getByTestId('import-review-note')).toHaveTextContent(/curators review the new entries/);
     const real = new URLSearchParams(calls.filter((c) => c.method === 'POST')[1]?.url.split('?')[1]);
     expect(real.get('dryRun')).toBe('false');
   });
@@ -248,6 +277,47 @@ describe('ImportScreen', () => {
     const real = new URLSearchParams(calls.filter((c) => c.method === 'POST')[1]?.url.split('?')[1]);
     expect(real.get('duplicates')).toBe('import');
     expect(JSON.parse(real.get('duplicateChoices') ?? '{}')).toEqual({ 2: 'merge' });
+  });
+
+  it('after a curator’s import: the review queue is offered, merged and skipped rows are listed with their targets', async () => {
+    const duplicates = [
+      { row: 3, formula: '[Cr(OH2)6]3+', name: 'chromium again', existing: { id: 'c-cr', name: 'hexaaquachromium(III)', formula: '[Cr(H2O)6]3+', status: 'accepted' }, sameAsRow: null, choice: 'merge' as const },
+      { row: 5, formula: '[Ni(NH3)6]2+', name: 'nickel twice', existing: null, sameAsRow: 4, choice: 'skip' as const },
+    ];
+    const calls = rawFetch({
+      'GET /api/auth/session': { status: 200, body: { me: curatorMe } },
+      'POST /api/imports': () => ({ status: 202, body: job({ id: calls.filter((c) => c.method === 'POST').length === 2 ? 'job-2' : 'job-1' }) }),
+      'GET /api/imports/job-1': { status: 200, body: job({ state: 'succeeded', processed: 4, entryCount: 2, measurementCount: 2, duplicates, finishedAt: T0 }) },
+      'GET /api/imports/job-2': {
+        status: 200,
+        body: job({
+          id: 'job-2',
+          dryRun: false,
+          state: 'succeeded',
+          processed: 4,
+          entryCount: 1,
+          measurementCount: 1,
+          complexIds: ['c-ni'],
+          created: [{ id: 'c-ni', row: 4, formula: '[Ni(NH3)6]2+', name: 'hexaamminenickel(II)', status: 'in-review' }],
+          duplicates,
+          finishedAt: T0,
+        }),
+      },
+    });
+    renderWithQueries(<ImportScreen />);
+    fireEvent.press(await screen.findByTestId('import-pick'));
+    fireEvent.press(screen.getByTestId('import-dry-run'));
+    fireEvent.press(await screen.findByTestId('import-run'));
+    await screen.findByTestId('import-done');
+    expect(screen.getByTestId('import-to-review')).toHaveProp('href', '/review');
+    expect(screen.queryByTestId('import-review-note')).toBeNull();
+    expect(screen.getByTestId('import-merged-3')).toHaveTextContent(/Row 3: the measurements of\[Cr\(OH₂\)₆\]³⁺went tohexaaquachromium\(III\)/);
+    expect(screen.getByTestId('import-skipped-5')).toHaveTextContent(/Row 5:\[Ni\(NH₃\)₆\]²⁺the same species as row 4/);
+
+    // Another file starts from scratch.
+    fireEvent.press(screen.getByTestId('import-another'));
+    expect(screen.queryByTestId('import-done')).toBeNull();
+    expect(screen.queryByTestId('import-file-name')).toBeNull();
   });
 
   it('tells viewers that importing needs the contributor role', async () => {
