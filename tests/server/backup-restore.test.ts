@@ -29,7 +29,7 @@ beforeAll(async () => {
   const [entry] = await em.find(Complex, {}, { orderBy: { id: 'asc' }, limit: 1 });
   if (!entry) throw new Error('the demo seeded no entries');
   em.create(Attachment, {
-    complexId: entry.id,
+    complex: entry.id,
     groupId: entry.groupId,
     objectKey: `attachments/${randomUUID()}`,
     fileName: 'spectrum.csv',

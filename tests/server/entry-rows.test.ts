@@ -28,15 +28,15 @@ const ENTRY = {
 };
 
 const ENTRY_FIELDS = ['formula', 'notes', 'metal', 'oxidationState', 'dElectrons', 'spinState', 'verdict', 'ligandIds', 'ligandSetKey', 'measurementKinds', 'hasCitation', 'version', 'createdById'] as const;
-const MEASUREMENT_FIELDS = ['kind', 'value', 'unit', 'temperatureK', 'ionicStrengthM', 'medium', 'method', 'partnerFormula', 'notes', 'citationId'] as const;
+const MEASUREMENT_FIELDS = ['kind', 'value', 'unit', 'temperatureK', 'ionicStrengthM', 'medium', 'method', 'partnerFormula', 'notes'] as const;
 
 async function stored(name: string) {
   const em = t.orm.em.fork();
   const entry = await em.findOneOrFail(Complex, { groupId: w.groupId, name });
-  const [measurement] = await em.find(Measurement, { complexId: entry.id });
+  const [measurement] = await em.find(Measurement, { complex: entry.id });
   return {
     entry: Object.fromEntries(ENTRY_FIELDS.map((f) => [f, entry[f]])),
-    measurement: Object.fromEntries(MEASUREMENT_FIELDS.map((f) => [f, measurement?.[f] ?? null])),
+    measurement: { ...Object.fromEntries(MEASUREMENT_FIELDS.map((f) => [f, measurement?.[f] ?? null])), citationId: measurement?.citation?.id ?? null },
     status: entry.status,
   };
 }

@@ -5,7 +5,9 @@ import { createTestApp, type TestApp } from '../setup/test-app';
  * (with a matching nullability), and every column of an entity's table is known to the entity —
  * apart from the ones only SQL reads (generated columns and search helpers), listed here.
  * A migration that adds a column the entity does not declare, or a property without a migration,
- * fails here instead of at run time.
+ * fails here instead of at run time. Relations are checked through their join columns: a
+ * many-to-one property needs its column and a foreign key to the target's table, and the inverse
+ * side of a one-to-many owns no column of its own.
  */
 const SQL_ONLY_COLUMNS: Record<string, string[]> = {
   complex: [
@@ -51,6 +53,8 @@ it('every entity property has its column and every column its property', async (
     const mapped = new Set<string>();
     for (const prop of Object.values(meta.properties)) {
       if (prop.persist === false) continue;
+      // The inverse side of a relation: its rows are the other table's, joined by that table's column.
+      if (prop.kind === '1:m' || (prop.kind === 'm:n' && !prop.owner)) continue;
       for (const field of prop.fieldNames ?? []) {
         mapped.add(field);
         const column = table.get(field);
@@ -64,4 +68,41 @@ it('every entity property has its column and every column its property', async (
     }
   }
   expect(problems).toEqual([]);
+});
+
+interface ForeignKeyRow {
+  table_name: string;
+  column_name: string;
+  target_table: string;
+}
+
+it('every many-to-one relation has a foreign key to its target table, and the aggregate is wired both ways', async () => {
+  const keys = (await t.orm.em.getConnection().execute(
+    `select c.conrelid::regclass::text as table_name, a.attname as column_name, c.confrelid::regclass::text as target_table
+       from pg_constraint c
+       join pg_attribute a on a.attrelid = c.conrelid and a.attnum = any (c.conkey)
+      where c.contype = 'f' and array_length(c.conkey, 1) = 1`,
+  )) as ForeignKeyRow[];
+  const keyOf = new Map(keys.map((k) => [`${k.table_name}.${k.column_name}`, k.target_table]));
+  const problems: string[] = [];
+  const relations: string[] = [];
+  for (const meta of Object.values(t.orm.getMetadata().getAll())) {
+    for (const prop of Object.values(meta.properties)) {
+      if (prop.kind !== 'm:1') continue;
+      const target = t.orm.getMetadata().find(prop.type);
+      for (const field of prop.fieldNames ?? []) {
+        relations.push(`${meta.tableName}.${field}`);
+        const found = keyOf.get(`${meta.tableName}.${field}`);
+        if (found !== target?.tableName) problems.push(`${meta.className}.${prop.name}: ${meta.tableName}.${field} references ${found ?? 'nothing'}, not ${target?.tableName}`);
+      }
+    }
+  }
+  expect(problems).toEqual([]);
+  // The library entry as an aggregate: these relations are mapped (with their columns unchanged).
+  expect(relations).toEqual(
+    expect.arrayContaining(['measurement.complex_id', 'measurement.citation_id', 'complex_revision.complex_id', 'complex_review.complex_id', 'attachment.complex_id']),
+  );
+  const complex = t.orm.getMetadata().find('Complex')!;
+  expect(complex.properties.measurements).toMatchObject({ kind: '1:m', mappedBy: 'complex', orphanRemoval: true });
+  expect(complex.properties.revisions).toMatchObject({ kind: '1:m', mappedBy: 'complex' });
 });

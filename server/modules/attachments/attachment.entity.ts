@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { defineEntity, p } from '@mikro-orm/core';
 import type { AttachmentKind, AttachmentState } from '@/lib/schemas/exchange';
+import { Complex } from '@/server/modules/library/complex.entity';
 
 /**
  * A file attached to a library entry. The bytes live in the object store under `objectKey`, a key
@@ -11,7 +12,7 @@ export const Attachment = defineEntity({
   tableName: 'attachment',
   properties: {
     id: p.uuid().primary().onCreate(() => randomUUID()),
-    complexId: p.uuid(),
+    complex: () => p.manyToOne(Complex),
     groupId: p.uuid(),
     objectKey: p.string().length(200).unique(),
     fileName: p.string().length(255),

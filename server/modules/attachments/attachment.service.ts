@@ -91,12 +91,12 @@ export function attachmentKindOf(bytes: Buffer, fileName: string): AttachmentKin
   return kind;
 }
 
-type AttachmentRow = { id: string; complexId: string; fileName: string; kind: AttachmentKind; contentType: string; sizeBytes: number; sha256: string; description?: string | null; uploadedById?: string | null; createdAt: Date; state: AttachmentState };
+type AttachmentRow = { id: string; complex: { id: string }; fileName: string; kind: AttachmentKind; contentType: string; sizeBytes: number; sha256: string; description?: string | null; uploadedById?: string | null; createdAt: Date; state: AttachmentState };
 
 function toDto(row: AttachmentRow, people: Map<string, string>): AttachmentDto {
   return {
     id: row.id,
-    complexId: row.complexId,
+    complexId: row.complex.id,
     fileName: row.fileName,
     kind: row.kind,
     contentType: row.contentType,
@@ -105,7 +105,7 @@ function toDto(row: AttachmentRow, people: Map<string, string>): AttachmentDto {
     description: row.description ?? null,
     uploadedBy: row.uploadedById ? { id: row.uploadedById, displayName: people.get(row.uploadedById) ?? 'former member' } : null,
     createdAt: row.createdAt.toISOString(),
-    downloadPath: `/api/complexes/${row.complexId}/attachments/${row.id}`,
+    downloadPath: `/api/complexes/${row.complex.id}/attachments/${row.id}`,
     state: row.state,
   };
 }
@@ -119,7 +119,7 @@ async function names(em: EntityManager, ids: (string | null | undefined)[]) {
 
 export async function listAttachments(em: EntityManager, userId: string, complexId: string): Promise<AttachmentDto[]> {
   const entry = await getComplex(em, { userId }, complexId);
-  const rows = await em.find(Attachment, { complexId, state: { $in: visibleStates(entry.view) } }, { orderBy: { createdAt: 'asc', id: 'asc' } });
+  const rows = await em.find(Attachment, { complex: complexId, state: { $in: visibleStates(entry.view) } }, { orderBy: { createdAt: 'asc', id: 'asc' } });
   const people = await names(em, rows.map((r) => r.uploadedById));
   return rows.map((row) => toDto(row, people));
 }
@@ -157,7 +157,7 @@ export async function addAttachment(
     await recordEntryChange(em, { userId }, complexId, `Attached ${fileName}`.slice(0, 500), async (tem, newVersion) => {
       await tem.insert(Attachment, {
         id,
-        complexId,
+        complex: complexId,
         groupId: entry.groupId,
         objectKey,
         fileName,
@@ -198,14 +198,14 @@ export async function openAttachment(
   attachmentId: string,
 ): Promise<{ attachment: AttachmentDto; body: Readable }> {
   const entry = await getComplex(em, { userId }, complexId);
-  const row = await em.findOne(Attachment, { id: attachmentId, complexId, state: { $in: visibleStates(entry.view) } });
+  const row = await em.findOne(Attachment, { id: attachmentId, complex: complexId, state: { $in: visibleStates(entry.view) } });
   if (!row) throw notFound('That attachment');
   return { attachment: toDto(row, new Map()), body: await storage.get(row.objectKey) };
 }
 
 export async function deleteAttachment(em: EntityManager, storage: ObjectStorage, userId: string, complexId: string, attachmentId: string): Promise<void> {
   const entry = await getComplex(em, { userId }, complexId);
-  const row = await em.findOne(Attachment, { id: attachmentId, complexId });
+  const row = await em.findOne(Attachment, { id: attachmentId, complex: complexId });
   if (!row) throw notFound('That attachment');
   if (!roleAtLeast(entry.myRole, 'curator')) throw new AppError('FORBIDDEN', 'Only curators (or admins) delete attachments.');
   await em.transactional(async (tem) => {

@@ -43,14 +43,15 @@ export async function visibleSnapshots(em: EntityManager, userId: string, query:
       return view === 'working';
     });
     if (working.length === 0) continue;
-    const measurements = await em.find(Measurement, { complexId: { $in: working.map((c) => c.id) } }, { orderBy: { createdAt: 'asc', id: 'asc' } });
-    const citationIds = [...new Set(measurements.map((m) => m.citationId).filter((id): id is string => !!id))];
-    const citations = citationIds.length ? await em.find(Citation, { id: { $in: citationIds } }) : [];
-    const citationById = new Map(citations.map((c) => [c.id, toCitationDto(c)]));
+    const measurements = await em.find(
+      Measurement,
+      { complex: { $in: working.map((c) => c.id) } },
+      { populate: ['citation'], orderBy: { createdAt: 'asc', id: 'asc' } },
+    );
     for (const complex of working) {
       const own = measurements
-        .filter((m) => m.complexId === complex.id)
-        .map((m) => toMeasurementDto(m, m.citationId ? citationById.get(m.citationId) ?? null : null));
+        .filter((m) => m.complex.id === complex.id)
+        .map((m) => toMeasurementDto(m, m.citation ? toCitationDto(m.citation) : null));
       snapshots.set(complex.id, toSnapshot(complex, own));
     }
   }

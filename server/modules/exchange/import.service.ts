@@ -393,7 +393,7 @@ async function writeEntries(
         const citation = m.citation ? citations.get(citationKey(m.citation)) ?? null : null;
         const row = measurementRow(id, m.input, citation?.id ?? null, createdAt);
         measurementRows.push(row);
-        const { complexId: _complexId, citationId: _citationId, ...fields } = row;
+        const { complex: _complex, citation: _citationId, ...fields } = row;
         return { ...fields, citation, createdAt: createdAt.toISOString(), updatedAt: createdAt.toISOString() };
       });
       const snapshot: ComplexSnapshot = toSnapshot(

@@ -1,6 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import { defineEntity, p } from '@mikro-orm/core';
 import type { ComplexSnapshot, ComplexStatus } from '@/lib/schemas/library';
+import { Cascade } from '@mikro-orm/core';
+import { Measurement } from './measurement.entity';
+import { ComplexRevision } from './revision.entity';
 
 /**
  * A library entry: the working copy (what authors and curators edit) plus, once accepted, the
@@ -37,5 +40,9 @@ export const Complex = defineEntity({
     acceptedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()),
+    /** The entry's measurements: saved and removed with it (the aggregate's rows). */
+    measurements: () => p.oneToMany(Measurement).mappedBy('complex').cascade(Cascade.PERSIST).orphanRemoval(),
+    /** The history, append-only: written by every change, never through this collection. */
+    revisions: () => p.oneToMany(ComplexRevision).mappedBy('complex'),
   },
 });

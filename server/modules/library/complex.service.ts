@@ -103,11 +103,8 @@ async function peopleNames(em: EntityManager, ids: (string | null | undefined)[]
 }
 
 export async function measurementsOf(em: EntityManager, complexId: string): Promise<MeasurementDto[]> {
-  const rows = await em.find(Measurement, { complexId }, { orderBy: { createdAt: 'asc', id: 'asc' }, refresh: true });
-  const citationIds = [...new Set(rows.map((m) => m.citationId).filter((id): id is string => !!id))];
-  const citations = citationIds.length ? await em.find(Citation, { id: { $in: citationIds } }) : [];
-  const byId = new Map(citations.map((c) => [c.id, toCitationDto(c)]));
-  return rows.map((m) => toMeasurementDto(m, m.citationId ? byId.get(m.citationId) ?? null : null));
+  const rows = await em.find(Measurement, { complex: complexId }, { populate: ['citation'], orderBy: { createdAt: 'asc', id: 'asc' }, refresh: true });
+  return rows.map((m) => toMeasurementDto(m, m.citation ? toCitationDto(m.citation) : null));
 }
 
 async function workingSnapshot(em: EntityManager, complex: ComplexEntity): Promise<ComplexSnapshot> {
@@ -121,7 +118,7 @@ async function workingSnapshot(em: EntityManager, complex: ComplexEntity): Promi
 async function wroteRevisionInReview(em: EntityManager, complex: ComplexEntity, userId: string): Promise<boolean> {
   if (complex.submittedById === userId) return true;
   const since = complex.acceptedVersion ?? 0;
-  const written = await em.count(ComplexRevision, { complexId: complex.id, authorId: userId, kind: { $in: ['create', 'edit'] }, number: { $gt: since } });
+  const written = await em.count(ComplexRevision, { complex: complex.id, authorId: userId, kind: { $in: ['create', 'edit'] }, number: { $gt: since } });
   return written > 0;
 }
 
@@ -130,7 +127,7 @@ export async function detailFor(em: EntityManager, complex: ComplexEntity, reade
   const view = viewFor(reader, facts(complex)) ?? 'published';
   const accepted = complex.acceptedSnapshot ?? null;
   const content: ComplexSnapshot = view === 'published' && accepted ? accepted : await workingSnapshot(em, complex);
-  const latest = await em.findOne(ComplexReview, { complexId: complex.id }, { orderBy: { createdAt: 'desc', id: 'desc' } });
+  const latest = await em.findOne(ComplexReview, { complex: complex.id }, { orderBy: { createdAt: 'desc', id: 'desc' } });
   const people = await peopleNames(em, [complex.createdById, complex.submittedById, latest?.reviewerId]);
   const ownContent = complex.status === 'in-review' && roleAtLeast(reader.role, 'curator') && (await wroteRevisionInReview(em, complex, reader.userId));
   const curators = ownContent ? await reviewerCount(em, complex.groupId) : 2;
@@ -227,7 +224,7 @@ async function commit(em: EntityManager, actor: Actor, complex: ComplexEntity, b
       await plan.withSnapshot?.(tem, snapshot, newVersion);
       await tem.insert(ComplexRevision, {
         id: randomUUID(),
-        complexId: complex.id,
+        complex: complex.id,
         number: newVersion,
         kind: plan.revision.kind,
         status: snapshot.status,
@@ -340,7 +337,7 @@ export async function createComplex(em: EntityManager, actor: Actor, input: Crea
     const snapshot = await workingSnapshot(tem, fresh);
     await tem.insert(ComplexRevision, {
       id: randomUUID(),
-      complexId: id,
+      complex: id,
       number: 1,
       kind: 'create',
       status: 'draft',
@@ -418,7 +415,7 @@ export async function saveComplex(em: EntityManager, actor: Actor, id: string, i
     await commit(em, actor, complex, basedOn, {
       set: { ...set, ...reopen.set },
       apply: async (tem) => {
-        const stored = await tem.find(Measurement, { complexId: id });
+        const stored = await tem.find(Measurement, { complex: id });
         const storedById = new Map(stored.map((m) => [m.id, m]));
         const kept = new Set<string>();
         for (const [i, m] of input.measurements.entries()) {
@@ -436,9 +433,9 @@ export async function saveComplex(em: EntityManager, actor: Actor, id: string, i
           }
           kept.add(existing.id);
           const citationId = (await citationIdFor(tem, complex.groupId, actor, m, prefix)) ?? null;
-          const { id: _id, complexId: _complexId, createdAt: _createdAt, updatedAt: _updatedAt, ...next } = measurementRow(id, m, citationId, new Date());
+          const { id: _id, complex: _complex, createdAt: _createdAt, updatedAt: _updatedAt, ...next } = measurementRow(id, m, citationId, new Date());
           const differs = (Object.keys(next) as (keyof typeof next)[]).some((key) =>
-            key === 'value' ? Number(existing.value) !== next.value : !sameValue(existing[key], next[key]),
+            key === 'value' ? Number(existing.value) !== next.value : key === 'citation' ? (existing.citation?.id ?? null) !== next.citation : !sameValue(existing[key], next[key]),
           );
           if (!differs) continue;
           await tem.nativeUpdate(Measurement, { id: existing.id }, { ...next, updatedAt: new Date() });
@@ -558,7 +555,7 @@ export async function submitComplex(em: EntityManager, actor: Actor, id: string,
 
 /** Puts the working copy back to the accepted snapshot (after a declined edit of an accepted entry). */
 async function restoreAccepted(tem: EntityManager, complexId: string, accepted: ComplexSnapshot) {
-  await tem.nativeDelete(Measurement, { complexId });
+  await tem.nativeDelete(Measurement, { complex: complexId });
   for (const m of accepted.measurements) {
     // The citation may have been deleted with its group only; keep the link when it still exists.
     const citationId = m.citation && (await tem.count(Citation, { id: m.citation.id })) > 0 ? m.citation.id : null;
@@ -604,7 +601,7 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
       if (restore && accepted) await restoreAccepted(tem, complex.id, accepted);
       await tem.insert(ComplexReview, {
         id: reviewId,
-        complexId: complex.id,
+        complex: complex.id,
         revisionNumber: newVersion,
         decision: input.decision,
         comment: input.comment,
@@ -648,12 +645,12 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
 export async function reviewResponse(em: EntityManager, actor: Actor, id: string, reviewId?: string): Promise<ReviewResponse> {
   const review = reviewId
     ? await em.findOneOrFail(ComplexReview, { id: reviewId })
-    : await em.findOneOrFail(ComplexReview, { complexId: id }, { orderBy: { createdAt: 'desc', id: 'desc' } });
+    : await em.findOneOrFail(ComplexReview, { complex: id }, { orderBy: { createdAt: 'desc', id: 'desc' } });
   const people = await peopleNames(em, [review.reviewerId]);
   return {
     review: {
       id: review.id,
-      complexId: review.complexId,
+      complexId: review.complex.id,
       revisionNumber: review.revisionNumber,
       decision: review.decision,
       comment: review.comment,
@@ -684,8 +681,8 @@ async function visibleRevisions(em: EntityManager, entry: LoadedEntry) {
   const view = viewFor(entry.reader, facts(entry.complex));
   const where =
     view === 'published'
-      ? { complexId: entry.complex.id, number: { $in: await acceptedRevisionNumbers(em, entry.complex.id) } }
-      : { complexId: entry.complex.id };
+      ? { complex: entry.complex.id, number: { $in: await acceptedRevisionNumbers(em, entry.complex.id) } }
+      : { complex: entry.complex.id };
   return em.find(ComplexRevision, where, { orderBy: { number: 'desc' } });
 }
 

@@ -155,7 +155,7 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
     const record = (kind: RevisionKind, authorId: string, message: string, at: Date, audit?: { action: string; from?: ComplexStatus }) => {
       version += 1;
       const snapshot = toSnapshot({ ...base, notes, status }, working);
-      revisionRows.push({ id: randomUUID(), complexId: id, number: version, kind, status, message, snapshot, authorId, createdAt: at });
+      revisionRows.push({ id: randomUUID(), complex: id, number: version, kind, status, message, snapshot, authorId, createdAt: at });
       if (audit) {
         auditRows.push({ id: randomUUID(), actorId: authorId, groupId: group.id, action: audit.action, subjectType: 'complex', subjectId: id, details: { version, formula: entry.formula, ...(audit.from ? { from: audit.from } : {}), to: status, demo: true }, createdAt: at });
       }
@@ -180,7 +180,7 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
       status = decision === 'accept' ? 'accepted' : decision === 'decline' ? 'declined' : 'returned';
       const action = decision === 'accept' ? 'library.entry.accepted' : decision === 'decline' ? 'library.entry.declined' : 'library.entry.returned';
       const snapshot = record('review', curator, decision === 'accept' ? 'Accepted' : `${decision === 'decline' ? 'Declined' : 'Returned'}: ${comment}`, at, { action, from: 'in-review' });
-      reviewRows.push({ id: randomUUID(), complexId: id, revisionNumber: version, decision, comment, reviewerId: curator, selfAccepted: false, createdAt: at });
+      reviewRows.push({ id: randomUUID(), complex: id, revisionNumber: version, decision, comment, reviewerId: curator, selfAccepted: false, createdAt: at });
       if (decision === 'accept') {
         acceptedSnapshot = snapshot;
         acceptedVersion = version;
@@ -205,7 +205,7 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
     }
     measurements += working.length;
     for (const m of working) {
-      measurementRows.push({ id: m.id, complexId: id, kind: m.kind, value: m.value, unit: m.unit, temperatureK: m.temperatureK, ionicStrengthM: m.ionicStrengthM, medium: m.medium, method: m.method, partnerFormula: m.partnerFormula, citationId: m.citation?.id ?? null, notes: m.notes, createdAt: new Date(m.createdAt), updatedAt: new Date(m.updatedAt) });
+      measurementRows.push({ id: m.id, complex: id, kind: m.kind, value: m.value, unit: m.unit, temperatureK: m.temperatureK, ionicStrengthM: m.ionicStrengthM, medium: m.medium, method: m.method, partnerFormula: m.partnerFormula, citation: m.citation?.id ?? null, notes: m.notes, createdAt: new Date(m.createdAt), updatedAt: new Date(m.updatedAt) });
     }
     complexRows.push({
       id, groupId: group.id, ...base, notes, status,

@@ -13,7 +13,7 @@ export type MeasurementValues = Omit<MeasurementInput, 'citation' | 'citationId'
 export function measurementRow(complexId: string, values: MeasurementValues, citationId: string | null, at: Date) {
   return {
     id: randomUUID(),
-    complexId,
+    complex: complexId,
     kind: values.kind,
     value: values.value,
     unit: values.unit as MeasurementUnit,
@@ -22,7 +22,7 @@ export function measurementRow(complexId: string, values: MeasurementValues, cit
     medium: values.medium ?? null,
     method: values.method ?? null,
     partnerFormula: values.partnerFormula ?? null,
-    citationId,
+    citation: citationId,
     notes: values.notes ?? null,
     createdAt: at,
     updatedAt: at,

@@ -20,7 +20,7 @@ import { ComplexReview } from './review.entity';
  * and the curators.
  */
 export async function acceptedRevisionNumbers(em: EntityManager, complexId: string): Promise<number[]> {
-  const reviews = await em.find(ComplexReview, { complexId, decision: 'accept' }, { fields: ['revisionNumber'] });
+  const reviews = await em.find(ComplexReview, { complex: complexId, decision: 'accept' }, { fields: ['revisionNumber'] });
   return reviews.map((r) => r.revisionNumber);
 }
 

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { defineEntity, p } from '@mikro-orm/core';
 import type { ComplexSnapshot, ComplexStatus } from '@/lib/schemas/library';
+import { Complex } from './complex.entity';
 
 export type RevisionKind = 'create' | 'edit' | 'submit' | 'review' | 'retire' | 'restore';
 
@@ -10,7 +11,7 @@ export const ComplexRevision = defineEntity({
   tableName: 'complex_revision',
   properties: {
     id: p.uuid().primary().onCreate(() => randomUUID()),
-    complexId: p.uuid(),
+    complex: () => p.manyToOne(Complex),
     number: p.integer(),
     kind: p.string().length(12).$type<RevisionKind>(),
     status: p.string().length(20).$type<ComplexStatus>(),
@@ -19,5 +20,5 @@ export const ComplexRevision = defineEntity({
     authorId: p.uuid().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
   },
-  uniques: [{ properties: ['complexId', 'number'] }],
+  uniques: [{ properties: ['complex', 'number'] }],
 });
