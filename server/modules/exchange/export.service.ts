@@ -3,7 +3,6 @@ import { stringify } from 'csv-stringify/sync';
 import { exportCsvColumns, type ExportCsvColumn, type ExportQuery } from '@/lib/schemas/exchange';
 import { spreadsheetSafe } from './spreadsheet-safety';
 import type { Citation as CitationDto, ComplexSnapshot } from '@/lib/schemas/library';
-import { Citation } from '@/server/modules/library/citation.entity';
 import { Complex } from '@/server/modules/library/complex.entity';
 import { searchComplexes } from '@/server/modules/library/complex-search';
 import { toCitationDto, toMeasurementDto, toSnapshot } from '@/server/modules/library/complex.mapper';

@@ -1,7 +1,6 @@
 import { randomUUID } from 'node:crypto';
-import { defineEntity, p } from '@mikro-orm/core';
+import { Cascade, defineEntity, p } from '@mikro-orm/core';
 import type { ComplexSnapshot, ComplexStatus } from '@/lib/schemas/library';
-import { Cascade } from '@mikro-orm/core';
 import { Measurement } from './measurement.entity';
 import { ComplexRevision } from './revision.entity';
 
