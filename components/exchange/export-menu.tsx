@@ -10,20 +10,41 @@ const FORMATS = Object.keys(exportFormats) as ExportFormat[];
 
 /**
  * "Export": the entries the list shows (same search and filters, every page) as CSV, or their
- * citations as BibTeX or RIS. On the web each choice is a plain download link (the session cookie
- * goes with it); elsewhere the system opens the address.
+ * citations as BibTeX or RIS; with rows ticked in the table, only those ("Export selected", their
+ * ids go with the link and the server keeps only the ones the person may see). On the web each
+ * choice is a plain download link (the session cookie goes with it); elsewhere the system opens
+ * the address.
  */
-export function ExportMenu({ filters }: { filters: ComplexFilters }) {
+export function ExportMenu({ filters, selectedIds = [], onClearSelection }: {
+  filters: ComplexFilters;
+  /** Ticked rows: when there are any, the export is of these alone. */
+  selectedIds?: readonly string[];
+  onClearSelection?: () => void;
+}) {
   const [open, setOpen] = useState(false);
+  const chosen = selectedIds.length;
+  const label = chosen > 0 ? `Export selected (${chosen})` : 'Export';
+  const scope: ComplexFilters = chosen > 0 ? { ids: [...selectedIds] } : filters;
   return (
     <View style={styles.wrap}>
-      <Button label={open ? 'Close export' : 'Export'} kind="quiet" onPress={() => setOpen(!open)} testID="library-export" accessibilityLabel="Export the listed entries" />
+      <Button
+        label={open ? 'Close' : label}
+        kind="quiet"
+        onPress={() => setOpen(!open)}
+        testID="library-export"
+        accessibilityLabel={open ? 'Close the export choices' : chosen > 0 ? `Export the ${chosen} selected entries` : 'Export the listed entries'}
+      />
       {open ? (
         <View style={styles.menu} testID="library-export-menu">
-          <AppText variant="caption" tone="muted">The entries matching the current search and filters:</AppText>
+          <AppText variant="caption" tone="muted">
+            {chosen > 0 ? `The ${chosen === 1 ? 'selected entry' : `${chosen} selected entries`}:` : 'The entries matching the current search and filters:'}
+          </AppText>
           {FORMATS.map((format) => (
-            <ExportLink key={format} url={exportUrl(format, filters)} label={exportFormats[format].label} testID={`library-export-${format}`} />
+            <ExportLink key={format} url={exportUrl(format, scope)} label={exportFormats[format].label} testID={`library-export-${format}`} />
           ))}
+          {chosen > 0 && onClearSelection ? (
+            <Button label="Clear selection" kind="quiet" onPress={onClearSelection} testID="library-clear-selection" />
+          ) : null}
         </View>
       ) : null}
     </View>
@@ -58,5 +79,6 @@ const styles = StyleSheet.create({
     borderRadius: radius.md,
     backgroundColor: colors.card,
   },
-  link: { fontFamily: fonts.strong, color: colors.accent, textDecorationLine: 'underline' },
+  // 44 px tall rows: each format is a tap target of its own.
+  link: { fontFamily: fonts.strong, color: colors.accent, textDecorationLine: 'underline', minHeight: 44, paddingVertical: spacing.sm },
 });

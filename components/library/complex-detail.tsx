@@ -1,14 +1,14 @@
 import { useState } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { ErrorBlock, LoadingBlock, StaleNotice } from '@/components/account/query-states';
-import { TextLink } from '@/components/account/auth-frame';
+import { Link, useRouter } from 'expo-router';
 import { CautionsCard, IdentityCard, VerdictCard } from '@/components/check/result-cards';
 import { useClassification } from '@/components/check/use-classification';
 import { Card } from '@/components/ui/card';
 import { Chip } from '@/components/ui/chip';
 import { FormulaText } from '@/components/ui/formula-text';
 import { AppText } from '@/components/ui/text';
-import { colors, radius, spacing } from '@/components/ui/theme';
+import { colors, fonts, radius, spacing } from '@/components/ui/theme';
 import { StatusPill, VerdictBadge } from '@/components/ui/verdict-badge';
 import { ApiError } from '@/lib/api/api-client';
 import { classifyFormula } from '@/lib/chem/classify';
@@ -30,12 +30,34 @@ import { useLibraryAccess } from './use-library-access';
 const DISPLAY_TEMPERATURE_C = 25;
 
 /** One library entry: identity, the engine's view, measurements, history, review and actions. */
+/**
+ * "← Library": back to the list as it was left (its search, filters, order and pages are in the
+ * address of the history entry before), or to the library's start when the entry was opened directly.
+ */
+function BackToLibrary() {
+  const router = useRouter();
+  return (
+    <Link
+      href="/library"
+      testID="complex-back"
+      style={styles.backLink}
+      onPress={(event) => {
+        if (!router.canGoBack()) return;
+        event.preventDefault();
+        router.back();
+      }}
+    >
+      ← Library
+    </Link>
+  );
+}
+
 export function ComplexDetailView({ id, showBackLink = false }: { id: string; showBackLink?: boolean }) {
   const query = useComplexQuery(id);
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={styles.content}>
       <View style={styles.column} testID="complex-detail">
-        {showBackLink ? <TextLink href="/library" testID="complex-back">← Library</TextLink> : null}
+        {showBackLink ? <BackToLibrary /> : null}
         {query.data === undefined ? (
           query.isError ? (
             <ErrorBlock
@@ -214,21 +236,22 @@ function modelGapAt(formula: string, ref: LibraryMeasurementRef): number | null 
 
 const styles = StyleSheet.create({
   scroll: { flex: 1, backgroundColor: colors.paper },
+  backLink: { fontFamily: fonts.strong, color: colors.accent, textDecorationLine: 'underline', minHeight: 44, paddingVertical: spacing.sm, alignSelf: 'flex-start' },
   content: { paddingHorizontal: spacing.lg, paddingVertical: spacing.xl, alignItems: 'center' },
   column: { width: '100%', maxWidth: 880, gap: spacing.lg },
   head: { gap: spacing.xs },
   badges: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm },
   banner: {
-    backgroundColor: colors.amberSoft,
+    backgroundColor: colors.noticeSoft,
     borderLeftWidth: 4,
-    borderLeftColor: colors.amber,
+    borderLeftColor: colors.notice,
     borderRadius: radius.md,
     padding: spacing.md,
     gap: spacing.sm,
     alignItems: 'flex-start',
   },
   bannerText: { color: colors.ink },
-  reviewNote: { borderLeftWidth: 4, borderLeftColor: colors.amber, paddingLeft: spacing.md, gap: 2 },
-  reviewNoteTitle: { color: colors.amber },
+  reviewNote: { borderLeftWidth: 4, borderLeftColor: colors.notice, paddingLeft: spacing.md, gap: 2 },
+  reviewNoteTitle: { color: colors.notice },
   engine: { gap: spacing.md },
 });

@@ -62,5 +62,5 @@ const styles = StyleSheet.create({
   head: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.sm },
   names: { flex: 1, gap: 2 },
   meta: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm },
-  pending: { color: colors.amber },
+  pending: { color: colors.notice },
 });

@@ -27,6 +27,9 @@ import {
   type TransitionInput,
   type SaveComplexInput,
   duplicatesResponseSchema,
+  libraryPreferencesSchema,
+  type LibraryColumn,
+  type LibraryPreferences,
 } from '@/lib/schemas/library';
 import { complexFacetsSchema } from '@/lib/schemas/library-facets';
 import { ApiError, apiErrorFrom, apiRequest, requestHeaders, writeKeys } from './api-client';
@@ -51,6 +54,11 @@ export const complexKeys = {
   detail: (id: string) => [...complexKeys.details(), id] as const,
   revisions: (id: string) => [...complexKeys.detail(id), 'revisions'] as const,
   diff: (id: string, from: number, to: number) => [...complexKeys.revisions(id), 'diff', from, to] as const,
+};
+
+/** The person's library preferences (the table's columns), kept on the server so they follow the person. */
+export const libraryPreferenceKeys = {
+  all: ['library-preferences'] as const,
 };
 
 export const reviewQueueKeys = {
@@ -178,6 +186,15 @@ export async function fetchLigands(groupId: string | null, signal?: AbortSignal)
   return ligands;
 }
 
+export function fetchLibraryPreferences(signal?: AbortSignal): Promise<LibraryPreferences> {
+  return apiRequest('/auth/me/preferences', libraryPreferencesSchema, { signal });
+}
+
+/** Saves the shown columns (null: every column). */
+export function saveLibraryColumns(libraryColumns: LibraryColumn[] | null): Promise<LibraryPreferences> {
+  return apiRequest('/auth/me/preferences', libraryPreferencesSchema, { method: 'PATCH', body: { libraryColumns } });
+}
+
 // ---- cache rules ----------------------------------------------------------------------------------
 
 /** After any change of an entry: store the fresh copy, refetch lists, history and the queue. */
@@ -210,6 +227,34 @@ export function useComplexesQuery(filters: ComplexFilters, enabled = true) {
     placeholderData: keepPreviousData,
     retry: retryUnlessClientError,
     enabled,
+  });
+}
+
+export function useLibraryPreferencesQuery(enabled = true) {
+  return useQuery({
+    queryKey: libraryPreferenceKeys.all,
+    queryFn: ({ signal }) => fetchLibraryPreferences(signal),
+    enabled,
+    retry: retryUnlessClientError,
+    staleTime: 5 * 60_000,
+  });
+}
+
+/** Shows the new choice at once; the server's answer (or, on failure, the previous choice) follows. */
+export function useSaveLibraryColumnsMutation() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: saveLibraryColumns,
+    onMutate: async (libraryColumns) => {
+      await client.cancelQueries({ queryKey: libraryPreferenceKeys.all });
+      const previous = client.getQueryData<LibraryPreferences>(libraryPreferenceKeys.all);
+      client.setQueryData<LibraryPreferences>(libraryPreferenceKeys.all, { ...previous, libraryColumns });
+      return { previous };
+    },
+    onError: (_error, _columns, context) => {
+      if (context?.previous) client.setQueryData(libraryPreferenceKeys.all, context.previous);
+    },
+    onSuccess: (saved) => client.setQueryData(libraryPreferenceKeys.all, saved),
   });
 }
 

@@ -528,6 +528,23 @@ export type LibrarySort = z.infer<typeof librarySortSchema>;
 export const sortDirectionSchema = z.enum(['asc', 'desc'], { error: 'dir is asc or desc.' });
 export type SortDirection = z.infer<typeof sortDirectionSchema>;
 
+/**
+ * Columns of the library table on a wide screen, in their order. The formula always shows (it
+ * names the row); which of the others show is kept per person (`libraryColumns` in
+ * GET/PATCH /api/auth/me/preferences).
+ */
+export const libraryColumnKeys = ['formula', 'name', 'metal', 'dCount', 'verdict', 'rate', 'measurements', 'status', 'updated'] as const;
+export const libraryColumnSchema = z.enum(libraryColumnKeys, { error: `A library column is one of: ${libraryColumnKeys.join(', ')}.` });
+export type LibraryColumn = z.infer<typeof libraryColumnSchema>;
+/** The shown columns, or null for every column (the default). */
+export const libraryColumnsSchema = z
+  .array(libraryColumnSchema)
+  .max(libraryColumnKeys.length)
+  .refine((columns) => new Set(columns).size === columns.length, 'Name each column once.')
+  .nullable();
+export const libraryPreferencesSchema = z.object({ libraryColumns: libraryColumnsSchema.default(null) });
+export type LibraryPreferences = z.infer<typeof libraryPreferencesSchema>;
+
 /** At most this many ids in one `ids` filter (an export of the rows someone ticked). */
 export const MAX_SELECTED_IDS = 200;
 

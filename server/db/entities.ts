@@ -17,6 +17,7 @@ import { ComplexRevision } from '@/server/modules/library/revision.entity';
 import { Attachment } from '@/server/modules/attachments/attachment.entity';
 import { ImportJob } from '@/server/modules/exchange/import-job.entity';
 import { UserMailPreference } from '@/server/modules/notifications/mail-preference.entity';
+import { UserLibraryPreference } from '@/server/modules/library/library-preference.entity';
 
 /** Every entity the ORM knows; a module adds its entities here. */
 export const entities = [
@@ -39,4 +40,5 @@ export const entities = [
   ImportJob,
   Attachment,
   UserMailPreference,
+  UserLibraryPreference,
 ];

@@ -60,7 +60,7 @@ describe('review e-mails', () => {
     expect((await outboxFor(t.app, email('author'))).length).toBe(authorBefore);
     expect((await outboxFor(t.app, email('curator'))).length).toBe(curatorBefore);
     expect((await outboxFor(t.app, email('admin'))).length).toBe(adminBefore + 1);
-    expect((await w.author.get('/api/auth/me/preferences')).body).toEqual({ reviewSubmissions: true, reviewDecisions: false });
+    expect((await w.author.get('/api/auth/me/preferences')).body).toEqual({ reviewSubmissions: true, reviewDecisions: false, libraryColumns: null });
   });
 
   it('preferences: signed out → 401, unknown or wrong fields → 400', async () => {
@@ -69,6 +69,6 @@ describe('review e-mails', () => {
     expect((await stranger.patch('/api/auth/me/preferences', { reviewDecisions: true })).status).toBe(401);
     expect((await w.viewer.patch('/api/auth/me/preferences', { reviewDecisions: 'no' })).status).toBe(400);
     expect((await w.viewer.patch('/api/auth/me/preferences', { marketing: true })).status).toBe(400);
-    expect((await w.viewer.get('/api/auth/me/preferences')).body).toEqual({ reviewSubmissions: true, reviewDecisions: true });
+    expect((await w.viewer.get('/api/auth/me/preferences')).body).toEqual({ reviewSubmissions: true, reviewDecisions: true, libraryColumns: null });
   });
 });

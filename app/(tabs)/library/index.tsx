@@ -1,15 +1,17 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
+import { useCallback } from 'react';
 import { deferred } from '@/components/deferred/deferred';
-import { firstParam } from '@/components/ui/route-params';
-import { useWideLayout } from '@/components/ui/use-wide-layout';
 
 const LibraryScreen = deferred('LibraryScreen');
 
-/** /library (?selected=<id> on a wide screen shows that entry beside the list without leaving it). */
+/**
+ * /library?q=&metal=&…&sort=&dir=&pages= — the list's search, filters, order and loaded pages live
+ * in the address (written with setParams, which replaces the history entry), so Back and a shared
+ * link restore them. An entry opens on its own page.
+ */
 export default function Library() {
-  const { selected } = useLocalSearchParams<{ selected?: string }>();
+  const params = useLocalSearchParams<Record<string, string | string[]>>();
   const router = useRouter();
-  const wide = useWideLayout();
-  const open = (id: string) => (wide ? router.setParams({ selected: id }) : router.push(`/library/${id}`));
-  return <LibraryScreen selectedId={firstParam(selected) || null} onSelect={open} />;
+  const onUrlChange = useCallback((next: Record<string, string | undefined>) => router.setParams(next), [router]);
+  return <LibraryScreen urlParams={params} onUrlChange={onUrlChange} onSelect={(id: string) => router.push(`/library/${id}`)} />;
 }

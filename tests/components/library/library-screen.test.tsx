@@ -20,7 +20,7 @@ const cobalt = listItem({
 });
 
 function renderLibrary(onSelect = jest.fn()) {
-  return renderWithQueries(<LibraryScreen selectedId={null} onSelect={onSelect} />);
+  return renderWithQueries(<LibraryScreen onSelect={onSelect} />);
 }
 
 describe('LibraryScreen', () => {
