@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'expo-router';
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { Controller, useFieldArray, useForm, useWatch, type FieldPath, type UseFormSetError } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { describeError } from '@/components/account/form-errors';
@@ -18,6 +18,7 @@ import { useDebouncedValue } from '@/components/ui/use-debounced-value';
 import { FormulaText } from '@/components/ui/formula-text';
 import { StatusPill, VerdictBadge } from '@/components/ui/verdict-badge';
 import { ApiError } from '@/lib/api/api-client';
+import { suggestedName } from '@/lib/chem/naming';
 import { StaleVersionError, useComplexQuery, useCreateComplexMutation, useDuplicatesQuery, useSaveComplexMutation } from '@/lib/api/library';
 import { roleAtLeast } from '@/lib/schemas/groups';
 import type { ComplexDetail } from '@/lib/schemas/library';
@@ -145,8 +146,11 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
   const measurements = useFieldArray({ control, name: 'measurements', keyName: 'key' });
   const formula = useWatch({ control, name: 'formula' });
   const groupId = useWatch({ control, name: 'groupId' });
+  const name = useWatch({ control, name: 'name' }) ?? '';
   const settledFormula = useDebouncedValue(formula, LIVE_CHECK_DELAY_MS);
   const live = useClassification(settledFormula, 25, null);
+  // An IUPAC-style name from the formula, offered beside the name field; it never replaces what is typed.
+  const suggestion = useMemo(() => (live.kind === 'result' ? suggestedName(settledFormula) : null), [live.kind, settledFormula]);
   // The same species already in the group: offered before a second entry is made.
   const formulaToCheck = live.kind === 'result' && settledFormula.trim() && settledFormula.trim() !== base?.formula ? settledFormula.trim() : null;
   const duplicates = useDuplicatesQuery(base?.groupId ?? (groupId || null), formulaToCheck, base?.id ?? null).data?.duplicates ?? [];
@@ -248,9 +252,13 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
                 value={field.value}
                 onChangeText={field.onChange}
                 problem={live.kind === 'problem' ? live.problem : null}
-                placeholder="e.g. [Cr(H2O)6]3+"
                 testID="complex-form-formula"
               />
+              {live.kind === 'problem' ? null : (
+                <AppText variant="caption" tone="muted" testID="complex-form-formula-hint">
+                  As written on paper, with the charge after the bracket. Example: [Cr(H2O)6]3+
+                </AppText>
+              )}
               {fieldState.error && live.kind !== 'problem' ? (
                 <AppText tone="danger" variant="caption" testID="complex-form-formula-error">{sentence('formula', fieldState.error.message ?? '')}</AppText>
               ) : null}
@@ -286,6 +294,20 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
         ) : null}
 
         <FormTextField control={control} name="name" label="Name" autoCapitalize="none" hint="Example: hexaaquachromium(III)" testID="complex-form-name" />
+        {suggestion && suggestion !== name.trim() ? (
+          <View style={styles.suggestion} testID="complex-form-name-suggestion">
+            <AppText variant="caption" tone="soft" style={styles.suggestionText}>
+              Suggested from the formula: <AppText variant="caption" style={styles.suggestionName}>{suggestion}</AppText>
+            </AppText>
+            <Button
+              label="Use this name"
+              accessibilityLabel={`Use suggested name: ${suggestion}`}
+              kind="quiet"
+              onPress={() => setValue('name', suggestion, { shouldDirty: true, shouldValidate: true })}
+              testID="complex-form-use-name"
+            />
+          </View>
+        ) : null}
         <FormTextField control={control} name="notes" label="Notes" autoCapitalize="sentences" multiline numberOfLines={4} hint="Preparation, caveats, anything a colleague should know." testID="complex-form-notes" />
 
         <View style={styles.section}>
@@ -361,5 +383,8 @@ const styles = StyleSheet.create({
   duplicates: { gap: spacing.xs, padding: spacing.sm, borderRadius: radius.md, borderWidth: 1, borderColor: colors.lineStrong, backgroundColor: colors.card },
   duplicateRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm },
   start: { alignSelf: 'flex-start' },
+  suggestion: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm, marginTop: -spacing.sm },
+  suggestionText: { flexShrink: 1 },
+  suggestionName: { color: colors.ink },
   actions: { flexDirection: 'row', gap: spacing.sm, flexWrap: 'wrap' },
 });

@@ -166,7 +166,7 @@ export function MeasurementFields({ index, control, setValue, onRemove }: {
         </View>
       </View>
       <AppText variant="caption" tone="muted">Leave every citation field empty to add the source later (the entry shows “No citation yet”).</AppText>
-      <FormTextField control={control} name={`${prefix}.notes`} label="Notes" autoCapitalize="sentences" testID={`${id}-notes`} />
+      <FormTextField control={control} name={`${prefix}.notes`} label="Notes on this measurement" autoCapitalize="sentences" multiline numberOfLines={3} testID={`${id}-notes`} />
     </View>
   );
 }

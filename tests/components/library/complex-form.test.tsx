@@ -21,6 +21,40 @@ describe('ComplexFormScreen (new entry)', () => {
     expect(screen.queryByTestId('complex-form-preview')).toBeNull();
   });
 
+  it('suggests an IUPAC-style name from the formula, never over what is typed, and fills it in one tap', async () => {
+    mockFetch({ 'GET /api/auth/me': { status: 200, body: contributorMe } });
+    renderWithQueries(<ComplexFormScreen mode="create" />);
+    const name = await screen.findByTestId('complex-form-name');
+    fireEvent.changeText(name, 'cobalt sample B');
+    fireEvent.changeText(screen.getByTestId('complex-form-formula'), '[Co(NH3)5Cl]2+');
+    // IUPAC 2005 Recommendations, IR-9 (from memory): pentaamminechloridocobalt(III).
+    expect(await screen.findByTestId('complex-form-name-suggestion')).toHaveTextContent(/^Suggested from the formula: pentaamminechloridocobalt\(III\)Use this name$/);
+    expect(screen.getByTestId('complex-form-name')).toHaveProp('value', 'cobalt sample B');
+    expect(screen.getByTestId('complex-form-use-name')).toHaveProp('accessibilityLabel', 'Use suggested name: pentaamminechloridocobalt(III)');
+    fireEvent.press(screen.getByTestId('complex-form-use-name'));
+    expect(screen.getByTestId('complex-form-name')).toHaveProp('value', 'pentaamminechloridocobalt(III)');
+    expect(screen.queryByTestId('complex-form-name-suggestion')).toBeNull();
+    // Still editable after the tap.
+    fireEvent.changeText(screen.getByTestId('complex-form-name'), 'pentaamminechloridocobalt(III) chloride');
+    expect(screen.getByTestId('complex-form-name')).toHaveProp('value', 'pentaamminechloridocobalt(III) chloride');
+    // A ligand the naming does not know: no suggestion rather than a doubtful one.
+    fireEvent.changeText(screen.getByTestId('complex-form-formula'), '[Fe(Cp)2]');
+    await waitFor(() => expect(screen.getByTestId('complex-form-preview')).toHaveTextContent(/Fe/));
+    expect(screen.queryByTestId('complex-form-name-suggestion')).toBeNull();
+  });
+
+  it('shows examples as hints under the fields, never as placeholders that look like values', async () => {
+    mockFetch({ 'GET /api/auth/me': { status: 200, body: contributorMe } });
+    renderWithQueries(<ComplexFormScreen mode="create" />);
+    await screen.findByTestId('complex-form-formula');
+    fireEvent.press(screen.getByTestId('complex-form-add-measurement'));
+    for (const id of ['complex-form-formula', 'complex-form-name', 'complex-form-notes', 'complex-form-m-0-value', 'complex-form-m-0-medium', 'complex-form-m-0-doi', 'complex-form-m-0-notes']) {
+      expect(screen.getByTestId(id).props.placeholder).toBeUndefined();
+    }
+    expect(screen.getByTestId('complex-form-formula-hint')).toHaveTextContent(/Example: \[Cr\(H2O\)6\]3\+/);
+    expect(screen.getByTestId('complex-form-m-0-notes')).toHaveProp('multiline', true);
+  });
+
   it('applies the shared measurement rules per kind before sending anything', async () => {
     const { fetchMock } = mockFetch({ 'GET /api/auth/me': { status: 200, body: contributorMe } });
     renderWithQueries(<ComplexFormScreen mode="create" />);
