@@ -305,6 +305,9 @@ function JobProgress({ job, label }: { job: ImportJob | undefined; label: string
   );
 }
 
+/** Entries named from their formula, listed one by one up to this many. */
+const NAMED_SHOWN = 10;
+
 function DryRunReport({ job, stale }: { job: ImportJob; stale: boolean }) {
   const clean = job.state === 'succeeded' && job.errorCount === 0;
   return (
@@ -316,11 +319,28 @@ function DryRunReport({ job, stale }: { job: ImportJob; stale: boolean }) {
           message={`All ${job.total} rows are valid: ${job.entryCount} ${job.entryCount === 1 ? 'entry' : 'entries'} with ${job.measurementCount} ${job.measurementCount === 1 ? 'measurement' : 'measurements'}. Nothing was written yet.`}
           testID="import-report-clean"
         />
-      ) : (
+      ) : null}
+      {clean && job.suggestedNames.length > 0 ? (
+        <View style={styles.section} testID="import-report-named">
+          <AppText tone="soft">
+            {job.suggestedNames.length === 1 ? 'One entry has' : `${job.suggestedNames.length} entries have`} no name in the file and will take the name
+            suggested from the formula (you can change it on the entry later):
+          </AppText>
+          {job.suggestedNames.slice(0, NAMED_SHOWN).map((n) => (
+            <AppText key={n.row} testID={`import-report-named-${n.row}`}>
+              Row {n.row}: {n.name}
+            </AppText>
+          ))}
+          {job.suggestedNames.length > NAMED_SHOWN ? (
+            <AppText variant="caption" tone="muted">The first {NAMED_SHOWN} are listed.</AppText>
+          ) : null}
+        </View>
+      ) : null}
+      {clean ? null : (
         <>
           <AppText tone="danger" testID="import-report-summary">
             {job.errorCount > 0
-              ? `${job.errorCount} ${job.errorCount === 1 ? 'problem' : 'problems'} in ${job.total} rows. Nothing was written; correct the file (or the columns below) and check again.`
+              ? `${job.errorCount} ${job.errorCount === 1 ? 'problem' : 'problems'} in ${job.total} rows. Nothing was written; correct the file (or the columns above) and check again.`
               : (job.message ?? 'The check stopped. Nothing was written.')}
           </AppText>
           {job.errors.length > 0 ? <IssueTable issues={job.errors} total={job.errorCount} /> : null}

@@ -254,6 +254,8 @@ export const importJobSchema = z.object({
    * one already in the library, and skipped ones, are the `duplicates` with choice merge or skip.
    */
   created: z.array(importCreatedEntrySchema),
+  /** Entries whose name cell was empty and that take (dry run: would take) the name suggested from the formula. */
+  suggestedNames: z.array(z.object({ row: z.number().int(), name: z.string() })),
   /** Entries of the same species as one in the library or earlier in the file, with the choice applied. */
   duplicates: z.array(importDuplicateSchema),
   message: z.string().nullable(),

@@ -13,6 +13,7 @@ import { Migration20270136000000_published_search } from './Migration20270136000
 import { Migration20270137000000_attachment_review } from './Migration20270137000000_attachment_review';
 import { Migration20270141000000_library_columns } from './Migration20270141000000_library_columns';
 import { Migration20270142000000_import_created } from './Migration20270142000000_import_created';
+import { Migration20270142100000_import_suggested_names } from './Migration20270142100000_import_suggested_names';
 
 /**
  * Migrations are listed here (not discovered from the folder) so that tsx, jest and a bundled
@@ -34,4 +35,5 @@ export const migrationsList = [
   { name: 'Migration20270137000000_attachment_review', class: Migration20270137000000_attachment_review },
   { name: 'Migration20270141000000_library_columns', class: Migration20270141000000_library_columns },
   { name: 'Migration20270142000000_import_created', class: Migration20270142000000_import_created },
+  { name: 'Migration20270142100000_import_suggested_names', class: Migration20270142100000_import_suggested_names },
 ];

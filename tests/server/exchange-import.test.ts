@@ -142,11 +142,43 @@ describe('import', () => {
     expect(importJobSchema.parse((await w.author.get(`/api/imports/${job.id}`)).body).created).toEqual(job.created);
   });
 
+  it('an empty name cell takes the name suggested from the formula, said in the dry run; a formula it cannot name still needs one', async () => {
+    const rows = [
+      'entry,formula,name,kind,value,unit,temperature_K',
+      'p,[PtCl4]2-,,,,,',
+      'q,[Co(NH3)5Cl]2+,,substitution,1.7e-6,s-1,298.15',
+      'q,[Co(NH3)5Cl]2+,,,,,',
+      'r,[Ga(H2O)6]3+,named in file for suggestion test,,,,',
+    ];
+    // [Co(NH3)5Cl]2+ aquation 1.7e-6 s-1 at 298 K (Basolo & Pearson, Mechanisms of Inorganic Reactions, 2nd ed., 1967; from memory) — only needs to be valid here.
+    const file = Buffer.from(rows.join('\n') + '\n');
+    const dry = importJobSchema.parse((await upload(t.app, w.author, importPath({ dryRun: 'true' }), file)).body);
+    expect(dry.state).toBe('succeeded');
+    // IUPAC 2005 Recommendations, IR-9 (from memory): the names below.
+    expect(dry.suggestedNames).toEqual([
+      { row: 2, name: 'tetrachloridoplatinate(II)' },
+      { row: 3, name: 'pentaamminechloridocobalt(III)' },
+    ]);
+    expect(dry.message).toMatch(/2 entries have no name and take the one suggested from the formula \(row 2, 3\)/);
+    const job = importJobSchema.parse((await upload(t.app, w.author, importPath(), file)).body);
+    expect(job.created.map((c) => [c.row, c.name])).toEqual([
+      [2, 'tetrachloridoplatinate(II)'],
+      [3, 'pentaamminechloridocobalt(III)'],
+      [5, 'named in file for suggestion test'],
+    ]);
+
+    const unnamed = Buffer.from(['formula,name', '[Fe(Cp)2],'].join('\n') + '\n');
+    const refused = importJobSchema.parse((await upload(t.app, w.author, importPath({ dryRun: 'true' }), unnamed)).body);
+    expect(refused.state).toBe('failed');
+    expect(refused.errors).toEqual([expect.objectContaining({ row: 2, column: 'name' })]);
+    expect(refused.suggestedNames).toEqual([]);
+  });
+
   it('a curator’s import names its created entries too; skipped repeats are left out of the list and stay in duplicates', async () => {
-    const file = Buffer.from(['formula,name', '[Co(NH3)5Cl]2+,curator created cobalt', '[Co(NH3)5Cl]2+,curator created cobalt again'].join('\n') + '\n');
+    const file = Buffer.from(['formula,name', '[Rh(NH3)5Cl]2+,curator created rhodium', '[Rh(NH3)5Cl]2+,curator created rhodium again'].join('\n') + '\n');
     const job = importJobSchema.parse((await upload(t.app, w.curator, importPath(), file)).body);
     expect(job.state).toBe('succeeded');
-    expect(job.created.map((c) => [c.row, c.name])).toEqual([[2, 'curator created cobalt']]);
+    expect(job.created.map((c) => [c.row, c.name])).toEqual([[2, 'curator created rhodium']]);
     expect(job.duplicates.map((d) => [d.row, d.choice, d.sameAsRow])).toEqual([[3, 'skip', 2]]);
   });
 
@@ -227,11 +259,11 @@ describe('interrupted imports', () => {
     const old = new Date(Date.now() - ABANDONED_AFTER_MS - 1000);
     const job = em.create(ImportJob, {
       groupId: w.groupId, createdById: w.ids.author, fileName: 'killed.csv', dryRun: false, state: 'importing', processed: 10, total: 100,
-      columns: [], errorCount: 0, errors: [], entryCount: 0, measurementCount: 0, complexIds: [], created: [], message: null, heartbeatAt: old, finishedAt: null,
+      columns: [], errorCount: 0, errors: [], entryCount: 0, measurementCount: 0, complexIds: [], created: [], suggestedNames: [], message: null, heartbeatAt: old, finishedAt: null,
     });
     const fresh = em.create(ImportJob, {
       groupId: w.groupId, createdById: w.ids.author, fileName: 'running.csv', dryRun: false, state: 'importing', processed: 10, total: 100,
-      columns: [], errorCount: 0, errors: [], entryCount: 0, measurementCount: 0, complexIds: [], created: [], message: null, heartbeatAt: new Date(), finishedAt: null,
+      columns: [], errorCount: 0, errors: [], entryCount: 0, measurementCount: 0, complexIds: [], created: [], suggestedNames: [], message: null, heartbeatAt: new Date(), finishedAt: null,
     });
     await em.flush();
     const polled = (await w.author.get(`/api/imports/${job.id}`)).body;

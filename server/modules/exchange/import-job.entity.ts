@@ -26,6 +26,7 @@ export const ImportJob = defineEntity({
     measurementCount: p.integer(),
     complexIds: p.json<string[]>(),
     created: p.json<ImportCreatedEntry[]>().onCreate(() => []),
+    suggestedNames: p.json<{ row: number; name: string }[]>().onCreate(() => []),
     duplicates: p.json<ImportDuplicate[]>().onCreate(() => []),
     message: p.text().nullable(),
     heartbeatAt: p.datetime(),

@@ -12,6 +12,7 @@ import {
 import { AppError } from '@/server/http/errors';
 import { classifyOrExplain, derivedFromClassification, type DerivedColumns } from '@/server/modules/library/derive';
 import type { Classification } from '@/lib/chem/types';
+import { suggestedName } from '@/lib/chem/naming';
 import type { ColumnMap, CsvTable } from './csv-file';
 
 /**
@@ -39,6 +40,8 @@ export interface ValidationResult {
   entries: PlannedEntry[];
   issues: ImportIssue[];
   measurementCount: number;
+  /** Entries whose name cell was empty and that take the name suggested from the formula. */
+  suggestedNames: { row: number; name: string }[];
 }
 
 /**
@@ -98,6 +101,7 @@ export function validateRows(
   const entries = new Map<string, PlannedEntry>();
   const formulaCache = new Map<string, Classification | AppError>();
   let measurementCount = 0;
+  const suggestedNames: { row: number; name: string }[] = [];
 
   const cellOf = (row: string[], column: CsvColumn): string => {
     const at = map.index[column];
@@ -135,9 +139,20 @@ export function validateRows(
     if (i % 500 === 0) onProgress(i);
     const before = issues.length;
 
+    // An empty name: the same entry's name on a later row of it, else the name suggested from the formula (if any).
+    let nameCell = cellOf(cells, 'name');
+    let nameSuggested = false;
+    if (nameCell === '' && cellOf(cells, 'formula') !== '') {
+      const earlier = cellOf(cells, 'entry') !== '' ? entries.get(`entry:${cellOf(cells, 'entry')}`) : undefined;
+      const suggestion = earlier ? earlier.name : suggestedName(cellOf(cells, 'formula'));
+      if (suggestion) {
+        nameCell = suggestion;
+        nameSuggested = !earlier;
+      }
+    }
     const entryParsed = entryFieldsSchema.safeParse({
       formula: cellOf(cells, 'formula'),
-      name: cellOf(cells, 'name'),
+      name: nameCell,
       notes: cellOf(cells, 'notes') || null,
     });
     let classification: Classification | null = null;
@@ -217,9 +232,10 @@ export function validateRows(
         derived: derivedFromClassification(classification, formula, name),
         measurements: measurement ? [measurement] : [],
       });
+      if (nameSuggested) suggestedNames.push({ row, name });
     }
     if (measurement) measurementCount += 1;
   });
   onProgress(table.rows.length);
-  return { entries: [...entries.values()], issues, measurementCount };
+  return { entries: [...entries.values()], issues, measurementCount, suggestedNames };
 }

@@ -128,6 +128,7 @@ export function toImportJobDto(job: ImportJobEntity): ImportJobDto {
     measurementCount: job.measurementCount,
     complexIds: job.complexIds,
     created: job.created ?? [],
+    suggestedNames: job.suggestedNames ?? [],
     duplicates: job.duplicates ?? [],
     message: abandoned ? abandonedMessage : job.message ?? null,
     createdAt: job.createdAt.toISOString(),
@@ -185,6 +186,7 @@ export async function startImport(orm: Orm, request: ImportRequest, bytes: Buffe
     measurementCount: 0,
     complexIds: [],
     created: [],
+    suggestedNames: [],
     message: null,
     heartbeatAt: now,
     createdAt: now,
@@ -229,7 +231,7 @@ async function runJob(
     await em.nativeUpdate(ImportJob, { id: job.id }, { state: 'validating', heartbeatAt: new Date(), updatedAt: new Date() });
     const started = performance.now();
     const result = validate();
-    const counts = { entryCount: result.entries.length, measurementCount: result.measurementCount, processed: job.total };
+    const counts = { entryCount: result.entries.length, measurementCount: result.measurementCount, processed: job.total, suggestedNames: result.suggestedNames.slice(0, MAX_STORED_ISSUES) };
     if (result.issues.length > 0) {
       return await finish({
         ...counts,
@@ -246,12 +248,15 @@ async function runJob(
     const duplicateNote = duplicates.length
       ? ` ${duplicates.length} of them name a species already in the library or earlier in the file (${describeChoices(duplicates)}).`
       : '';
+    const namedNote = result.suggestedNames.length
+      ? ` ${result.suggestedNames.length} ${result.suggestedNames.length === 1 ? 'entry has' : 'entries have'} no name and ${result.suggestedNames.length === 1 ? 'takes' : 'take'} the one suggested from the formula (row ${result.suggestedNames.map((n) => n.row).slice(0, 20).join(', ')}${result.suggestedNames.length > 20 ? ', …' : ''}).`
+      : '';
     if (request.dryRun) {
       return await finish({
         ...counts,
         duplicates: duplicates.slice(0, MAX_STORED_ISSUES),
         state: 'succeeded',
-        message: `Dry run: all ${job.total} rows are valid (${counts.entryCount} entries, ${counts.measurementCount} measurements; checked in ${Math.round(performance.now() - started)} ms).${duplicateNote} Nothing was written.`,
+        message: `Dry run: all ${job.total} rows are valid (${counts.entryCount} entries, ${counts.measurementCount} measurements; checked in ${Math.round(performance.now() - started)} ms).${duplicateNote}${namedNote} Nothing was written.`,
       });
     }
     await em.nativeUpdate(ImportJob, { id: job.id }, { state: 'importing', processed: 0, heartbeatAt: new Date(), updatedAt: new Date() });
@@ -267,7 +272,7 @@ async function runJob(
       state: 'succeeded',
       complexIds: created.slice(0, 10_000).map((entry) => entry.id),
       created: created.slice(0, 10_000),
-      message: `Imported ${written.entryCount} entries with ${written.measurementCount} measurements in ${Math.round(performance.now() - started)} ms; they wait for review (status "in-review").${skippedNote}${mergedInto}`,
+      message: `Imported ${written.entryCount} entries with ${written.measurementCount} measurements in ${Math.round(performance.now() - started)} ms; they wait for review (status "in-review").${namedNote}${skippedNote}${mergedInto}`,
     });
   } catch (error) {
     const message =

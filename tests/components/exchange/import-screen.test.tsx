@@ -82,6 +82,7 @@ function job(overrides: Partial<ImportJob>): ImportJob {
     measurementCount: 0,
     complexIds: [],
     created: [],
+    suggestedNames: [],
     duplicates: [],
     message: null,
     createdAt: T0,
@@ -211,7 +212,15 @@ describe('ImportScreen', () => {
       },
       'GET /api/imports/job-1': {
         status: 200,
-        body: job({ state: 'succeeded', processed: 2, entryCount: 1, measurementCount: 2, message: 'Dry run: all 2 rows are valid.', finishedAt: T0 }),
+        body: job({
+          state: 'succeeded',
+          processed: 2,
+          entryCount: 1,
+          measurementCount: 2,
+          suggestedNames: [{ row: 2, name: 'hexaaquachromium(III)' }],
+          message: 'Dry run: all 2 rows are valid.',
+          finishedAt: T0,
+        }),
       },
       'GET /api/imports/job-2': () => {
         polls += 1;
@@ -237,6 +246,9 @@ describe('ImportScreen', () => {
     fireEvent.press(await screen.findByTestId('import-pick'));
     fireEvent.press(screen.getByTestId('import-dry-run'));
     expect(await screen.findByTestId('import-report-clean')).toHaveTextContent(/All 2 rows are valid: 1 entry with 2 measurements/);
+    // The entry without a name in the file takes the one suggested from its formula, said before importing.
+    expect(screen.getByTestId('import-report-named')).toHaveTextContent(/One entry has no name in the file and will take the name suggested from the formula/);
+    expect(screen.getByTestId('import-report-named-2')).toHaveTextContent('Row 2: hexaaquachromium(III)');
     fireEvent.press(screen.getByTestId('import-run'));
     expect(screen.getByTestId('import-run')).toHaveTextContent('Import 1 entry (submitted for review)');
     expect(await screen.findByTestId('import-progress')).toHaveTextContent(/1 of 2 rows/);
