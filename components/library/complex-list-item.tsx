@@ -19,7 +19,6 @@ export function ComplexListRow({ item, index, selected, onPress }: {
       onPress={() => onPress(item)}
       accessibilityRole="button"
       accessibilityState={{ selected }}
-      accessibilityLabel={`${item.name}, ${item.formula}`}
       testID={`library-item-${index}`}
       style={({ pressed }) => StyleSheet.flatten([styles.row, selected ? styles.selected : null, pressed ? styles.pressed : null])}
     >

@@ -25,6 +25,8 @@ interface ColumnSpec {
   sort?: LibrarySort;
   style: ViewStyle;
   numeric?: boolean;
+  /** The heading is a symbol (dⁿ, k, t½): its letters keep their case. */
+  symbolic?: boolean;
   cell: (item: ComplexListItem) => ReactNode;
 }
 
@@ -62,6 +64,7 @@ export const COLUMN_SPECS: Record<LibraryColumn, ColumnSpec> = {
   dCount: {
     header: 'dⁿ',
     spoken: 'd electron count',
+    symbolic: true,
     sort: 'dCount',
     style: { width: 64 },
     cell: (item) => <AppText style={styles.cellText}>{`d${item.dElectrons}`}</AppText>,
@@ -75,6 +78,7 @@ export const COLUMN_SPECS: Record<LibraryColumn, ColumnSpec> = {
   rate: {
     header: 'k or t½',
     spoken: 'Rate constant or half-life',
+    symbolic: true,
     style: { width: 148 },
     numeric: true,
     cell: (item) => <AppText style={[styles.cellText, styles.mono]}>{headlineRateText(item.headlineRate)}</AppText>,
@@ -156,7 +160,8 @@ export function LibraryTable({ items, columns, sort, dir, searching, onSort, sel
             ))}
           </View>
         </View>
-        <ScrollView role="rowgroup" style={styles.body} contentContainerStyle={styles.bodyContent} testID="library-table-body">
+        <ScrollView style={styles.body} contentContainerStyle={styles.bodyContent}>
+          <View role="rowgroup" testID="library-table-body">
           {items.map((item, index) => (
             <Pressable
               key={item.id}
@@ -185,7 +190,15 @@ export function LibraryTable({ items, columns, sort, dir, searching, onSort, sel
               ))}
             </Pressable>
           ))}
-          {footer}
+          {footer ? (
+            // "Load more" sits in a last row of its own, so the table holds only rows.
+            <View role="row" aria-rowindex={items.length + 2} testID="library-table-footer">
+              <View role="cell" aria-colspan={columns.length + 1}>
+                {footer}
+              </View>
+            </View>
+          ) : null}
+          </View>
         </ScrollView>
       </View>
     </View>
@@ -198,7 +211,7 @@ function HeaderCell({ column, ariaSort, onSort }: { column: LibraryColumn; ariaS
   if (!spec.sort) {
     return (
       <View role="columnheader" style={cellStyle} testID={`library-column-${column}`}>
-        <AppText variant="label" tone="muted" aria-label={spec.spoken}>
+        <AppText variant="label" tone="muted" aria-label={spec.spoken} style={spec.symbolic ? styles.symbol : null}>
           {spec.header}
         </AppText>
       </View>
@@ -211,12 +224,12 @@ function HeaderCell({ column, ariaSort, onSort }: { column: LibraryColumn; ariaS
     <View role="columnheader" aria-sort={ariaSort} style={cellStyle} testID={`library-column-${column}`}>
       <Pressable
         role="button"
-        aria-label={`${spec.spoken ?? spec.header}: sort ${next === 'asc' ? 'ascending' : 'descending'}`}
+        aria-label={`${spec.header}${spec.spoken ? ` (${spec.spoken})` : ''}, sort ${next === 'asc' ? 'ascending' : 'descending'}`}
         onPress={() => onSort(sortKey, next)}
         style={styles.sortButton}
         testID={`library-sort-${column}`}
       >
-        <AppText variant="label" tone={ariaSort === 'none' ? 'muted' : 'accent'} numberOfLines={1}>
+        <AppText variant="label" tone={ariaSort === 'none' ? 'muted' : 'accent'} numberOfLines={1} style={spec.symbolic ? styles.symbol : null}>
           {spec.header}
           {arrow}
         </AppText>
@@ -250,6 +263,7 @@ const styles = StyleSheet.create({
   numeric: { alignItems: 'flex-end' },
   cellText: { fontSize: 14, lineHeight: 20 },
   mono: { fontFamily: fonts.mono },
+  symbol: { textTransform: 'none', letterSpacing: 0 },
   checkCell: { width: 44, alignItems: 'center', justifyContent: 'center' },
   checkTarget: { width: 44, height: 44, alignItems: 'center', justifyContent: 'center' },
   box: { width: 18, height: 18, borderRadius: 4, borderWidth: 1.5, borderColor: colors.lineStrong, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.card },
