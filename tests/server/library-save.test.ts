@@ -150,6 +150,30 @@ describe('PUT /api/complexes/:id', () => {
     expect(Object.keys(response.body.error.fields)).toEqual(expect.arrayContaining(['formula', 'name', 'measurements']));
   });
 
+  it('of concurrent saves based on the same version exactly one is made; the others get 409', async () => {
+    const entry = await createEntry(w.author, w.groupId, { measurements: [measurementInput()] });
+    const before = await revisionsOf(entry.id);
+    const saves = ['first', 'second', 'third', 'fourth'].map((notes) => ({ ...asSave(entry), notes }));
+    const responses = await Promise.all(saves.map((body) => w.author.put(`/api/complexes/${entry.id}`, body)));
+    expect(responses.map((r) => r.status).sort()).toEqual([200, 409, 409, 409]);
+    const now = complexDetailSchema.parse((await w.author.get(`/api/complexes/${entry.id}`)).body);
+    expect(now.version).toBe(entry.version + 1);
+    expect(saves.map((b) => b.notes)).toContain(now.notes);
+    expect(now.measurements.map((m) => m.id)).toEqual(entry.measurements.map((m) => m.id));
+    expect(await revisionsOf(entry.id)).toHaveLength(before.length + 1);
+  });
+
+  it('removes a measurement and adds another in one save: the entry keeps exactly what was sent', async () => {
+    const entry = await createEntry(w.author, w.groupId, { measurements: [measurementInput()] });
+    const body = asSave(entry);
+    // [Cr(H2O)6]3+ activation volume −9.6 cm3/mol (Xu, Krouse & Swaddle 1985).
+    body.measurements = [{ kind: 'activation-volume', value: -9.6, unit: 'cm3/mol', temperatureK: 298.15 }];
+    const saved = complexDetailSchema.parse((await w.author.put(`/api/complexes/${entry.id}`, body)).body);
+    expect(saved.measurements.map((m) => [m.kind, m.value])).toEqual([['activation-volume', -9.6]]);
+    expect(saved.measurements[0]!.id).not.toBe(entry.measurements[0]!.id);
+    expect((await revisionsOf(entry.id))[0]!.message).toBe('Added an activation volume measurement; removed a water exchange measurement');
+  });
+
   it('viewers and other contributors cannot save', async () => {
     const entry = await createEntry(w.author, w.groupId);
     expect((await w.viewer.put(`/api/complexes/${entry.id}`, asSave(entry))).status).toBe(404);

@@ -8,7 +8,7 @@ import { ComplexRevision } from './revision.entity';
  * A library entry: the working copy (what authors and curators edit) plus, once accepted, the
  * accepted snapshot that viewers keep seeing while a newer revision is drafted or reviewed.
  * The derived columns (metal … ligand_set_key) come from the engine and are stored for search.
- * `version` is bumped by every change with an atomic `update … where id = ? and version = ?`.
+ * `version` is MikroORM's optimistic lock: every change is based on a version and adds one (complex.service.ts).
  */
 export const Complex = defineEntity({
   name: 'Complex',
@@ -30,7 +30,8 @@ export const Complex = defineEntity({
     searchText: p.text(),
     measurementKinds: p.array(),
     hasCitation: p.boolean(),
-    version: p.integer(),
+    /** Optimistic lock (MikroORM's version property): every flush that changes the row adds one. */
+    version: p.integer().version(),
     createdById: p.uuid().nullable(),
     submittedById: p.uuid().nullable(),
     submittedAt: p.datetime().nullable(),

@@ -1,9 +1,10 @@
 import { randomUUID } from 'node:crypto';
-import type { InferEntity } from '@mikro-orm/core';
+import { LockMode, OptimisticLockError, type InferEntity } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { roleAtLeast } from '@/lib/schemas/groups';
 import {
   measurementCheckSchema,
+  type Citation as CitationDto,
   type ComplexDetail,
   type ComplexSnapshot,
   type ComplexStatus,
@@ -53,9 +54,12 @@ import { acceptedRevisionNumbers } from './library-visibility';
 
 /**
  * Library entries: create, read, edit (optimistic locking), the review workflow, measurements,
- * revisions and diffs. Every change runs in one transaction that starts with
- * `update complex set version = version + 1 … where id = ? and version = ?`: of many concurrent
- * changes based on the same version exactly one matches, the others get 409 with the entry as it is.
+ * revisions and diffs. Every change is one unit of work on the entry's aggregate (the complex and
+ * its measurements): one transaction locks the entry's row, checks the version the change is based
+ * on, changes the managed entities, and one flush writes them with the revision and the audit
+ * event. Of many concurrent changes based on the same version exactly one is made, the others get
+ * 409 with the entry as it is (the row lock orders them; the version column, MikroORM's optimistic
+ * lock, guards the update as well).
  */
 
 export interface Actor {
@@ -63,6 +67,7 @@ export interface Actor {
 }
 
 type ComplexEntity = InferEntity<typeof Complex>;
+type MeasurementEntity = InferEntity<typeof Measurement>;
 
 interface LoadedEntry {
   complex: ComplexEntity;
@@ -183,48 +188,66 @@ type ColumnChanges = Partial<{
 }> &
   Partial<Omit<DerivedColumns, 'spinState'> & { spinState: 'high' | 'low' | null }>;
 
+/** The entry inside a change: locked, with its measurements and their citations loaded. */
+interface Work {
+  entity: ComplexEntity;
+  /** Citations as snapshots show them, by id: the loaded ones and those a change resolves. */
+  citations: Map<string, CitationDto>;
+}
+
 interface ChangePlan {
   set: ColumnChanges;
-  /** Measurement and other row changes, inside the transaction, after the version guard. */
-  apply?: (tem: EntityManager, newVersion: number) => Promise<void>;
+  /** Measurement and other changes, on the managed entities, after the version guard. */
+  apply?: (tem: EntityManager, work: Work, newVersion: number) => Promise<void>;
   /** The history line; a function when it depends on what `apply` found. */
   revision: { kind: RevisionKind; message: string | (() => string) };
   audit?: { action: string; details: Record<string, unknown> };
-  /** Runs with the fresh snapshot (e.g. acceptance stores it as the accepted snapshot). */
-  withSnapshot?: (tem: EntityManager, snapshot: ComplexSnapshot, newVersion: number) => Promise<void>;
+  /** Runs with the new snapshot (e.g. acceptance stores it as the accepted snapshot). */
+  withSnapshot?: (work: Work, snapshot: ComplexSnapshot, newVersion: number) => void;
 }
 
-/** Keeps the denormalised measurement summary (kinds, has-citation) that the search filters use. */
-async function refreshMeasurementSummary(tem: EntityManager, complexId: string) {
-  await tem.execute(
-    `update complex set
-       measurement_kinds = coalesce((select array_agg(distinct m.kind order by m.kind) from measurement m where m.complex_id = ?), '{}'),
-       has_citation = exists (select 1 from measurement m where m.complex_id = ? and m.citation_id is not null)
-     where id = ?`,
-    [complexId, complexId, complexId],
+/** The measurements in the order the entry lists them (as measurementsOf reads them). */
+function orderedMeasurements(entity: ComplexEntity): MeasurementEntity[] {
+  return entity.measurements
+    .getItems()
+    .slice()
+    .sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime() || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+}
+
+/**
+ * The denormalised measurement summary the search filters use (kinds, has-citation), kept in step
+ * with the collection, and the snapshot of the entry as it now stands — both from memory.
+ */
+function settle(work: Work): ComplexSnapshot {
+  const { entity, citations } = work;
+  const measurements = orderedMeasurements(entity);
+  entity.measurementKinds = [...new Set(measurements.map((m) => m.kind))].sort();
+  entity.hasCitation = measurements.some((m) => m.citation != null);
+  return toSnapshot(
+    entity,
+    measurements.map((m) => toMeasurementDto(m, m.citation ? citations.get(m.citation.id) ?? null : null)),
   );
 }
 
-/** One change of an entry: version guard, row changes, revision snapshot, audit — all or nothing. */
+/** One change of an entry: version guard, entity changes, revision snapshot, audit — one flush, all or nothing. */
 async function commit(em: EntityManager, actor: Actor, complex: ComplexEntity, basedOn: number, plan: ChangePlan): Promise<number> {
   const newVersion = basedOn + 1;
   try {
     await em.transactional(async (tem) => {
-      const affected = await tem.nativeUpdate(
-        Complex,
-        { id: complex.id, version: basedOn },
-        { ...plan.set, version: newVersion, updatedAt: new Date() },
-      );
-      if (affected === 0) throw new StaleVersion();
+      // The row lock orders concurrent changes of one entry; the version says whether this one still applies.
+      const entity = await tem.findOneOrFail(Complex, { id: complex.id }, { lockMode: LockMode.PESSIMISTIC_WRITE, refresh: true });
+      if (entity.version !== basedOn) throw new StaleVersion();
       await claimIdempotencyKey(tem, complex.id);
-      await plan.apply?.(tem, newVersion);
-      await refreshMeasurementSummary(tem, complex.id);
-      const fresh = await tem.findOneOrFail(Complex, { id: complex.id }, { refresh: true });
-      const snapshot = await workingSnapshot(tem, fresh);
-      await plan.withSnapshot?.(tem, snapshot, newVersion);
-      await tem.insert(ComplexRevision, {
+      await tem.populate(entity, ['measurements.citation'], { refresh: true });
+      const work: Work = { entity, citations: new Map() };
+      for (const m of entity.measurements) if (m.citation) work.citations.set(m.citation.id, toCitationDto(m.citation));
+      tem.assign(entity, { ...plan.set, updatedAt: new Date() });
+      await plan.apply?.(tem, work, newVersion);
+      const snapshot = settle(work);
+      plan.withSnapshot?.(work, snapshot, newVersion);
+      tem.create(ComplexRevision, {
         id: randomUUID(),
-        complex: complex.id,
+        complex: entity,
         number: newVersion,
         kind: plan.revision.kind,
         status: snapshot.status,
@@ -240,13 +263,16 @@ async function commit(em: EntityManager, actor: Actor, complex: ComplexEntity, b
           action: plan.audit.action,
           subjectType: 'complex',
           subjectId: complex.id,
-          details: { version: newVersion, formula: fresh.formula, ...plan.audit.details },
+          details: { version: newVersion, formula: entity.formula, ...plan.audit.details },
         });
-        await tem.flush();
       }
+      await tem.flush();
     });
   } catch (error) {
-    if (error instanceof StaleVersion) throw await staleError(em, actor, complex.id, basedOn);
+    // The transaction rolled back, but the entities it changed are the request's too: forget them,
+    // so that no later flush in this request writes what was rolled back.
+    em.clear();
+    if (error instanceof StaleVersion || error instanceof OptimisticLockError) throw await staleError(em, actor, complex.id, basedOn);
     throw error;
   }
   return newVersion;
@@ -278,25 +304,33 @@ function checkPartner(partnerFormula: string | null | undefined, field: string) 
   if (partnerFormula) classifyOrExplain(partnerFormula, field);
 }
 
-async function citationIdFor(
+/** The citation a measurement input names (an id of the group's, or one to find or add); undefined when it says nothing. */
+async function citationFor(
   tem: EntityManager,
-  groupId: string,
+  work: Work,
   actor: Actor,
   input: Pick<MeasurementInput, 'citationId' | 'citation'>,
   fieldPrefix: string,
-): Promise<string | null | undefined> {
-  if (input.citationId) return (await citationOfGroup(tem, groupId, input.citationId, `${fieldPrefix}citationId`)).id;
-  if (input.citation) return (await findOrCreateCitation(tem, groupId, input.citation, actor.userId)).citation.id;
+): Promise<CitationDto | null | undefined> {
+  const groupId = work.entity.groupId;
+  let found: CitationDto | undefined;
+  if (input.citationId) found = await citationOfGroup(tem, groupId, input.citationId, `${fieldPrefix}citationId`);
+  else if (input.citation) found = (await findOrCreateCitation(tem, groupId, input.citation, actor.userId)).citation;
+  if (found) {
+    work.citations.set(found.id, found);
+    return found;
+  }
   if (input.citationId === null || input.citation === null) return null;
   return undefined;
 }
 
-async function insertMeasurement(tem: EntityManager, complexId: string, groupId: string, actor: Actor, input: MeasurementInput, fieldPrefix = '') {
-  const citationId = await citationIdFor(tem, groupId, actor, input, fieldPrefix);
-  const row = measurementRow(complexId, input, citationId ?? null, new Date());
-  await tem.insert(Measurement, row);
-  const id = row.id;
-  return id;
+/** A new measurement of the entry, added to its collection (written by the change's flush). */
+async function addMeasurementTo(tem: EntityManager, work: Work, actor: Actor, input: MeasurementInput, fieldPrefix: string, at: Date) {
+  const citation = await citationFor(tem, work, actor, input, fieldPrefix);
+  const { complex: _complex, citation: _citation, ...row } = measurementRow(work.entity.id, input, citation?.id ?? null, at);
+  work.entity.measurements.add(
+    tem.create(Measurement, { ...row, complex: work.entity, citation: citation ? tem.getReference(Citation, citation.id) : null }),
+  );
 }
 
 // ───────────────────────────── entries ─────────────────────────────
@@ -309,53 +343,59 @@ export async function createComplex(em: EntityManager, actor: Actor, input: Crea
   const derived = deriveColumns(input.formula, input.name);
   (input.measurements ?? []).forEach((m, i) => checkPartner(m.partnerFormula, `measurements.${i}.partnerFormula`));
   const id = randomUUID();
-  await em.transactional(async (tem) => {
-    const now = new Date();
-    await claimIdempotencyKey(tem, id);
-    // The measurement summary (kinds, has-citation) is refreshed below, once the rows are in.
-    await tem.insert(
-      Complex,
-      entryRow({
-        id,
-        groupId: membership.groupId,
-        formula: input.formula,
-        name: input.name,
-        notes: input.notes,
-        derived,
+  try {
+    await em.transactional(async (tem) => {
+      const now = new Date();
+      await claimIdempotencyKey(tem, id);
+      const entity = tem.create(
+        Complex,
+        entryRow({
+          id,
+          groupId: membership.groupId,
+          formula: input.formula,
+          name: input.name,
+          notes: input.notes,
+          derived,
+          authorId: actor.userId,
+          submitted: false,
+          // Set from the measurements by settle() below.
+          measurementKinds: [],
+          hasCitation: false,
+          at: now,
+        }),
+      );
+      const work: Work = { entity, citations: new Map() };
+      for (const [i, m] of (input.measurements ?? []).entries()) {
+        // A millisecond apart, so the entry lists them in the order they were given.
+        await addMeasurementTo(tem, work, actor, m, `measurements.${i}.`, new Date(now.getTime() + i));
+      }
+      const snapshot = settle(work);
+      tem.create(ComplexRevision, {
+        id: randomUUID(),
+        complex: entity,
+        number: 1,
+        kind: 'create',
+        status: 'draft',
+        message: summariseCreation((input.measurements ?? []).map((m) => m.kind)),
+        snapshot,
         authorId: actor.userId,
-        submitted: false,
-        measurementKinds: [],
-        hasCitation: false,
-        at: now,
-      }),
-    );
-    for (const [i, m] of (input.measurements ?? []).entries()) {
-      await insertMeasurement(tem, id, membership.groupId, actor, m, `measurements.${i}.`);
-    }
-    await refreshMeasurementSummary(tem, id);
-    const fresh = await tem.findOneOrFail(Complex, { id }, { refresh: true });
-    const snapshot = await workingSnapshot(tem, fresh);
-    await tem.insert(ComplexRevision, {
-      id: randomUUID(),
-      complex: id,
-      number: 1,
-      kind: 'create',
-      status: 'draft',
-      message: summariseCreation((input.measurements ?? []).map((m) => m.kind)),
-      snapshot,
-      authorId: actor.userId,
-      createdAt: now,
+        createdAt: now,
+      });
+      recordAudit(tem, {
+        actorId: actor.userId,
+        groupId: membership.groupId,
+        action: 'library.entry.created',
+        subjectType: 'complex',
+        subjectId: id,
+        details: { to: 'draft', formula: input.formula, version: 1 },
+      });
+      await tem.flush();
     });
-    recordAudit(tem, {
-      actorId: actor.userId,
-      groupId: membership.groupId,
-      action: 'library.entry.created',
-      subjectType: 'complex',
-      subjectId: id,
-      details: { to: 'draft', formula: input.formula, version: 1 },
-    });
-    await tem.flush();
-  });
+  } catch (error) {
+    // As in commit(): nothing of a rolled-back creation stays managed.
+    em.clear();
+    throw error;
+  }
   return respond(em, actor, id);
 }
 
@@ -414,10 +454,11 @@ export async function saveComplex(em: EntityManager, actor: Actor, id: string, i
   try {
     await commit(em, actor, complex, basedOn, {
       set: { ...set, ...reopen.set },
-      apply: async (tem) => {
-        const stored = await tem.find(Measurement, { complex: id });
+      apply: async (tem, work) => {
+        const stored = work.entity.measurements.getItems();
         const storedById = new Map(stored.map((m) => [m.id, m]));
         const kept = new Set<string>();
+        const now = new Date();
         for (const [i, m] of input.measurements.entries()) {
           const prefix = `measurements.${i}.`;
           const existing = m.id ? storedById.get(m.id) : undefined;
@@ -427,24 +468,25 @@ export async function saveComplex(em: EntityManager, actor: Actor, id: string, i
             });
           }
           if (!existing) {
-            await insertMeasurement(tem, id, complex.groupId, actor, m, prefix);
+            await addMeasurementTo(tem, work, actor, m, prefix, new Date(now.getTime() + i));
             changes.added.push(m.kind);
             continue;
           }
           kept.add(existing.id);
-          const citationId = (await citationIdFor(tem, complex.groupId, actor, m, prefix)) ?? null;
-          const { id: _id, complex: _complex, createdAt: _createdAt, updatedAt: _updatedAt, ...next } = measurementRow(id, m, citationId, new Date());
-          const differs = (Object.keys(next) as (keyof typeof next)[]).some((key) =>
-            key === 'value' ? Number(existing.value) !== next.value : key === 'citation' ? (existing.citation?.id ?? null) !== next.citation : !sameValue(existing[key], next[key]),
-          );
+          const citation = (await citationFor(tem, work, actor, m, prefix)) ?? null;
+          const { id: _id, complex: _complex, citation: citationId, createdAt: _createdAt, updatedAt: _updatedAt, ...next } = measurementRow(id, m, citation?.id ?? null, now);
+          const differs =
+            (existing.citation?.id ?? null) !== citationId ||
+            (Object.keys(next) as (keyof typeof next)[]).some((key) => (key === 'value' ? Number(existing.value) !== next.value : !sameValue(existing[key], next[key])));
           if (!differs) continue;
-          await tem.nativeUpdate(Measurement, { id: existing.id }, { ...next, updatedAt: new Date() });
+          tem.assign(existing, { ...next, citation: citationId ? tem.getReference(Citation, citationId) : null, updatedAt: now });
           changes.changed.push(m.kind);
         }
         const removed = stored.filter((m) => !kept.has(m.id));
-        if (removed.length) await tem.nativeDelete(Measurement, { id: { $in: removed.map((m) => m.id) } });
+        // Orphan removal: taken out of the collection, deleted by the flush.
+        work.entity.measurements.remove(removed);
         changes.removed.push(...removed.map((m) => m.kind));
-        // Roll back the version bump: a save with no differences is not a revision.
+        // Nothing flushed yet: a save with no differences writes nothing (the claim is rolled back too).
         if (noChanges(changes)) throw new NothingChanged();
       },
       revision: {
@@ -467,7 +509,12 @@ export async function recordEntryChange(em: EntityManager, actor: Actor, id: str
   const entry = await loadEntry(em, actor, id);
   ensureAllowed(entry, 'edit');
   const reopen = reopenIfApproved(entry);
-  await commit(em, actor, entry.complex, entry.complex.version, { set: reopen.set, apply, revision: { kind: 'edit', message }, audit: reopen.audit });
+  await commit(em, actor, entry.complex, entry.complex.version, {
+    set: reopen.set,
+    apply: (tem, _work, newVersion) => apply(tem, newVersion),
+    revision: { kind: 'edit', message },
+    audit: reopen.audit,
+  });
 }
 
 /** The entry's stored content as a whole-entry save, for the single-change routes below. */
@@ -553,13 +600,26 @@ export async function submitComplex(em: EntityManager, actor: Actor, id: string,
   return submitted;
 }
 
-/** Puts the working copy back to the accepted snapshot (after a declined edit of an accepted entry). */
-async function restoreAccepted(tem: EntityManager, complexId: string, accepted: ComplexSnapshot) {
-  await tem.nativeDelete(Measurement, { complex: complexId });
+/**
+ * Puts the working copy back to the accepted snapshot (after a declined edit of an accepted entry):
+ * measurements of the snapshot come back as they were (same ids and times), later ones go.
+ */
+async function restoreAccepted(tem: EntityManager, work: Work, accepted: ComplexSnapshot) {
+  const { entity } = work;
+  const wanted = new Map(accepted.measurements.map((m) => [m.id, m]));
+  entity.measurements.remove(entity.measurements.getItems().filter((m) => !wanted.has(m.id)));
+  // The citation may have been deleted with its group only; keep the link when it still exists.
+  const citationIds = [...new Set(accepted.measurements.map((m) => m.citation?.id).filter((c): c is string => !!c))];
+  const existing = citationIds.length ? await tem.find(Citation, { id: { $in: citationIds } }) : [];
+  for (const c of existing) work.citations.set(c.id, toCitationDto(c));
+  const byId = new Map(entity.measurements.getItems().map((m) => [m.id, m]));
   for (const m of accepted.measurements) {
-    // The citation may have been deleted with its group only; keep the link when it still exists.
-    const citationId = m.citation && (await tem.count(Citation, { id: m.citation.id })) > 0 ? m.citation.id : null;
-    await tem.insert(Measurement, { ...measurementRow(complexId, m, citationId, new Date(m.createdAt)), id: m.id, updatedAt: new Date(m.updatedAt) });
+    const citationId = m.citation && work.citations.has(m.citation.id) ? m.citation.id : null;
+    const { complex: _complex, citation: _citation, ...row } = measurementRow(entity.id, m, citationId, new Date(m.createdAt));
+    const values = { ...row, id: m.id, citation: citationId ? tem.getReference(Citation, citationId) : null, updatedAt: new Date(m.updatedAt) };
+    const current = byId.get(m.id);
+    if (current) tem.assign(current, values);
+    else entity.measurements.add(tem.create(Measurement, { ...values, complex: entity }));
   }
 }
 
@@ -597,11 +657,11 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
   };
   await commit(em, actor, complex, basedOn, {
     set,
-    apply: async (tem, newVersion) => {
-      if (restore && accepted) await restoreAccepted(tem, complex.id, accepted);
-      await tem.insert(ComplexReview, {
+    apply: async (tem, work, newVersion) => {
+      if (restore && accepted) await restoreAccepted(tem, work, accepted);
+      tem.create(ComplexReview, {
         id: reviewId,
-        complex: complex.id,
+        complex: work.entity,
         revisionNumber: newVersion,
         decision: input.decision,
         comment: input.comment,
@@ -610,9 +670,9 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
         createdAt: new Date(),
       });
     },
-    withSnapshot: async (tem, snapshot, newVersion) => {
+    withSnapshot: ({ entity }, snapshot, newVersion) => {
       if (input.decision !== 'accept') return;
-      await tem.nativeUpdate(Complex, { id: complex.id }, { acceptedSnapshot: snapshot, acceptedVersion: newVersion, acceptedAt: new Date() });
+      Object.assign(entity, { acceptedSnapshot: snapshot, acceptedVersion: newVersion, acceptedAt: new Date() });
     },
     revision: { kind: 'review', message: messages[input.decision].slice(0, 500) },
     audit: {
