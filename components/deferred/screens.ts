@@ -15,6 +15,7 @@ export { SignUpScreen } from '@/components/account/sign-up-screen';
 export { VerifyScreen } from '@/components/account/verify-screen';
 export { LibraryMeasuredCard } from '@/components/check/library-measured-card';
 export { ImportScreen } from '@/components/exchange/import-screen';
+export { LandingActivity } from '@/components/home/landing-activity';
 export { ComplexDetailView } from '@/components/library/complex-detail';
 export { ComplexFormScreen } from '@/components/library/complex-form';
 export { LibraryScreen } from '@/components/library/library-screen';

@@ -2,14 +2,14 @@ import assert from 'node:assert/strict';
 import { after, before, describe, it } from 'node:test';
 import { AxeBuilder } from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
-import { baseUrl, collectPageErrors, horizontalOverflowPx, launchBrowser, screenshot, viewports, type ViewportName } from './browser';
-import { signedInPage } from './session';
+import { horizontalOverflowPx, launchBrowser, screenshot, viewports, type ViewportName } from './browser';
+import { demoScreens, openScreen, type DemoScreen } from './screen-list';
 
 /**
- * Accessibility and phone ergonomics on the screens of the shell, Check, Route and Account, at both
- * sizes: axe-core (WCAG 2.0–2.2 A and AA rules) with no serious or critical violation, tap targets of
- * at least 44 × 44 px (WCAG 2.2 SC 2.5.5 at AAA, our own bar), buttons whose label stays on one line,
- * and a visible keyboard focus.
+ * Accessibility and phone ergonomics on every screen of the app, at both sizes: axe-core (WCAG 2.0–2.2
+ * A and AA rules) with no serious or critical violation, tap targets of at least 44 × 44 px (WCAG 2.2
+ * SC 2.5.5 at AAA, our own bar), buttons whose label stays on one line, every control in the Tab
+ * order, and a visible keyboard focus that moves down the page in reading order.
  */
 let browser: Browser;
 before(async () => {
@@ -71,75 +71,142 @@ async function wrappedButtons(page: Page): Promise<string[]> {
   });
 }
 
-/** Tabs through the page; every focused control must show an outline or a ring. */
-async function focusWithoutRing(page: Page, presses = 12): Promise<string[]> {
-  const missing: string[] = [];
+/** Visible controls that Tab never reaches (tabindex −1 without being disabled). */
+async function controlsOutOfTabOrder(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const selector = 'a[href], button, input, textarea, select, [role="button"], [role="link"], [role="tab"], [role="switch"], [role="checkbox"], [role="radio"]';
+    const found: string[] = [];
+    for (const element of Array.from(document.querySelectorAll<HTMLElement>(selector))) {
+      const rect = element.getBoundingClientRect();
+      if (rect.width === 0 || rect.height === 0) continue;
+      if (element.parentElement?.closest(selector)) continue;
+      if (element.getAttribute('aria-disabled') === 'true' || (element as HTMLButtonElement).disabled) continue;
+      if (element.tabIndex < 0) {
+        found.push(`${element.getAttribute('role') ?? element.tagName.toLowerCase()} "${(element.getAttribute('aria-label') ?? element.textContent ?? '').trim().slice(0, 40)}"`);
+      }
+    }
+    return found;
+  });
+}
+
+interface FocusStop {
+  what: string;
+  /** Position in the page (scrolled containers added back), so order can be compared down the page. */
+  top: number;
+  left: number;
+  ring: boolean;
+  inNavigation: boolean;
+}
+
+/** Tabs through the page from its top and records where the focus went. */
+async function focusWalk(page: Page, presses: number): Promise<FocusStop[]> {
+  const stops: FocusStop[] = [];
   await page.locator('body').click({ position: { x: 1, y: 1 } });
   for (let i = 0; i < presses; i++) {
     await page.keyboard.press('Tab');
-    const seen = await page.evaluate(() => {
+    const stop = await page.evaluate(() => {
       const element = document.activeElement as HTMLElement | null;
       if (!element || element === document.body) return null;
       const style = getComputedStyle(element);
       const ring = (style.outlineStyle !== 'none' && parseFloat(style.outlineWidth) >= 2) || (style.boxShadow !== 'none' && style.boxShadow !== '');
-      return ring ? '' : `${element.getAttribute('role') ?? element.tagName.toLowerCase()} "${(element.getAttribute('aria-label') ?? element.textContent ?? '').trim().slice(0, 40)}"`;
+      const rect = element.getBoundingClientRect();
+      let scrolledTop = 0;
+      let scrolledLeft = 0;
+      for (let parent = element.parentElement; parent; parent = parent.parentElement) {
+        scrolledTop += parent.scrollTop;
+        scrolledLeft += parent.scrollLeft;
+      }
+      return {
+        what: `${element.getAttribute('role') ?? element.tagName.toLowerCase()} "${(element.getAttribute('aria-label') ?? element.textContent ?? '').trim().slice(0, 40)}"`,
+        top: rect.top + scrolledTop,
+        left: rect.left + scrolledLeft,
+        ring,
+        inNavigation: !!element.closest('[role="navigation"]'),
+      };
     });
-    if (seen) missing.push(seen);
+    if (stop) stops.push(stop);
   }
-  return missing;
+  return stops;
 }
 
-interface Screen {
-  name: string;
-  path: string;
-  ready: string;
-  /** Demo person to sign in as, if the screen needs one. */
-  as?: string;
+/**
+ * On a phone the page is one column: outside the navigation, each focus stop is further down the page
+ * than the one before, or on the same line further right (a row of chips, a scrolled row of examples).
+ */
+function outOfReadingOrder(stops: FocusStop[]): string[] {
+  const content = stops.filter((stop) => !stop.inNavigation);
+  const problems: string[] = [];
+  content.forEach((now, i) => {
+    const before = content[i - 1];
+    if (!before) return;
+    if (now.what === before.what && now.top === before.top) return;
+    const sameLine = Math.abs(now.top - before.top) < 24;
+    if (now.top < before.top - 24 || (sameLine && now.left < before.left - 1 && now.top <= before.top)) {
+      problems.push(`${before.what} → ${now.what} (${Math.round(before.top)} → ${Math.round(now.top)} px)`);
+    }
+  });
+  return problems;
 }
-
-const SCREENS: Screen[] = [
-  { name: 'landing', path: '/', ready: 'landing' },
-  { name: 'check', path: `/check?formula=${encodeURIComponent('[Co(NH3)5Cl]Cl2')}`, ready: 'verdict-card' },
-  { name: 'check-empty', path: '/check', ready: 'check-empty' },
-  { name: 'route', path: `/route?oxidant=${encodeURIComponent('[Co(NH3)5Cl]2+')}&reductant=${encodeURIComponent('[Cr(H2O)6]2+')}`, ready: 'route-result' },
-  { name: 'library-visitor', path: '/library', ready: 'library-signed-out' },
-  { name: 'account-visitor', path: '/account', ready: 'account-signed-out' },
-  { name: 'sign-in', path: '/sign-in', ready: 'sign-in-email' },
-  { name: 'sign-up', path: '/sign-up', ready: 'sign-up-screen' },
-  { name: 'account-admin', path: '/account', ready: 'groups-list', as: 'admin@larkspur.example.org' },
-  { name: 'check-signed-in', path: `/check?formula=${encodeURIComponent('[Cr(H2O)6]3+')}`, ready: 'verdict-card', as: 'viewer@larkspur.example.org' },
-];
 
 for (const size of Object.keys(viewports) as ViewportName[]) {
   describe(`accessibility at ${size} size`, () => {
-    for (const screen of SCREENS) {
-      it(`${screen.name}: no serious or critical axe violation, 44 px targets, one-line buttons, no console error`, async () => {
-        const { page, close } = screen.as
-          ? await signedInPage(browser, screen.as, size).then(({ context, page: signed }) => ({ page: signed, close: () => context.close() }))
-          : await browser.newContext({ viewport: viewports[size] }).then(async (context) => ({ page: await context.newPage(), close: () => context.close() }));
-        const errors = collectPageErrors(page);
-        await page.goto(`${baseUrl()}${screen.path}`);
-        await page.getByTestId(screen.ready).first().waitFor();
-        await page.waitForLoadState('networkidle');
-        await screenshot(page, `a11y-${screen.name}-${size}`);
-        assert.deepEqual(await seriousViolations(page), [], 'axe: serious or critical violations');
-        if (size === 'phone') {
-          assert.deepEqual(await smallTargets(page), [], 'tap targets under 44 × 44 px');
-          assert.ok((await horizontalOverflowPx(page)) <= 0, 'no horizontal scrolling');
-        }
-        assert.deepEqual(await wrappedButtons(page), [], 'buttons whose label wraps');
-        assert.deepEqual(errors, [], 'console errors');
-        await close();
-      });
-    }
+    let screens: DemoScreen[] = [];
+    before(async () => {
+      screens = await demoScreens(browser, size);
+    });
 
-    it('keyboard: every control reached by Tab on Check shows a visible focus ring', async () => {
-      const context = await browser.newContext({ viewport: viewports[size] });
-      const page = await context.newPage();
-      await page.goto(`${baseUrl()}/check?formula=${encodeURIComponent('[Ni(NH3)6]2+')}`);
-      await page.getByTestId('verdict-card').waitFor();
-      assert.deepEqual(await focusWithoutRing(page, 16), [], 'focused controls without a visible ring');
-      await context.close();
+    it('covers every screen of the app', () => {
+      // Not a count to keep in step by hand: every route file has at least one screen here.
+      const covered = new Set(screens.map((screen) => screen.route));
+      for (const route of ['/', '/check', '/route', '/planner', '/library', '/library/[complexId]', '/library/[complexId]/edit', '/library/new', '/library/import', '/review', '/account', '/account/groups/[groupId]', '/sign-in', '/sign-up', '/forgot-password', '/reset-password', '/verify', '/invitations/accept', '+not-found']) {
+        assert.ok(covered.has(route), `no screen of ${route}`);
+      }
+    });
+
+    it('every screen: no serious or critical axe violation, 44 px targets, one-line buttons, all in the Tab order, no console error', async () => {
+      const failures: string[] = [];
+      for (const screen of screens) {
+        const { page, errors, close } = await openScreen(browser, screen, size);
+        try {
+          await screenshot(page, `a11y-${screen.name}-${size}`);
+          const found: Record<string, string[]> = {
+            axe: await seriousViolations(page),
+            'buttons that wrap': await wrappedButtons(page),
+            'controls out of the Tab order': await controlsOutOfTabOrder(page),
+            'console errors': errors,
+          };
+          if (size === 'phone') {
+            found['targets under 44 × 44 px'] = await smallTargets(page);
+            if ((await horizontalOverflowPx(page)) > 0) found['horizontal scrolling'] = [`${await horizontalOverflowPx(page)} px`];
+          }
+          for (const [what, list] of Object.entries(found)) {
+            if (list.length > 0) failures.push(`${screen.name} — ${what}: ${list.join(' | ')}`);
+          }
+        } finally {
+          await close();
+        }
+      }
+      assert.deepEqual(failures, [], 'problems found');
+    });
+
+    it('keyboard: on every screen, each control reached by Tab shows a visible focus ring, in reading order', async () => {
+      const failures: string[] = [];
+      for (const screen of screens) {
+        const { page, close } = await openScreen(browser, screen, size);
+        try {
+          const stops = await focusWalk(page, 14);
+          if (stops.length === 0) failures.push(`${screen.name}: Tab reaches nothing`);
+          const noRing = stops.filter((stop) => !stop.ring).map((stop) => stop.what);
+          if (noRing.length > 0) failures.push(`${screen.name} — focus without a visible ring: ${noRing.join(' | ')}`);
+          if (size === 'phone') {
+            const order = outOfReadingOrder(stops);
+            if (order.length > 0) failures.push(`${screen.name} — focus jumps back up the page: ${order.join(' | ')}`);
+          }
+        } finally {
+          await close();
+        }
+      }
+      assert.deepEqual(failures, [], 'keyboard problems found');
     });
   });
 }
