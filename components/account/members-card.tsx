@@ -139,7 +139,8 @@ export function MembersCard({ detail, myUserId, onLeft }: { detail: GroupDetail;
                   <View style={styles.removeButton}>
                     <Button
                       label={isMe ? 'Leave group' : 'Remove'}
-                      accessibilityLabel={isMe ? 'Leave this group' : `Remove ${member.displayName}`}
+                      // The name starts with the words shown (WCAG 2.5.3): "Remove Ada Fenwick", "Leave group".
+                      accessibilityLabel={isMe ? undefined : `Remove ${member.displayName}`}
                       kind="quiet"
                       disabled={busy}
                       onPress={() => {

@@ -4,11 +4,14 @@ import { Pressable, StyleSheet } from 'react-native';
 import { AppText } from '@/components/ui/text';
 import { colors, radius, spacing } from '@/components/ui/theme';
 
-/** A rounded link holding a typeset formula (or a pair); its name is what a screen reader says. */
-export function PillLink({ href, label, children, testID }: { href: Href; label: string; children: ReactNode; testID?: string }) {
+/**
+ * A rounded link holding a typeset formula (or a pair). Its name is the text shown, so what a screen
+ * reader says matches what a voice-control user reads on it (WCAG 2.5.3).
+ */
+export function PillLink({ href, children, testID }: { href: Href; children: ReactNode; testID?: string }) {
   return (
     <Link href={href} asChild>
-      <Pressable accessibilityRole="link" accessibilityLabel={label} style={styles.pill} testID={testID}>
+      <Pressable accessibilityRole="link" style={styles.pill} testID={testID}>
         {children}
       </Pressable>
     </Link>

@@ -92,7 +92,7 @@ function CheckStart() {
       <AppText variant="label" tone="muted">Or open one of these</AppText>
       <View style={styles.pills}>
         {CHECK_EXAMPLES.map((example) => (
-          <PillLink key={example} href={{ pathname: '/check', params: { formula: example } }} label={`Check ${example}`} testID={`landing-example-${example}`}>
+          <PillLink key={example} href={`/check?formula=${encodeURIComponent(example)}`} testID={`landing-example-${example}`}>
             <FormulaText formula={example} variant="body" />
           </PillLink>
         ))}
@@ -112,8 +112,7 @@ function RouteStart() {
         {ROUTE_EXAMPLES.map(([oxidant, reductant]) => (
           <PillLink
             key={oxidant}
-            href={{ pathname: '/route', params: { oxidant, reductant } }}
-            label={`Route ${oxidant} with ${reductant}`}
+            href={`/route?oxidant=${encodeURIComponent(oxidant)}&reductant=${encodeURIComponent(reductant)}`}
             testID={`landing-pair-${oxidant}`}
           >
             <View style={styles.pair}>

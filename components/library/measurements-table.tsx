@@ -18,7 +18,7 @@ export function MeasurementsTable({ measurements, testID = 'complex-measurements
   return (
     <View style={styles.table} testID={testID} accessibilityRole="list">
       {measurements.map((m, index) => (
-        <View key={m.id} style={StyleSheet.flatten([styles.row, index > 0 ? styles.rowRule : null])} testID={`${testID}-row-${index}`}>
+        <View key={m.id} role="listitem" style={StyleSheet.flatten([styles.row, index > 0 ? styles.rowRule : null])} testID={`${testID}-row-${index}`}>
           <View style={styles.valueLine}>
             <AppText variant="caption" tone="soft" style={styles.kind}>{kindLabel(m.kind)}</AppText>
             <AppText variant="lead" testID={`${testID}-row-${index}-value`}>{measurementValueText(m)}</AppText>

@@ -28,7 +28,7 @@ export interface SquareComplexProps {
 /** One square-planar complex with its four ligands in place. */
 export function SquareComplex({ metal, sites, enteredSite, directorSite, label, testID }: SquareComplexProps) {
   return (
-    <View testID={testID} accessibilityLabel={`${label}: ${sites.map((id, site) => `${id} at ${['left', 'top', 'right', 'bottom'][site]}`).join(', ')}`}>
+    <View testID={testID} role="img" accessibilityLabel={`${label}: ${sites.map((id, site) => `${id} at ${['left', 'top', 'right', 'bottom'][site]}`).join(', ')}`}>
       <Svg width={SIZE} height={SIZE} viewBox={`0 0 ${SIZE} ${SIZE}`}>
         <Rect x={MID - ARM} y={MID - ARM} width={ARM * 2} height={ARM * 2} fill="none" stroke={colors.line} strokeDasharray="4,4" transform={`rotate(45 ${MID} ${MID})`} />
         {SITE_XY.map(([x, y], site) => (

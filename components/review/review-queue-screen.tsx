@@ -112,23 +112,26 @@ function QueueRow({ item, index, open, onOpen, onDecided }: {
 }) {
   return (
     <View style={StyleSheet.flatten([styles.item, open ? styles.itemOpen : null])} testID={`review-item-${index}`}>
+      {/* The button names the entry (formula and name on one line each); the details follow as text. */}
       <Pressable onPress={onOpen} accessibilityRole="button" accessibilityState={{ expanded: open }} style={styles.itemHead} testID={`review-item-${index}-open`}>
         <View style={styles.grow}>
           <FormulaText formula={item.formula} variant="lead" />
-          <AppText tone="soft">{item.name}</AppText>
-          <AppText variant="caption" tone="muted" testID={`review-item-${index}-meta`}>
-            {item.submittedBy?.displayName ?? 'someone no longer in the group'} · submitted {item.submittedAt ? relativeAge(item.submittedAt) : 'at an unknown time'} ·{' '}
-            {item.groupName}
-          </AppText>
-          <AppText variant="caption" tone="muted">
-            {metalLabel(item.metal, item.oxidationState)} · d{item.dElectrons} · {item.measurementCount}{' '}
-            {item.measurementCount === 1 ? 'measurement' : 'measurements'}
-            {item.hasCitation ? ' · cited' : ' · no citation yet'}
-            {item.isEditOfApproved ? ' · edit of an accepted entry' : ' · new entry'}
-          </AppText>
+          <AppText tone="soft" numberOfLines={1}>{item.name}</AppText>
         </View>
         <VerdictBadge verdict={item.verdict} size="sm" />
       </Pressable>
+      <View style={styles.meta}>
+        <AppText variant="caption" tone="muted" testID={`review-item-${index}-meta`}>
+          {item.submittedBy?.displayName ?? 'Someone no longer in the group'} · submitted {item.submittedAt ? relativeAge(item.submittedAt) : 'at an unknown time'} ·{' '}
+          {item.groupName}
+        </AppText>
+        <AppText variant="caption" tone="muted">
+          {metalLabel(item.metal, item.oxidationState)} · d{item.dElectrons} · {item.measurementCount}{' '}
+          {item.measurementCount === 1 ? 'measurement' : 'measurements'}
+          {item.hasCitation ? ' · cited' : ' · no citation yet'}
+          {item.isEditOfApproved ? ' · edit of an accepted entry' : ' · new entry'}
+        </AppText>
+      </View>
       {open ? (
         <View style={styles.itemBody}>
           <TextLink href={`/library/${item.id}`} testID={`review-item-${index}-entry`}>Open the entry (measurements, citations, changes)</TextLink>
@@ -145,7 +148,8 @@ const styles = StyleSheet.create({
   list: { gap: spacing.md },
   item: { borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, backgroundColor: colors.card, padding: spacing.md, gap: spacing.md },
   itemOpen: { borderColor: colors.accent },
-  itemHead: { flexDirection: 'row', gap: spacing.md, alignItems: 'flex-start' },
+  itemHead: { flexDirection: 'row', gap: spacing.md, alignItems: 'flex-start', minHeight: 44 },
+  meta: { gap: 2, marginTop: -spacing.sm },
   grow: { flex: 1, gap: 2 },
   itemBody: { gap: spacing.md },
 });
