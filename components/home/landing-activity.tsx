@@ -19,7 +19,8 @@ const SHOWN = 4;
 
 /**
  * The signed-in half of the start page: entries waiting for this curator's review, this person's
- * drafts and returned entries, and the size of the library. Each list links on to the full screen.
+ * drafts and returned entries, and the library's size with its latest changes. Each list links on to
+ * the full screen.
  */
 export function LandingActivity() {
   const access = useLibraryAccess();
@@ -27,8 +28,9 @@ export function LandingActivity() {
   const member = access.state === 'member' ? access : null;
   const queue = useReviewQueueQuery(!!member?.isCurator);
   const library = useQuery({
-    queryKey: [...complexKeys.all, 'start-page', 'all'],
-    queryFn: ({ signal }) => fetchComplexes({}, 1, signal),
+    // Newest change first: the page's count, and what moved lately.
+    queryKey: [...complexKeys.all, 'start-page', 'recent'],
+    queryFn: ({ signal }) => fetchComplexes({ sort: 'updated', dir: 'desc' }, 1, signal),
     enabled: !!member,
     retry: retryUnlessClientError,
   });
@@ -76,6 +78,12 @@ export function LandingActivity() {
             ? member.memberships.map((m) => m.groupName).join(', ')
             : `${libraryCountText(library.data.total, library.data.totalIsLowerBound)} in ${member.memberships.map((m) => m.groupName).join(', ')}.`}
         </AppText>
+        {library.data && library.data.items.length > 0 ? (
+          <>
+            <AppText variant="label" tone="muted">Changed lately</AppText>
+            <EntryList items={library.data.items.slice(0, SHOWN)} testID="landing-recent-list" />
+          </>
+        ) : null}
         <RowLink href="/library" testID="landing-to-library">Search the library</RowLink>
       </Card>
     </>
@@ -139,7 +147,8 @@ function EntryList({ items, testID }: { items: ComplexListItem[]; testID: string
           formula={item.formula}
           name={item.name}
           detail={`Changed ${relativeAge(item.updatedAt)}`}
-          status={item.status === 'returned' ? 'returned' : undefined}
+          status={item.status}
+          verdict={item.verdict}
         />
       ))}
     </View>
@@ -152,7 +161,8 @@ function EntryRow({ id, formula, name, detail, verdict, status }: {
   name: string;
   detail: string;
   verdict?: ComplexListItem['verdict'];
-  status?: 'returned';
+  /** Shown when the entry is not (yet) accepted; an accepted entry shows its verdict. */
+  status?: ComplexListItem['status'];
 }) {
   return (
     <Link href={`/library/${id}`} asChild>
@@ -161,7 +171,7 @@ function EntryRow({ id, formula, name, detail, verdict, status }: {
           <FormulaText formula={formula} variant="body" />
           <AppText variant="caption" tone="muted" numberOfLines={1}>{name} · {detail}</AppText>
         </View>
-        {status ? <StatusPill status={status} /> : verdict ? <VerdictBadge verdict={verdict} size="sm" /> : null}
+        {status && status !== 'accepted' ? <StatusPill status={status} /> : verdict ? <VerdictBadge verdict={verdict} size="sm" /> : null}
       </Pressable>
     </Link>
   );

@@ -89,6 +89,11 @@ describe('LandingActivity', () => {
     expect(await screen.findByTestId('landing-entry-c-waiting')).toBeTruthy();
     expect(screen.getByTestId('landing-review-count')).toHaveTextContent('One entry waits, oldest first.');
     await waitFor(() => expect(screen.getByTestId('landing-library-size')).toHaveTextContent(/64 entries in Larkspur Coordination Lab/));
+    // The library's latest changes come from the server's newest-first order.
+    const recent = fetched.calls.find((call) => call.url.startsWith('/api/complexes?') && !call.url.includes('status='));
+    expect(recent?.url).toContain('sort=updated');
+    expect(recent?.url).toContain('dir=desc');
+    expect(screen.getByTestId('landing-recent-list')).toBeTruthy();
   });
 
   it('has no review list and no drafts for a viewer, who cannot write or review', async () => {
