@@ -1,9 +1,9 @@
 import { Pressable, ScrollView, StyleSheet, View, type ViewStyle } from 'react-native';
 import type { ReactNode } from 'react';
-import { FormulaText } from '@/components/ui/formula-text';
 import { AppText } from '@/components/ui/text';
 import { colors, fonts, spacing } from '@/components/ui/theme';
 import { StatusPill, VerdictBadge } from '@/components/ui/verdict-badge';
+import { toDisplayFormula } from '@/lib/chem/display-formula';
 import { formatDateTime, formatDuration, formatInteger, formatRecorded } from '@/lib/chem/number-format';
 import type { ComplexListItem, LibraryColumn, LibrarySort, SortDirection } from '@/lib/schemas/library';
 import { metalLabel } from './library-format';
@@ -41,8 +41,13 @@ export const COLUMN_SPECS: Record<LibraryColumn, ColumnSpec> = {
   formula: {
     header: 'Formula',
     sort: 'formula',
-    style: { flex: 1.3, minWidth: 150 },
-    cell: (item) => <FormulaText formula={item.formula} variant="mono" />,
+    style: { flex: 1.4, minWidth: 170 },
+    // One line: a long formula ends in an ellipsis on screen; its name for screen readers is whole.
+    cell: (item) => (
+      <AppText variant="mono" numberOfLines={1} accessibilityLabel={item.formula} style={styles.formula}>
+        {toDisplayFormula(item.formula)}
+      </AppText>
+    ),
   },
   name: {
     header: 'Name',
@@ -72,14 +77,14 @@ export const COLUMN_SPECS: Record<LibraryColumn, ColumnSpec> = {
   verdict: {
     header: 'Verdict',
     sort: 'verdict',
-    style: { width: 136 },
+    style: { width: 124 },
     cell: (item) => <VerdictBadge verdict={item.verdict} size="sm" />,
   },
   rate: {
     header: 'k or t½',
     spoken: 'Rate constant or half-life',
     symbolic: true,
-    style: { width: 148 },
+    style: { width: 132 },
     numeric: true,
     cell: (item) => <AppText style={[styles.cellText, styles.mono]}>{headlineRateText(item.headlineRate)}</AppText>,
   },
@@ -94,13 +99,13 @@ export const COLUMN_SPECS: Record<LibraryColumn, ColumnSpec> = {
   status: {
     header: 'Status',
     sort: 'status',
-    style: { width: 124 },
+    style: { width: 116 },
     cell: (item) => <StatusPill status={item.status} />,
   },
   updated: {
     header: 'Updated',
     sort: 'updated',
-    style: { width: 170 },
+    style: { width: 156 },
     cell: (item) => (
       <AppText variant="caption" tone="soft" numberOfLines={1}>
         {formatDateTime(item.updatedAt)}
@@ -262,6 +267,7 @@ const styles = StyleSheet.create({
   cell: { paddingHorizontal: spacing.sm, justifyContent: 'center', overflow: 'hidden' },
   numeric: { alignItems: 'flex-end' },
   cellText: { fontSize: 14, lineHeight: 20 },
+  formula: { fontSize: 14, lineHeight: 20 },
   mono: { fontFamily: fonts.mono },
   symbol: { textTransform: 'none', letterSpacing: 0 },
   checkCell: { width: 44, alignItems: 'center', justifyContent: 'center' },
