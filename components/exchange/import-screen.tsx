@@ -563,9 +563,9 @@ function RunStatus({ job, canReview, onAnother, onFresh }: { job: ImportJob; can
         {job.created.length > 0 ? (
           <View style={styles.section}>
             <AppText variant="lead" accessibilityRole="header">Created</AppText>
-            <View accessibilityRole="list" testID="import-created">
+            <View role="list" testID="import-created">
               {job.created.slice(0, CREATED_SHOWN).map((entry, i) => (
-                <View key={entry.id} style={styles.createdRow} testID={`import-created-${i}`}>
+                <View key={entry.id} role="listitem" style={styles.createdRow} testID={`import-created-${i}`}>
                   <View style={styles.createdFormula}>
                     <FormulaText formula={entry.formula} />
                   </View>

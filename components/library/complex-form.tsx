@@ -301,7 +301,7 @@ function ComplexForm({ base: openedOn, groups }: { base: ComplexDetail | null; g
             </AppText>
             <Button
               label="Use this name"
-              accessibilityLabel={`Use suggested name: ${suggestion}`}
+              accessibilityLabel={`Use this name: ${suggestion}`}
               kind="quiet"
               onPress={() => setValue('name', suggestion, { shouldDirty: true, shouldValidate: true })}
               testID="complex-form-use-name"

@@ -30,7 +30,7 @@ describe('ComplexFormScreen (new entry)', () => {
     // IUPAC 2005 Recommendations, IR-9 (from memory): pentaamminechloridocobalt(III).
     expect(await screen.findByTestId('complex-form-name-suggestion')).toHaveTextContent(/^Suggested from the formula: pentaamminechloridocobalt\(III\)Use this name$/);
     expect(screen.getByTestId('complex-form-name')).toHaveProp('value', 'cobalt sample B');
-    expect(screen.getByTestId('complex-form-use-name')).toHaveProp('accessibilityLabel', 'Use suggested name: pentaamminechloridocobalt(III)');
+    expect(screen.getByTestId('complex-form-use-name')).toHaveProp('accessibilityLabel', 'Use this name: pentaamminechloridocobalt(III)');
     fireEvent.press(screen.getByTestId('complex-form-use-name'));
     expect(screen.getByTestId('complex-form-name')).toHaveProp('value', 'pentaamminechloridocobalt(III)');
     expect(screen.queryByTestId('complex-form-name-suggestion')).toBeNull();
