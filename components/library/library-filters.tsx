@@ -4,7 +4,15 @@ import { Chip } from '@/components/ui/chip';
 import { AppText } from '@/components/ui/text';
 import { spacing } from '@/components/ui/theme';
 import type { ComplexFilters } from '@/lib/api/library';
-import { complexStatuses, measurementKindRules, measurementKinds, type ComplexStatus, type MeasurementKind } from '@/lib/schemas/library';
+import {
+  complexStatuses,
+  measurementKindRules,
+  measurementKinds,
+  type ComplexStatus,
+  type LibrarySort,
+  type MeasurementKind,
+  type SortDirection,
+} from '@/lib/schemas/library';
 import type { ComplexFacets } from '@/lib/schemas/library-facets';
 import { roman } from '@/components/ui/format';
 
@@ -26,7 +34,7 @@ const STATUS_WORDS: Record<(typeof complexStatuses)[number], string> = {
   retired: 'Retired',
 };
 
-type FilterKey = Exclude<keyof ComplexFilters, 'q' | 'groupId'>;
+type FilterKey = Exclude<keyof ComplexFilters, 'q' | 'groupId' | 'ids' | 'sort' | 'dir'>;
 
 /** The options to offer: the server's, else the fallback lists; a chosen value always stays visible. */
 export function filterOptions(facets: ComplexFacets | undefined, filters: ComplexFilters) {
@@ -59,9 +67,20 @@ export function activeFilterLabels(filters: ComplexFilters): { key: FilterKey; l
   return out;
 }
 
-export function LibraryFilters({ filters, onChange, facets, showStatus }: {
+/** Orders offered on a phone, where the table's sortable headings are not shown. */
+const PHONE_ORDERS: { label: string; sort: LibrarySort; dir: SortDirection }[] = [
+  { label: 'Name', sort: 'name', dir: 'asc' },
+  { label: 'Formula', sort: 'formula', dir: 'asc' },
+  { label: 'Newest change', sort: 'updated', dir: 'desc' },
+  { label: 'Labile first', sort: 'verdict', dir: 'asc' },
+  { label: 'Most measured', sort: 'measurements', dir: 'desc' },
+];
+
+export function LibraryFilters({ filters, onChange, facets, showStatus, order }: {
   filters: ComplexFilters;
   onChange: (next: ComplexFilters) => void;
+  /** The list's order and its setter (offered on a phone; the wide table sorts from its headings). */
+  order?: { sort: LibrarySort | undefined; dir: SortDirection | undefined; onChange: (sort: LibrarySort | undefined, dir: SortDirection | undefined) => void };
   /** The server's options for what the person may see; undefined while loading or unavailable. */
   facets: ComplexFacets | undefined;
   /** Viewers only ever see accepted entries: the status filter would be noise for them. */
@@ -86,6 +105,22 @@ export function LibraryFilters({ filters, onChange, facets, showStatus }: {
       </View>
       {open ? (
         <View style={styles.panel}>
+          {order ? (
+            <Group title="Order">
+              {PHONE_ORDERS.map((choice) => {
+                const chosen = order.sort === choice.sort && (order.dir ?? 'asc') === choice.dir;
+                return (
+                  <Chip
+                    key={choice.sort}
+                    label={choice.label}
+                    selected={chosen}
+                    onPress={() => (chosen ? order.onChange(undefined, undefined) : order.onChange(choice.sort, choice.dir))}
+                    testID={`library-order-${choice.sort}`}
+                  />
+                );
+              })}
+            </Group>
+          ) : null}
           <Group title="Metal">
             {options.metals.map((metal) => (
               <Chip key={metal} label={metal} mono selected={filters.metal === metal} onPress={() => set('metal', metal)} testID={`library-filter-metal-${metal}`} />

@@ -234,7 +234,13 @@ function LibraryBrowser({ access, onSelect, urlParams, onUrlChange }: { access: 
         {exportMenu}
       </View>
       {searchBox}
-      <LibraryFilters filters={filters} onChange={setFilters} facets={facets.data} showStatus={!onlyViewer} />
+      <LibraryFilters
+        filters={filters}
+        onChange={setFilters}
+        facets={facets.data}
+        showStatus={!onlyViewer}
+        order={{ sort: state.sort, dir: state.dir, onChange: (sort, dir) => setState({ ...state, sort, dir, pages: 1 }) }}
+      />
     </View>
   );
   const countRow =

@@ -190,4 +190,18 @@ describe('LibraryScreen', () => {
     expect(await screen.findByTestId('library-stale')).toHaveTextContent(/Could not refresh/);
     expect(screen.getByTestId('library-item-0')).toHaveTextContent(/hexaaquachromium/);
   });
+
+  it('on a phone the order is chosen in the filters panel and asked of the server', async () => {
+    const { calls } = mockFetch({
+      'GET /api/auth/me': { status: 200, body: contributorMe },
+      'GET /api/complexes': { status: 200, body: listResponse([chromium, cobalt]) },
+    });
+    renderLibrary();
+    await screen.findByTestId('library-item-1');
+    expect(screen.queryByTestId('library-table')).toBeNull();
+    fireEvent.press(screen.getByTestId('library-filters-toggle'));
+    fireEvent.press(screen.getByTestId('library-order-updated'));
+    await waitFor(() => expect(calls.some((c) => c.url.includes('sort=updated') && c.url.includes('dir=desc'))).toBe(true));
+    expect(screen.getByTestId('library-order-updated')).toBeSelected();
+  });
 });
