@@ -658,6 +658,18 @@ const ISOMER_DESCRIPTOR = /^(?:cis|trans|fac|mer|rac|[ΔΛδλ])-\s*/i;
 const ISOMER_DESCRIPTOR_FIRST_CODES: ReadonlySet<number> = new Set([...'cCtTfFmMrRΔΛδλ'].map((ch) => ch.charCodeAt(0)));
 
 /**
+ * The stereo descriptor a formula is written with (cis, trans, fac, mer, rac, Δ, Λ, δ, λ), or null.
+ * The engines skip it (their answer does not depend on it), but two isomers are two compounds.
+ * Latin words are lower-cased; the Greek letters keep their case (Δ and δ name different things).
+ */
+export function isomerDescriptor(formula: string): string | null {
+  const match = ISOMER_DESCRIPTOR.exec(normalizeFormula(formula).trimStart());
+  if (!match) return null;
+  const word = match[0].replace(/-\s*$/, '');
+  return /^[a-z]+$/i.test(word) ? word.toLowerCase() : word;
+}
+
+/**
  * Salts written without brackets, e.g. KMnO4 or Na2WO4·2H2O: a counter-cation prefix followed by a
  * d- or f-block metal. Returns where the coordination entity starts and ends, or null.
  */

@@ -131,6 +131,32 @@ describe('CSV import', () => {
     expect(await countNamed('nickel alongside')).toBe(0);
     const zinc = complexDetailSchema.parse((await w.curator.get(`/api/complexes/${accepted.id}`)).body);
     expect(zinc.measurements).toEqual([]);
+    // The same rights as the form: this person's save of that entry is refused as well.
+    const seen = complexDetailSchema.parse((await w.author.get(`/api/complexes/${accepted.id}`)).body);
+    const save = { version: seen.version, formula: seen.formula, name: seen.name, notes: seen.notes, measurements: [{ kind: 'water-exchange', value: 5e7, unit: 's-1', temperatureK: 298.15 }] };
+    expect((await w.author.put(`/api/complexes/${accepted.id}`, save)).status).toBe(403);
+  });
+});
+
+describe('isomers are different species', () => {
+  // cis- and trans-[PtCl2(NH3)2] are two compounds with different properties (common practice).
+  it('the form: a formula with another stereo descriptor is no duplicate; the same one, or none, is', async () => {
+    const cis = await createEntry(w.author, w.groupId, { formula: 'cis-[PtCl2(NH3)2]', name: 'cis-diamminedichloridoplatinum(II)' });
+    expect(await duplicatesOf(w.author, 'trans-[PtCl2(NH3)2]')).toEqual([]);
+    expect((await duplicatesOf(w.author, 'cis-[PtCl2(NH3)2]')).map((d) => d.id)).toEqual([cis.id]);
+    // Without a descriptor the formula may name either isomer: the existing entry is offered.
+    expect((await duplicatesOf(w.author, '[PtCl2(NH3)2]')).map((d) => d.id)).toEqual([cis.id]);
+  });
+
+  it('the import: cis and trans in one file, and trans against a cis entry, are not reported', async () => {
+    await createEntry(w.author, w.groupId, { formula: 'cis-[PtCl2(NH3)2]', name: 'cis platinum for the import' });
+    const file = csv('1,trans-[PtCl2(NH3)2],trans platinum imported,,,,', '2,fac-[Co(NH3)3(NO2)3],fac cobalt imported,,,,', '3,mer-[Co(NH3)3(NO2)3],mer cobalt imported,,,,');
+    const job = importJobSchema.parse((await upload(t.app, w.author, importPath({ duplicates: 'skip' }), file)).body);
+    expect(job.state).toBe('succeeded');
+    expect(job.duplicates).toEqual([]);
+    expect(job.entryCount).toBe(3);
+    const again = importJobSchema.parse((await upload(t.app, w.author, importPath({ duplicates: 'skip', dryRun: 'true' }), csv('1,mer-[Co(NH3)3(NO2)3],mer cobalt again,,,,'))).body);
+    expect(again.duplicates.map((d) => d.existing?.name)).toEqual(['mer cobalt imported']);
   });
 });
 

@@ -11,7 +11,7 @@ import { Citation } from '@/server/modules/library/citation.entity';
 import { Complex } from '@/server/modules/library/complex.entity';
 import { toCitationDto, toSnapshot } from '@/server/modules/library/complex.mapper';
 import { membershipIn, resolveGroup, type MembershipInfo } from '@/server/modules/library/library-access';
-import { existingSpecies, speciesKeyOf } from '@/server/modules/library/duplicates';
+import { existingSpecies, speciesKeyOf, speciesOf } from '@/server/modules/library/duplicates';
 import { entryRow, measurementRow } from '@/server/modules/library/entry-rows';
 import { asEntryInput, getComplex, measurementsOf, saveComplex } from '@/server/modules/library/complex.service';
 import { Measurement } from '@/server/modules/library/measurement.entity';
@@ -56,11 +56,11 @@ async function findDuplicates(
   entries: readonly PlannedEntry[],
   request: ImportRequest,
 ): Promise<ImportDuplicate[]> {
-  const existing = await existingSpecies(em, groupId, reader, entries.map((e) => e.derived));
+  const existing = await existingSpecies(em, groupId, reader, entries.map((e) => speciesOf(e.formula, e.derived)));
   const firstInFile = new Map<string, number>();
   const duplicates: ImportDuplicate[] = [];
   for (const entry of entries) {
-    const key = speciesKeyOf(entry.derived);
+    const key = speciesKeyOf(speciesOf(entry.formula, entry.derived));
     const inLibrary = existing.get(key) ?? null;
     const earlier = firstInFile.get(key) ?? null;
     if (earlier === null) firstInFile.set(key, entry.firstRow);

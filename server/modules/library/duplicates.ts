@@ -1,20 +1,37 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { roleAtLeast } from '@/lib/schemas/groups';
 import type { ComplexStatus, DuplicateEntry } from '@/lib/schemas/library';
+import { isomerDescriptor } from '@/lib/chem/formula-parser';
 import type { Reader } from './library-access';
 
 /**
  * The same species twice in a group: same metal centre, oxidation state and ligand set (which
- * fixes the charge), however the formula is written. Retired and declined entries do not count.
- * A person is told only of entries they may see (accepted ones, their own, or all for curators).
+ * fixes the charge), however the formula is written, and not two different isomers: formulas
+ * written with different stereo descriptors (cis- and trans-[PtCl2(NH3)2]) are two compounds. A
+ * formula without a descriptor may be either isomer, so it is reported against both. Retired and
+ * declined entries do not count. A person is told only of entries they may see (accepted ones,
+ * their own, or all for curators).
  */
 export interface SpeciesKey {
   metal: string;
   oxidationState: number;
   ligandSetKey: string;
+  /** The stereo descriptor the formula is written with (isomerDescriptor), null or absent when none. */
+  isomer?: string | null;
 }
 
-export const speciesKeyOf = (s: SpeciesKey) => `${s.metal}|${s.oxidationState}|${s.ligandSetKey}`;
+export const speciesKeyOf = (s: SpeciesKey) => `${s.metal}|${s.oxidationState}|${s.ligandSetKey}|${s.isomer ?? ''}`;
+
+/** The species a formula names, with its stereo descriptor, from its derived columns. */
+export const speciesOf = (formula: string, derived: Omit<SpeciesKey, 'isomer'>): SpeciesKey => ({
+  metal: derived.metal,
+  oxidationState: derived.oxidationState,
+  ligandSetKey: derived.ligandSetKey,
+  isomer: isomerDescriptor(formula),
+});
+
+/** Two descriptors name possibly the same isomer unless both are given and differ. */
+const sameIsomerPossible = (a: string | null | undefined, b: string | null | undefined) => a == null || b == null || a === b;
 
 interface Row {
   id: string;
@@ -54,9 +71,16 @@ export async function existingSpecies(
       reader.userId,
     ],
   )) as Row[];
-  for (const row of rows) {
-    const key = speciesKeyOf({ metal: row.metal, oxidationState: row.oxidation_state, ligandSetKey: row.ligand_set_key });
-    if (!found.has(key)) found.set(key, { id: row.id, name: row.name, formula: row.formula, status: row.status });
+  for (const asked of unique) {
+    // Rows come oldest first: the first one of the same species (and a possible isomer) is the answer.
+    const row = rows.find(
+      (r) =>
+        r.metal === asked.metal &&
+        r.oxidation_state === asked.oxidationState &&
+        r.ligand_set_key === asked.ligandSetKey &&
+        sameIsomerPossible(isomerDescriptor(r.formula), asked.isomer),
+    );
+    if (row) found.set(speciesKeyOf(asked), { id: row.id, name: row.name, formula: row.formula, status: row.status });
   }
   return found;
 }

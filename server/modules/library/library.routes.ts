@@ -29,7 +29,7 @@ import * as complexes from './complex.service';
 import { reviewQueue, searchComplexes } from './complex-search';
 import { complexFacets } from './complex-facets';
 import { classifyOrExplain, deriveColumns } from './derive';
-import { existingSpecies } from './duplicates';
+import { existingSpecies, speciesOf } from './duplicates';
 import { membershipIn, resolveGroup } from './library-access';
 import { citationVisibleTo, listVisibleCitations, ownFieldsView } from './library-visibility';
 import { addLigand, listLigands } from './ligand.service';
@@ -96,7 +96,7 @@ export function libraryRoutes(orm: Orm, changeFeed?: ChangeFeed): Router {
     const manager = em();
     const membership = await resolveGroup(manager, actor(res).userId, groupId);
     const derived = deriveColumns(formula, formula);
-    const found = await existingSpecies(manager, membership.groupId, { userId: actor(res).userId, role: membership.role }, [derived], exceptId);
+    const found = await existingSpecies(manager, membership.groupId, { userId: actor(res).userId, role: membership.role }, [speciesOf(formula, derived)], exceptId);
     res.json({ duplicates: [...found.values()] });
   });
 

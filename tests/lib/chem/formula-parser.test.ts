@@ -1,5 +1,5 @@
 import fc from 'fast-check';
-import { parseFormula } from '@/lib/chem/formula-parser';
+import { isomerDescriptor, parseFormula } from '@/lib/chem/formula-parser';
 import { FormulaError } from '@/lib/chem/types';
 
 function ligandCounts(formula: string): Record<string, number> {
@@ -161,5 +161,33 @@ describe('formulas as chemists also write them (common practice)', () => {
     }
     expect(caught).toBeInstanceOf(FormulaError);
     expect((caught as FormulaError).position).toBe(5);
+  });
+});
+
+describe('isomerDescriptor: the stereo descriptor a formula is written with (common practice)', () => {
+  it.each([
+    { formula: 'cis-[PtCl2(NH3)2]', descriptor: 'cis' },
+    { formula: 'trans-[PtCl2(NH3)2]', descriptor: 'trans' },
+    { formula: 'TRANS-[CoCl2(en)2]+', descriptor: 'trans' },
+    { formula: 'fac-[Co(NH3)3(NO2)3]', descriptor: 'fac' },
+    { formula: 'mer-[Co(NH3)3(NO2)3]', descriptor: 'mer' },
+    { formula: 'Δ-[Co(en)3]3+', descriptor: 'Δ' },
+    { formula: 'Λ-[Co(en)3]3+', descriptor: 'Λ' },
+    { formula: '[PtCl2(NH3)2]', descriptor: null },
+    { formula: '[Cr(H2O)6]3+', descriptor: null },
+  ])('$formula → $descriptor', ({ formula, descriptor }) => {
+    expect(isomerDescriptor(formula)).toBe(descriptor);
+  });
+
+  it('reads the same species with or without the descriptor (the engines do not depend on it)', () => {
+    const plain = parseFormula('[PtCl2(NH3)2]');
+    for (const written of ['cis-[PtCl2(NH3)2]', 'trans-[PtCl2(NH3)2]']) {
+      const parsed = parseFormula(written);
+      expect(parsed.metal).toBe('Pt');
+      expect(parsed.oxidationState).toBe(2);
+      expect(parsed.complexCharge).toBe(0);
+      expect(ligandCounts(written)).toEqual(ligandCounts('[PtCl2(NH3)2]'));
+      expect(parsed.oxidationState).toBe(plain.oxidationState);
+    }
   });
 });
