@@ -427,7 +427,7 @@ export function groupIssues(issues: readonly ImportIssue[]): { rows: number[]; c
 
 function IssueTable({ issues, total }: { issues: ImportIssue[]; total: number }) {
   return (
-    <View style={styles.table} accessibilityRole="list">
+    <View style={styles.table}>
       <View style={StyleSheet.flatten([styles.tr, styles.th])}>
         <AppText variant="label" tone="muted" style={styles.colRow}>Rows</AppText>
         <AppText variant="label" tone="muted" style={styles.colColumn}>Column</AppText>

@@ -134,6 +134,7 @@ describe('library exchange in the browser (wide)', () => {
     await page.getByTestId('import-report').waitFor();
     assert.ok((await page.getByTestId('import-report-row-0').count()) > 0, 'the report lists the mistakes');
     await screenshot(page, 'import-report-mistakes-wide');
+    assert.deepEqual(await seriousViolations(page), [], 'axe on the report of mistakes');
 
     await page.locator('input[type=file]').setInputFiles(fixture('import-valid.csv'));
     await page.getByTestId('import-dry-run').click();
