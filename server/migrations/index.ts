@@ -12,6 +12,7 @@ import { Migration20270135600000_import_duplicates } from './Migration2027013560
 import { Migration20270136000000_published_search } from './Migration20270136000000_published_search';
 import { Migration20270137000000_attachment_review } from './Migration20270137000000_attachment_review';
 import { Migration20270141000000_library_columns } from './Migration20270141000000_library_columns';
+import { Migration20270141100000_library_sort_updated } from './Migration20270141100000_library_sort_updated';
 import { Migration20270142000000_import_created } from './Migration20270142000000_import_created';
 import { Migration20270142100000_import_suggested_names } from './Migration20270142100000_import_suggested_names';
 
@@ -34,6 +35,7 @@ export const migrationsList = [
   { name: 'Migration20270136000000_published_search', class: Migration20270136000000_published_search },
   { name: 'Migration20270137000000_attachment_review', class: Migration20270137000000_attachment_review },
   { name: 'Migration20270141000000_library_columns', class: Migration20270141000000_library_columns },
+  { name: 'Migration20270141100000_library_sort_updated', class: Migration20270141100000_library_sort_updated },
   { name: 'Migration20270142000000_import_created', class: Migration20270142000000_import_created },
   { name: 'Migration20270142100000_import_suggested_names', class: Migration20270142100000_import_suggested_names },
 ];
