@@ -377,8 +377,10 @@ const styles = StyleSheet.create({
     borderRadius: radius.pill,
     paddingHorizontal: spacing.lg,
     paddingVertical: spacing.sm + 2,
+    // A 44 px tap target at both sizes.
+    minHeight: 44,
   },
-  searchWide: { flex: 1, minHeight: 44 },
+  searchWide: { flex: 1 },
   countRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, paddingHorizontal: spacing.lg, paddingBottom: spacing.sm },
   countRowWide: { paddingBottom: spacing.xs },
   padWide: { paddingHorizontal: spacing.lg, paddingBottom: spacing.sm },
