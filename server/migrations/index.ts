@@ -11,6 +11,7 @@ import { Migration20270135500000_idempotency } from './Migration20270135500000_i
 import { Migration20270135600000_import_duplicates } from './Migration20270135600000_import_duplicates';
 import { Migration20270136000000_published_search } from './Migration20270136000000_published_search';
 import { Migration20270137000000_attachment_review } from './Migration20270137000000_attachment_review';
+import { Migration20270140000000_review_revision } from './Migration20270140000000_review_revision';
 import { Migration20270141000000_library_columns } from './Migration20270141000000_library_columns';
 import { Migration20270141100000_library_sort_updated } from './Migration20270141100000_library_sort_updated';
 import { Migration20270142000000_import_created } from './Migration20270142000000_import_created';
@@ -34,6 +35,7 @@ export const migrationsList = [
   { name: 'Migration20270135600000_import_duplicates', class: Migration20270135600000_import_duplicates },
   { name: 'Migration20270136000000_published_search', class: Migration20270136000000_published_search },
   { name: 'Migration20270137000000_attachment_review', class: Migration20270137000000_attachment_review },
+  { name: 'Migration20270140000000_review_revision', class: Migration20270140000000_review_revision },
   { name: 'Migration20270141000000_library_columns', class: Migration20270141000000_library_columns },
   { name: 'Migration20270141100000_library_sort_updated', class: Migration20270141100000_library_sort_updated },
   { name: 'Migration20270142000000_import_created', class: Migration20270142000000_import_created },

@@ -1,5 +1,6 @@
 import { complexDetailSchema, revisionsResponseSchema, type ComplexDetail, type SaveComplexInput } from '@/lib/schemas/library';
 import { AuditEvent } from '@/server/modules/audit/audit-event.entity';
+import { ComplexReview } from '@/server/modules/library/review.entity';
 import { createTestApp, type TestApp } from '../setup/test-app';
 import { measurementInput } from '../factories/library';
 import { buildLibraryWorld, createEntry, type LibraryWorld } from '../factories/library-world';
@@ -172,6 +173,19 @@ describe('PUT /api/complexes/:id', () => {
     expect(saved.measurements.map((m) => [m.kind, m.value])).toEqual([['activation-volume', -9.6]]);
     expect(saved.measurements[0]!.id).not.toBe(entry.measurements[0]!.id);
     expect((await revisionsOf(entry.id))[0]!.message).toBe('Added an activation volume measurement; removed a water exchange measurement');
+  });
+
+  it('a review decision belongs to the revision it recorded (one flush writes both)', async () => {
+    const entry = await createEntry(w.author, w.groupId, { measurements: [measurementInput()] });
+    expect((await w.author.post(`/api/complexes/${entry.id}/submit`)).status).toBe(200);
+    const reviewed = await w.curator.post(`/api/complexes/${entry.id}/reviews`, { decision: 'return', comment: 'Name the medium.' });
+    expect(reviewed.status).toBe(201);
+    const review = await t.orm.em.fork().findOneOrFail(ComplexReview, { id: reviewed.body.review.id }, { populate: ['revision'] });
+    expect(review.revision).not.toBeNull();
+    expect(review.revision!.number).toBe(review.revisionNumber);
+    expect(review.revision!.complex.id).toBe(entry.id);
+    expect(review.revision!.kind).toBe('review');
+    expect(review.revision!.message).toBe('Returned: Name the medium.');
   });
 
   it('viewers and other contributors cannot save', async () => {

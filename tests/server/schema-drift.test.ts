@@ -100,7 +100,7 @@ it('every many-to-one relation has a foreign key to its target table, and the ag
   expect(problems).toEqual([]);
   // The library entry as an aggregate: these relations are mapped (with their columns unchanged).
   expect(relations).toEqual(
-    expect.arrayContaining(['measurement.complex_id', 'measurement.citation_id', 'complex_revision.complex_id', 'complex_review.complex_id', 'attachment.complex_id']),
+    expect.arrayContaining(['measurement.complex_id', 'measurement.citation_id', 'complex_revision.complex_id', 'complex_review.complex_id', 'complex_review.revision_id', 'attachment.complex_id']),
   );
   const complex = t.orm.getMetadata().find('Complex')!;
   expect(complex.properties.measurements).toMatchObject({ kind: '1:m', mappedBy: 'complex', orphanRemoval: true });

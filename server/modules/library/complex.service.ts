@@ -204,6 +204,8 @@ interface ChangePlan {
   audit?: { action: string; details: Record<string, unknown> };
   /** Runs with the new snapshot (e.g. acceptance stores it as the accepted snapshot). */
   withSnapshot?: (work: Work, snapshot: ComplexSnapshot, newVersion: number) => void;
+  /** Runs with the new revision, before the flush (a review decision belongs to it). */
+  withRevision?: (tem: EntityManager, work: Work, revision: InferEntity<typeof ComplexRevision>) => void;
 }
 
 /** The measurements in the order the entry lists them (as measurementsOf reads them). */
@@ -245,7 +247,7 @@ async function commit(em: EntityManager, actor: Actor, complex: ComplexEntity, b
       await plan.apply?.(tem, work, newVersion);
       const snapshot = settle(work);
       plan.withSnapshot?.(work, snapshot, newVersion);
-      tem.create(ComplexRevision, {
+      const revision = tem.create(ComplexRevision, {
         id: randomUUID(),
         complex: entity,
         number: newVersion,
@@ -256,6 +258,7 @@ async function commit(em: EntityManager, actor: Actor, complex: ComplexEntity, b
         authorId: actor.userId,
         createdAt: new Date(),
       });
+      plan.withRevision?.(tem, work, revision);
       if (plan.audit) {
         recordAudit(tem, {
           actorId: actor.userId,
@@ -657,12 +660,15 @@ export async function reviewComplex(em: EntityManager, actor: Actor, id: string,
   };
   await commit(em, actor, complex, basedOn, {
     set,
-    apply: async (tem, work, newVersion) => {
+    apply: async (tem, work) => {
       if (restore && accepted) await restoreAccepted(tem, work, accepted);
+    },
+    withRevision: (tem, work, revision) => {
       tem.create(ComplexReview, {
         id: reviewId,
         complex: work.entity,
-        revisionNumber: newVersion,
+        revision,
+        revisionNumber: revision.number,
         decision: input.decision,
         comment: input.comment,
         reviewerId: actor.userId,

@@ -180,7 +180,7 @@ export async function seedDemoLibrary(coreEm: CoreEntityManager): Promise<DemoLi
       status = decision === 'accept' ? 'accepted' : decision === 'decline' ? 'declined' : 'returned';
       const action = decision === 'accept' ? 'library.entry.accepted' : decision === 'decline' ? 'library.entry.declined' : 'library.entry.returned';
       const snapshot = record('review', curator, decision === 'accept' ? 'Accepted' : `${decision === 'decline' ? 'Declined' : 'Returned'}: ${comment}`, at, { action, from: 'in-review' });
-      reviewRows.push({ id: randomUUID(), complex: id, revisionNumber: version, decision, comment, reviewerId: curator, selfAccepted: false, createdAt: at });
+      reviewRows.push({ id: randomUUID(), complex: id, revisionNumber: version, revision: revisionRows[revisionRows.length - 1]!.id, decision, comment, reviewerId: curator, selfAccepted: false, createdAt: at });
       if (decision === 'accept') {
         acceptedSnapshot = snapshot;
         acceptedVersion = version;
