@@ -71,7 +71,6 @@ export function ForgotPasswordScreen() {
           onSubmitEditing={() => void submit()}
           keyboardType="email-address"
           autoComplete="email"
-          placeholder="name@example.org"
           testID="forgot-email"
         />
         <FormError message={formError} testID="forgot-form-error" />

@@ -101,8 +101,7 @@ function CreateGroupForm() {
         control={control}
         name="name"
         label="New group’s name"
-        hint="Usually the lab’s name. You become its admin and can invite the others."
-        placeholder="e.g. Larkspur Coordination Lab"
+        hint="Usually the lab’s name, such as Larkspur Coordination Lab. You become its admin and can invite the others."
         onSubmitEditing={() => void submit()}
         autoCapitalize="words"
         testID="create-group-name"

@@ -129,7 +129,6 @@ function InviteForm({ groupId }: { groupId: string }) {
           <TextField
             ref={field.ref}
             label="Invite by e-mail"
-            placeholder="colleague@example.org"
             value={field.value}
             onChangeText={(text) => {
               setSentTo(null);

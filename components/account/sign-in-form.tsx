@@ -65,7 +65,6 @@ export function SignInForm({ initialEmail = '', onSignedIn, showDemoLab = true, 
         keyboardType="email-address"
         autoComplete="email"
         textContentType="emailAddress"
-        placeholder="name@example.org"
         testID="sign-in-email"
       />
       <FormTextField

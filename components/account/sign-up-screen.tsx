@@ -87,7 +87,6 @@ export function SignUpScreen({ email: invitedEmail = '', next }: { email?: strin
           label="E-mail address"
           keyboardType="email-address"
           autoComplete="email"
-          placeholder="name@example.org"
           testID="sign-up-email"
         />
         <FormTextField

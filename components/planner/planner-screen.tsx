@@ -1,5 +1,7 @@
 import { useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { toDisplayFormula } from '@/lib/chem/display-formula';
+import { capitaliseSentence } from '@/lib/chem/number-format';
 import { planSequence, SequenceInputError, type SequenceResult } from '@/lib/chem/sequence-planner';
 import { BulletList } from '@/components/ui/bullet-list';
 import { Card } from '@/components/ui/card';
@@ -61,7 +63,7 @@ export function PlannerScreen({ initialStart, initialLigands }: PlannerScreenPro
             label="Start complex"
             value={start}
             onChangeText={setStart}
-            placeholder="e.g. [PtCl4]2- or cis-[PtCl2(NH3)2]"
+            hint="A square-planar complex, for example [PtCl4]2- or cis-[PtCl2(NH3)2]"
             testID="planner-start"
             error={state.kind === 'problem' && state.field === 'start' ? state.problem : undefined}
           />
@@ -71,15 +73,15 @@ export function PlannerScreen({ initialStart, initialLigands }: PlannerScreenPro
             label="Entering ligands, in order"
             value={ligands}
             onChangeText={setLigands}
-            placeholder="e.g. NH3 NH3"
+            hint="Formulas or abbreviations separated by spaces, for example NH3 NH3"
             testID="planner-ligands"
             error={state.kind === 'problem' && state.field !== 'start' ? state.problem : undefined}
           />
           <View style={styles.chips}>
             {LIGAND_CHIPS.map((id) => (
-              <Chip key={id} label={`+ ${id}`} mono onPress={() => setLigands((text) => `${text.trim()} ${id}`.trim())} testID={`planner-add-${id}`} />
+              <Chip key={id} label={`+ ${toDisplayFormula(id)}`} mono onPress={() => setLigands((text) => `${text.trim()} ${id}`.trim())} testID={`planner-add-${id}`} />
             ))}
-            <Chip label="clear" onPress={() => setLigands('')} testID="planner-clear" />
+            <Chip label="Clear" onPress={() => setLigands('')} testID="planner-clear" />
           </View>
         </View>
       </View>
@@ -97,9 +99,9 @@ export function PlannerScreen({ initialStart, initialLigands }: PlannerScreenPro
             {state.plan.steps.map((step, index) => (
               <View key={index} style={[styles.stepPair, wide && styles.stepPairWide]}>
                 <View style={styles.arrow} testID={`planner-arrow-${index + 1}`}>
-                  <AppText variant="mono" tone="accent">+ {step.entering}</AppText>
+                  <AppText variant="mono" tone="accent">+ {toDisplayFormula(step.entering)}</AppText>
                   <AppText style={styles.arrowGlyph}>{wide ? '⟶' : '↓'}</AppText>
-                  <AppText variant="mono" tone="muted">− {step.leaving}</AppText>
+                  <AppText variant="mono" tone="muted">− {toDisplayFormula(step.leaving)}</AppText>
                 </View>
                 <View style={styles.stage}>
                   <SquareComplex metal={metal} sites={step.sites} enteredSite={step.site} directorSite={step.transDirectorSite} label={step.productLabel} testID={`planner-square-${index + 1}`} />
@@ -109,12 +111,12 @@ export function PlannerScreen({ initialStart, initialLigands }: PlannerScreenPro
             ))}
           </View>
           {state.plan.steps.map((step, index) => (
-            <Card key={index} title={`Step ${index + 1}: + ${step.entering}`} testID={`planner-step-${index + 1}`}>
-              <BulletList items={step.reasons} />
+            <Card key={index} title={`Step ${index + 1}: + ${toDisplayFormula(step.entering)}`} testID={`planner-step-${index + 1}`}>
+              <BulletList items={step.reasons.map(capitaliseSentence)} />
             </Card>
           ))}
           <Card title="Notes">
-            <BulletList items={state.plan.notes} testID="planner-notes" />
+            <BulletList items={state.plan.notes.map(capitaliseSentence)} testID="planner-notes" />
           </Card>
         </View>
       ) : state.kind === 'empty' ? (

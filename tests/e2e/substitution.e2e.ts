@@ -65,7 +65,7 @@ for (const size of Object.keys(viewports) as ViewportName[]) {
       // [PtCl4]2- + 2 NH3 → cis-[PtCl2(NH3)2] (Peyrone 1844; Basolo & Pearson 1967).
       await page.getByTestId('planner-isomer').getByText('cis isomer').waitFor();
       assert.equal(await page.getByTestId('planner-chain').locator('svg').count(), 3, 'start and two intermediates drawn');
-      assert.match(await page.getByTestId('planner-arrow-2').innerText(), /\+ NH3[\s\S]*− Cl/);
+      assert.match(await page.getByTestId('planner-arrow-2').innerText(), /\+ NH₃[\s\S]*− Cl/);
       assert.match(await page.getByTestId('planner-square-2').innerHTML(), /trans director/);
       assert.ok((await horizontalOverflowPx(page)) <= 0, 'no horizontal scrolling');
       await screenshot(page, `planner-cis-${size}`);

@@ -14,8 +14,11 @@ describe('PlannerScreen', () => {
     expect(screen.getByTestId('planner-isomer')).toHaveTextContent('cis isomer');
     expect(screen.getByTestId('planner-square-0')).toBeTruthy();
     expect(screen.getByTestId('planner-square-2')).toBeTruthy();
-    expect(screen.getByTestId('planner-arrow-1')).toHaveTextContent(/\+ NH3[\s\S]*− Cl/);
-    expect(screen.getByTestId('planner-arrow-2')).toHaveTextContent(/\+ NH3/);
+    expect(screen.getByTestId('planner-arrow-1')).toHaveTextContent(/\+ NH₃[\s\S]*− Cl/);
+    expect(screen.getByTestId('planner-arrow-2')).toHaveTextContent(/\+ NH₃/);
+    // Each step's lines read as sentences, the formulas typeset (one notation on every screen).
+    expect(screen.getByTestId('planner-step-1')).toHaveTextContent(/Product: \[PtCl₃\(NH₃\)\]⁻/);
+    expect(screen.getByTestId('planner-step-1')).not.toHaveTextContent(/product:/);
   });
 
   it('asks for cis- or trans- when the start complex has both', () => {
