@@ -115,6 +115,11 @@ for (const size of Object.keys(viewports) as ViewportName[]) {
       await page.getByTestId('complex-form-use-name').click();
       assert.equal(await page.getByTestId('complex-form-name').inputValue(), 'tris(ethane-1,2-diamine)rhodium(III)');
       assert.equal(await suggestion.count(), 0);
+
+      // With a measurement row open, every field is still labelled.
+      await page.getByTestId('complex-form-add-measurement').click();
+      await page.getByTestId('complex-form-m-0-notes').waitFor();
+      assert.deepEqual(await seriousViolations(page), [], 'axe on the form with a measurement');
       assert.deepEqual(errors, []);
       await context.close();
     });
