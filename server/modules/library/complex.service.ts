@@ -218,7 +218,7 @@ function orderedMeasurements(entity: ComplexEntity): MeasurementEntity[] {
 
 /**
  * The denormalised measurement summary the search filters use (kinds, has-citation), kept in step
- * with the collection, and the snapshot of the entry as it now stands — both from memory.
+ * with the collection, and the snapshot of the entry as it now stands — both built in memory, without another read.
  */
 function settle(work: Work): ComplexSnapshot {
   const { entity, citations } = work;
